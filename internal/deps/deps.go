@@ -1,0 +1,26 @@
+package deps
+
+import (
+	_ "github.com/gocarina/gocsv"
+	_ "github.com/paulmach/orb"
+	_ "github.com/paulmach/orb/geojson"
+	_ "github.com/paulmach/orb/planar"
+	_ "github.com/paulmach/orb/geo"
+	_ "gonum.org/v1/gonum/mat"
+	_ "gonum.org/v1/gonum/optimize"
+	_ "gonum.org/v1/gonum/spatial/kdtree"
+	_ "gonum.org/v1/gonum/floats/scalar"
+	_ "gonum.org/v1/gonum/stat"
+	_ "gonum.org/v1/gonum/diff/fd"
+	_ "gonum.org/v1/plot"
+	_ "gonum.org/v1/plot/plotter"
+	_ "gonum.org/v1/plot/vg"
+	_ "gonum.org/v1/plot/vg/draw"
+	_ "gonum.org/v1/plot/vg/vgimg"
+	_ "gonum.org/v1/plot/vg/vgsvg"
+	_ "gonum.org/v1/plot/vg/vgpdf"
+	_ "gonum.org/v1/plot/palette/moreland"
+	_ "gonum.org/v1/plot/text"
+	_ "gonum.org/v1/plot/font"
+	_ "golang.org/x/term"
+)
