@@ -1,0 +1,91 @@
+package hydro
+
+import (
+	"bytes"
+	"encoding/csv"
+	"fmt"
+	"os"
+	"strings"
+
+	"github.com/gocarina/gocsv"
+)
+
+// columnMapEntry is one line of a column map file. The map file has fixed
+// columns, so gocsv fits here (with our own csv.Reader: BOM stripped, any
+// line ending, see STYLE.md).
+type columnMapEntry struct {
+	Header    string `csv:"header"`
+	Parameter string `csv:"parameter"`
+}
+
+// ReadColumnMap reads a column map file: a CSV file with the header line
+// "header,parameter" and one line per column of the lab file, e.g.
+//
+//	header,parameter
+//	Calc. Ca++,Ca
+//	Alk. tot.,Alkalinity as CaCO3 (mg/L)
+//	Bohrung,WellID
+//	Bemerkung,-
+//
+// The parameter is a key ("Ca", "Alk", "SampleID", "WellID", "pHField",
+// "Temp"...), a header-like spelling carrying a unit, or "-" to keep the
+// column unmapped.
+func ReadColumnMap(path string) (map[string]string, error) {
+	raw, err := os.ReadFile(path)
+	if err != nil {
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v", ErrRead, err)}
+	}
+	text, err := normalise(raw)
+	if err != nil {
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v", ErrColumnMap, err)}
+	}
+	if strings.TrimSpace(text) == "" {
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrColumnMap, ErrEmpty)}
+	}
+	cr := csv.NewReader(bytes.NewReader([]byte(text)))
+	cr.Comma = detectDelimiter(text)
+	cr.TrimLeadingSpace = true
+	cr.FieldsPerRecord = -1
+	var entries []columnMapEntry
+	if err := gocsv.UnmarshalCSV(cr, &entries); err != nil {
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v (want the header line \"header,parameter\")", ErrColumnMap, err)}
+	}
+	first := strings.SplitN(text, "\n", 2)[0]
+	if !strings.Contains(strings.ToLower(first), "header") || !strings.Contains(strings.ToLower(first), "parameter") {
+		return nil, &ReadError{File: path, Line: 1, Field: first, Err: fmt.Errorf("%w: the first line must be \"header,parameter\"", ErrColumnMap)}
+	}
+	m := make(map[string]string, len(entries))
+	for i, e := range entries {
+		h := strings.TrimSpace(e.Header)
+		p := strings.TrimSpace(e.Parameter)
+		if h == "" {
+			return nil, &ReadError{File: path, Line: i + 2, Column: 1, Err: fmt.Errorf("%w: empty header", ErrColumnMap)}
+		}
+		if p == "" {
+			return nil, &ReadError{File: path, Line: i + 2, Column: 2, Field: h, Err: fmt.Errorf("%w: empty parameter (use - to leave a column unmapped)", ErrColumnMap)}
+		}
+		if !validMapTarget(p) {
+			return nil, &ReadError{File: path, Line: i + 2, Column: 2, Field: p, Err: fmt.Errorf("%w: unknown parameter", ErrColumnMap)}
+		}
+		if _, dup := m[h]; dup {
+			return nil, &ReadError{File: path, Line: i + 2, Column: 1, Field: h, Err: fmt.Errorf("%w: header listed twice", ErrColumnMap)}
+		}
+		m[h] = p
+	}
+	return m, nil
+}
+
+// validMapTarget says whether a column-map parameter can be understood.
+func validMapTarget(p string) bool {
+	switch strings.ToLower(p) {
+	case "-", "ignore", "skip", "none":
+		return true
+	}
+	if _, ok := analytes[p]; ok {
+		return true
+	}
+	if _, ok := fieldDefs[p]; ok {
+		return true
+	}
+	return parseHeader(p).Param != ""
+}

@@ -1,0 +1,225 @@
+package hydro
+
+import (
+	"fmt"
+	"strings"
+	"time"
+)
+
+// Severity ranks a row issue.
+type Severity int
+
+const (
+	// Info notes something the reader did on purpose (a substituted
+	// non-detect, a default unit); the row stays ok.
+	Info Severity = iota
+	// Warning marks a value that was used but deserves a look (a duplicate
+	// sample id, a multi-interval screen); the row status becomes warning.
+	Warning
+	// Error marks a value that could not be used (non-numeric or negative
+	// concentration, pH outside 0-14, unknown unit, ragged row); the row
+	// status becomes rejected.
+	Error
+)
+
+func (s Severity) String() string {
+	switch s {
+	case Info:
+		return "info"
+	case Warning:
+		return "warning"
+	case Error:
+		return "error"
+	}
+	return fmt.Sprintf("Severity(%d)", int(s))
+}
+
+// Status is the verdict on one row.
+type Status string
+
+const (
+	StatusOK       Status = "ok"
+	StatusWarning  Status = "warning"
+	StatusRejected Status = "rejected"
+)
+
+// Issue is one finding about a row. Column is the header of the column it
+// concerns, empty for the row as a whole.
+//
+// Line is the file line the issue was found on when that differs from the
+// row's own line (a later line of a long-shape sample), else 0.
+type Issue struct {
+	Severity Severity
+	Column   string
+	Message  string
+	Line     int
+}
+
+func (i Issue) String() string {
+	var b strings.Builder
+	b.WriteString(i.Severity.String())
+	b.WriteString(": ")
+	if i.Line > 0 {
+		fmt.Fprintf(&b, "line %d: ", i.Line)
+	}
+	if i.Column != "" {
+		fmt.Fprintf(&b, "column %q: ", i.Column)
+	}
+	b.WriteString(i.Message)
+	return b.String()
+}
+
+// Shape is the layout of a lab file.
+type Shape int
+
+const (
+	// Wide: one row per sample, one column per parameter.
+	Wide Shape = iota
+	// Long: one row per sample and parameter (sample id, parameter, value,
+	// unit, qualifier...).
+	Long
+)
+
+func (s Shape) String() string {
+	if s == Long {
+		return "long"
+	}
+	return "wide"
+}
+
+// HeaderMapping reports how one column header was understood. Param is the
+// parameter key ("Ca", "pH", "SampleID", ...) or "" when the column was kept
+// unmapped in Sample.Extra. Unit is the unit taken from the header (or the
+// default, see Note). For a long file the mapping covers the parameter names
+// found in its parameter column too, with Column the index of that column.
+type HeaderMapping struct {
+	Column int
+	Header string
+	Param  string
+	Unit   string
+	Note   string
+}
+
+// Batch is the content of one lab file.
+type Batch struct {
+	File         string
+	Shape        Shape
+	Delimiter    rune
+	DecimalComma bool
+	Mapping      []HeaderMapping
+	Rows         []Row
+}
+
+// Counts returns the number of rows per status.
+func (b *Batch) Counts() map[Status]int {
+	c := map[Status]int{StatusOK: 0, StatusWarning: 0, StatusRejected: 0}
+	for _, r := range b.Rows {
+		c[r.Status]++
+	}
+	return c
+}
+
+// Row is one sample as read, with its verdict. Line is the 1-based line of
+// the row in the file (for the long shape, the first line of the sample).
+type Row struct {
+	Line   int
+	Sample Sample
+	Status Status
+	Issues []Issue
+}
+
+func (r *Row) add(sev Severity, line int, col, format string, args ...any) {
+	if line == r.Line {
+		line = 0
+	}
+	r.Issues = append(r.Issues, Issue{Severity: sev, Column: col, Line: line, Message: fmt.Sprintf(format, args...)})
+}
+
+// settle sets Status from the worst issue.
+func (r *Row) settle() {
+	worst := Info
+	for _, is := range r.Issues {
+		if is.Severity > worst {
+			worst = is.Severity
+		}
+	}
+	switch {
+	case worst >= Error:
+		r.Status = StatusRejected
+	case worst == Warning:
+		r.Status = StatusWarning
+	default:
+		r.Status = StatusOK
+	}
+}
+
+// Value is an optional number: OK is false when the value was not reported
+// (an empty cell or no such column), which is different from a reported zero.
+type Value struct {
+	V  float64
+	OK bool
+}
+
+// Some returns a present Value.
+func Some(v float64) Value { return Value{V: v, OK: true} }
+
+// Get returns the value and whether it is present.
+func (v Value) Get() (float64, bool) { return v.V, v.OK }
+
+func (v Value) String() string {
+	if !v.OK {
+		return ""
+	}
+	return fmt.Sprint(v.V)
+}
+
+// Sample is one water sample as reported by the lab, with every number in
+// the unit the lab used except where a field name carries its unit (DepthM,
+// TempC...), which the reader converts to.
+type Sample struct {
+	ID     string
+	WellID string
+	// Round is the sampling round, event or campaign.
+	Round string
+	// SampledAt is the sampling date-time (zero when absent or unparsed);
+	// SampledAtRaw keeps the cell as written.
+	SampledAt    time.Time
+	SampledAtRaw string
+
+	Lat, Lon          Value // decimal degrees, WGS84 assumed
+	Easting, Northing Value // projected metres
+	EPSG              int   // from a column or Options.EPSG, 0 when unknown
+	GroundElevM       Value
+	DepthM            Value
+	ScreenTopM        Value
+	ScreenBottomM     Value
+	ScreenRaw         string
+	TempC             Value
+	PH                Value
+	PHSource          string // "field" or "lab"; "" when no pH
+	PHField, PHLab    Value
+	SpecCondUScm      Value // specific conductance, uS/cm
+	TDSMgL            Value
+	Density           Value // kg/L
+	Analytes          map[string]Measurement
+	Extra             map[string]string
+}
+
+// Measurement is one analyte result as reported.
+type Measurement struct {
+	// Value is in Unit. For a non-detect it is the value set by the
+	// non-detect policy and Substituted is true.
+	Value     float64
+	Unit      Unit
+	Raw       string
+	Qualifier string
+	NonDetect bool
+	// DetectionLimit is the detection or reporting limit in Unit, 0 when
+	// not given.
+	DetectionLimit float64
+	Substituted    bool
+	// Param is the analyte key ("Ca", "Alk", ...); Column is the header
+	// (wide) or parameter name (long) it came from.
+	Param  string
+	Column string
+}

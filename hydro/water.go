@@ -1,0 +1,155 @@
+package hydro
+
+import (
+	"fmt"
+)
+
+// Density sources reported in Water.DensitySource.
+const (
+	DensityMeasured = "measured"
+	DensityFromTDS  = "estimated from TDS"
+	DensityAssumed  = "assumed 1.000"
+)
+
+// densityPerTDS is the slope of the density estimate rho (kg/L) = 1.000 +
+// densityPerTDS * TDS (mg/L). `common practice`: a linear rule that puts
+// seawater (about 35 900 mg/L TDS) at 1.025 kg/L, its usual density near
+// 20 C (`from memory`). Good to a few parts per thousand below about 50 g/L;
+// for brines give a measured density.
+const densityPerTDS = 7.0e-7
+
+// Water is a sample converted for speciation: totals in mol per kilogram of
+// water keyed by component name ("Ca+2", "SO4-2", "H4SiO4", ...), and
+// alkalinity in equivalents per kilogram of water.
+//
+// Alkalinity convention: AlkalinityEqKgw is the total (titration)
+// alkalinity in eq/kgw. It comes from a reported alkalinity (as CaCO3,
+// as HCO3 or in meq/L), or, when none was reported, from the HCO3 and CO3
+// ions as HCO3 + 2 CO3 (each mole of carbonate takes two protons to the
+// end point). "CO3-2" in Molal holds total inorganic carbon, and only when
+// TIC itself was measured.
+type Water struct {
+	TempC           float64
+	HasTemp         bool
+	PH              float64
+	HasPH           bool
+	PHSource        string
+	Molal           map[string]float64
+	AlkalinityEqKgw float64
+	HasAlkalinity   bool
+	KgWaterPerL     float64
+	DensityKgL      float64
+	DensitySource   string
+	// TDSMgL is the TDS used for the water content: measured, else the sum
+	// of the reported constituents (TDSCalculated true).
+	TDSMgL        float64
+	TDSCalculated bool
+}
+
+// solution returns the density and water content the sample's numbers
+// refer to: density measured, else estimated from TDS (measured, else the
+// sum of the reported constituents), else 1.000 kg/L; kg water per litre =
+// density - TDS/1e6 (`common practice`: the dissolved solids displace
+// their own mass of water).
+func (s *Sample) solution() (sol Solution, source string, tds float64, tdsCalc bool) {
+	tds, tdsCalc = s.TDSMgL.V, false
+	if !s.TDSMgL.OK {
+		tds, tdsCalc = s.constituentSumMgL(), true
+	}
+	switch {
+	case s.Density.OK:
+		sol.DensityKgL, source = s.Density.V, DensityMeasured
+	case tds > 0:
+		sol.DensityKgL, source = 1+densityPerTDS*tds, DensityFromTDS
+	default:
+		sol.DensityKgL, source = 1, DensityAssumed
+	}
+	sol.KgWaterPerL = sol.DensityKgL - tds/1e6
+	return sol, source, tds, tdsCalc
+}
+
+// constituentSumMgL sums the reported analytes in mg/L (alkalinity as
+// HCO3, 1.2192 = 61.016/50.043 mg HCO3 per mg CaCO3, when HCO3 itself is
+// not reported), with a density of 1 kg/L for per-kg units.
+func (s *Sample) constituentSumMgL() float64 {
+	sum := 0.0
+	for k, m := range s.Analytes {
+		a := analytes[k]
+		if a == nil || k == "TIC" {
+			continue
+		}
+		if k == "Alk" {
+			if _, ok := s.Analytes["HCO3"]; ok {
+				continue
+			}
+			if mm, err := m.MmolL(Dilute); err == nil {
+				sum += mm * mmHCO3
+			}
+			continue
+		}
+		if v, err := m.MgL(Dilute); err == nil {
+			sum += v
+		}
+	}
+	return sum
+}
+
+// Water converts the sample to molalities. Issues report what could not be
+// used (an analyte in a unit that cannot be converted, a water content out
+// of range) and how the density was obtained.
+func (s *Sample) Water() (Water, []Issue) {
+	var issues []Issue
+	sol, src, tds, tdsCalc := s.solution()
+	w := Water{Molal: map[string]float64{}, DensityKgL: sol.DensityKgL, DensitySource: src, TDSMgL: tds, TDSCalculated: tdsCalc,
+		TempC: s.TempC.V, HasTemp: s.TempC.OK, PH: s.PH.V, HasPH: s.PH.OK, PHSource: s.PHSource}
+	if !(sol.KgWaterPerL > 0.1) {
+		issues = append(issues, Issue{Severity: Error, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
+		return w, issues
+	}
+	w.KgWaterPerL = sol.KgWaterPerL
+	if tdsCalc && tds > 0 && src == DensityFromTDS {
+		issues = append(issues, Issue{Severity: Info, Message: fmt.Sprintf("TDS not reported: density estimated from the sum of the reported constituents, %.0f mg/L", tds)})
+	}
+	for _, k := range AnalyteKeys() {
+		m, ok := s.Analytes[k]
+		if !ok {
+			continue
+		}
+		a := analytes[k]
+		comp := a.Component
+		if k == "TIC" {
+			comp = "CO3-2"
+		}
+		if comp == "" && k != "Alk" && k != "HCO3" && k != "CO3" {
+			issues = append(issues, Issue{Severity: Info, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})
+			continue
+		}
+		mm, err := m.MmolL(sol)
+		if err != nil {
+			issues = append(issues, Issue{Severity: Error, Column: m.Column, Message: err.Error()})
+			continue
+		}
+		molal := mm / 1000 / sol.KgWaterPerL
+		if k == "Alk" {
+			w.AlkalinityEqKgw, w.HasAlkalinity = molal, true
+			continue
+		}
+		w.Molal[comp] = molal
+	}
+	if !w.HasAlkalinity {
+		var alk float64
+		var any bool
+		for _, k := range []string{"HCO3", "CO3"} {
+			if m, ok := s.Analytes[k]; ok {
+				if meq, err := m.MeqL(sol); err == nil {
+					alk += meq / 1000 / sol.KgWaterPerL
+					any = true
+				}
+			}
+		}
+		if any {
+			w.AlkalinityEqKgw, w.HasAlkalinity = alk, true
+		}
+	}
+	return w, issues
+}

@@ -1,0 +1,29 @@
+// Package maps draws the figures of gwsat: saturation-index maps, depth
+// profiles, mixing and temperature curves and bar charts, on
+// gonum.org/v1/plot.
+//
+// The package draws what it is given and imports none of gwsat's other
+// packages. Each kind of figure is a plain input type: [SIMap] (an
+// interpolated saturation-index surface on a [Grid], with [Well] symbols,
+// site [Feature]s, the SI = 0 equilibrium contour, a colour bar, a scale bar
+// and a north arrow), [DepthProfile] (SI against depth, one [ProfilePanel]
+// per mineral), [Curves] (SI against mixing fraction or temperature, one
+// [Series] per mineral) and [Bars] (for example precipitation potential per
+// mineral). Every one of them is a [Figure]; [Panels] tiles several figures
+// on one page, and [Render] draws a figure into PNG (300 dpi), SVG (fonts
+// embedded) or PDF bytes, turning drawing panics into errors. Callers write
+// the bytes to files themselves, atomically.
+//
+// Saturation index is shown in [Diverging], a blue-white-orange colour scale
+// centred on SI = 0, whose lightness rises monotonically from each end to
+// the neutral centre and whose two ends differ in lightness, so that the
+// figures stay readable in grey-scale print and for colour-blind readers.
+// Series in line figures differ in colour and in dash pattern and marker.
+//
+// Non-finite values (NaN, ±Inf) never reach the plotting library: they are
+// left out, and each input type reports how many through its Skipped method.
+// A figure with nothing to draw returns [ErrNoData] instead of a blank image.
+//
+// The figures are for screening: they show computed saturation states, not
+// a design. Defer to local codes and licensed professionals.
+package maps

@@ -1,0 +1,125 @@
+package maps
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"image/color"
+	"math"
+	"strings"
+
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgpdf"
+	"gonum.org/v1/plot/vg/vgsvg"
+)
+
+// Errors returned by the package.
+var (
+	// ErrNoData reports a figure with nothing to draw.
+	ErrNoData = errors.New("maps: no data to draw")
+	// ErrFormat reports an output format other than png, svg or pdf.
+	ErrFormat = errors.New("maps: unknown output format")
+	// ErrSize reports a non-positive or non-finite page size.
+	ErrSize = errors.New("maps: invalid figure size")
+	// ErrInput reports malformed input (mismatched lengths, bad grid shape).
+	ErrInput = errors.New("maps: invalid input")
+)
+
+// PNGDPI is the resolution of rendered PNG images, in dots per inch.
+const PNGDPI = 300
+
+// Figure is anything that can draw itself onto a canvas. The figure types of
+// this package (SIMap, DepthProfile, Curves, Bars) implement it, and so does
+// the result of Panels. Draw returns ErrNoData when there is nothing to draw.
+type Figure interface {
+	Draw(c draw.Canvas) error
+}
+
+// FigureFunc adapts a plain function to a Figure, for example to draw a
+// *plot.Plot: FigureFunc(func(c draw.Canvas) error { p.Draw(c); return nil }).
+type FigureFunc func(c draw.Canvas) error
+
+// Draw calls f(c).
+func (f FigureFunc) Draw(c draw.Canvas) error { return f(c) }
+
+// Render draws f on a page of the given size and returns the encoded bytes
+// in format "png" (PNGDPI dots per inch, so width*300/72 pixels across),
+// "svg" (fonts embedded) or "pdf" (fonts embedded). A panic inside the
+// plotting library is recovered and returned as an error; no partial output
+// is returned with an error.
+func Render(f Figure, format string, width, height vg.Length) (out []byte, err error) {
+	if f == nil {
+		return nil, fmt.Errorf("%w: nil figure", ErrNoData)
+	}
+	if !(width > 0) || !(height > 0) || math.IsInf(float64(width), 0) || math.IsInf(float64(height), 0) {
+		return nil, fmt.Errorf("%w: %v x %v", ErrSize, width, height)
+	}
+	defer func() {
+		if r := recover(); r != nil {
+			out = nil
+			err = fmt.Errorf("maps: drawing failed: %v", r)
+		}
+	}()
+	var cw vg.CanvasWriterTo
+	switch strings.ToLower(format) {
+	case "png":
+		cw = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(PNGDPI))}
+	case "svg":
+		cw = vgsvg.NewWith(vgsvg.UseWH(width, height), vgsvg.EmbedFonts(true))
+	case "pdf":
+		pc := vgpdf.New(width, height)
+		pc.EmbedFonts(true)
+		cw = pc
+	default:
+		return nil, fmt.Errorf("%w: %q (want png, svg or pdf)", ErrFormat, format)
+	}
+	dc := draw.New(cw)
+	dc.FillPolygon(color.White, []vg.Point{
+		{X: dc.Min.X, Y: dc.Min.Y}, {X: dc.Max.X, Y: dc.Min.Y},
+		{X: dc.Max.X, Y: dc.Max.Y}, {X: dc.Min.X, Y: dc.Max.Y},
+	})
+	if err := f.Draw(dc); err != nil {
+		return nil, err
+	}
+	var buf bytes.Buffer
+	if _, err := cw.WriteTo(&buf); err != nil {
+		return nil, fmt.Errorf("maps: encoding %s: %w", format, err)
+	}
+	return buf.Bytes(), nil
+}
+
+// Panels tiles figs on one page, cols to a row (cols < 1 means one row), in
+// reading order. Empty slots stay blank. The returned Figure fails with the
+// first panel's error, naming the panel.
+func Panels(figs []Figure, cols int) Figure {
+	return panels{figs: figs, cols: cols}
+}
+
+type panels struct {
+	figs []Figure
+	cols int
+}
+
+func (ps panels) Draw(c draw.Canvas) error {
+	n := len(ps.figs)
+	if n == 0 {
+		return fmt.Errorf("%w: no panels", ErrNoData)
+	}
+	cols := ps.cols
+	if cols < 1 || cols > n {
+		cols = n
+	}
+	rows := (n + cols - 1) / cols
+	t := draw.Tiles{Rows: rows, Cols: cols, PadX: 0.3 * vg.Centimeter, PadY: 0.3 * vg.Centimeter}
+	for i, f := range ps.figs {
+		if f == nil {
+			continue
+		}
+		if err := f.Draw(t.At(c, i%cols, i/cols)); err != nil {
+			return fmt.Errorf("panel %d: %w", i+1, err)
+		}
+	}
+	return nil
+}

@@ -1,0 +1,589 @@
+package speciation
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"sync"
+
+	"gwsat/data"
+)
+
+// Sentinel errors of the data reader. Errors returned by ParseDatabase wrap one of
+// these in a *DataError that names the entry and its line.
+var (
+	ErrSyntax           = errors.New("speciation: syntax error")
+	ErrUnknownComponent = errors.New("speciation: unknown component or species in reaction")
+	ErrMissingLogK      = errors.New("speciation: missing log K")
+	ErrMissingTempFunc  = errors.New("speciation: missing temperature function (analytic or dh)")
+	ErrChargeImbalance  = errors.New("speciation: reaction does not balance in charge")
+	ErrDuplicateEntry   = errors.New("speciation: duplicate entry")
+	ErrInconsistentLogK = errors.New("speciation: analytic expression does not reproduce logk at 25 C")
+	ErrMissingComponent = errors.New("speciation: required component missing")
+	ErrUnknownEntryKind = errors.New("speciation: unknown entry kind")
+	ErrMissingField     = errors.New("speciation: missing field")
+	ErrInvalidParameter = errors.New("speciation: invalid parameter")
+)
+
+// DataError reports a problem in a thermodynamic data file, with the entry and the
+// line where it was found.
+type DataError struct {
+	Line  int    // 1-based line of the offending key, or of the entry header
+	Entry string // e.g. "species CaHCO3+"
+	Err   error  // one of the ErrXxx sentinels, possibly wrapped with detail
+}
+
+func (e *DataError) Error() string {
+	if e.Entry == "" {
+		return fmt.Sprintf("thermodynamic data line %d: %v", e.Line, e.Err)
+	}
+	return fmt.Sprintf("thermodynamic data line %d, entry [%s]: %v", e.Line, e.Entry, e.Err)
+}
+
+func (e *DataError) Unwrap() error { return e.Err }
+
+// LogKFunc is log10 K as a function of temperature,
+// log K(T) = A + B*T + C/T + D*log10(T) + E/T^2 with T in kelvin.
+// A van 't Hoff enthalpy is stored in the same form (A and C only).
+type LogKFunc struct {
+	A, B, C, D, E float64
+}
+
+// At returns log10 K at temperature tempK (kelvin).
+func (f LogKFunc) At(tempK float64) float64 {
+	return f.A + f.B*tempK + f.C/tempK + f.D*math.Log10(tempK) + f.E/(tempK*tempK)
+}
+
+func (f LogKFunc) add(g LogKFunc, nu float64) LogKFunc {
+	return LogKFunc{f.A + nu*g.A, f.B + nu*g.B, f.C + nu*g.C, f.D + nu*g.D, f.E + nu*g.E}
+}
+
+// gasConstant in J/(mol K) (CODATA 2018, exact value 8.314462618).
+const gasConstant = 8.314462618
+
+// T25 is 25 C in kelvin.
+const T25 = 298.15
+
+func vantHoff(logK25, dhJ float64) LogKFunc {
+	// log K(T) = log K25 - dH/(R ln10) (1/T - 1/T25)
+	s := dhJ / (gasConstant * math.Ln10)
+	return LogKFunc{A: logK25 + s/T25, C: -s}
+}
+
+// Term is one component of a reaction with its stoichiometric coefficient.
+type Term struct {
+	Component string
+	Index     int // index of the component in Database.Components
+	Nu        float64
+}
+
+// Component is a basis species: the laboratory reports its total.
+type Component struct {
+	Name       string
+	Charge     float64
+	Mass       float64 // g/mol
+	Alkalinity float64 // equivalents of alkalinity per mole
+	Solvent    bool    // true for H2O
+	Line       int
+}
+
+// Species is an aqueous species formed from components.
+type Species struct {
+	Name       string
+	Charge     float64
+	Terms      []Term   // formation reaction, expanded to components (H2O included)
+	LogK       LogKFunc // formation constant from components as a function of T
+	LogK25     float64  // log K at 25 C of the reaction as written in the file
+	IonSize    float64  // angstrom
+	TJB        float64  // Truesdell-Jones b, kg/mol
+	SizeSource string
+	Source     string
+	Confidence string
+	Master     int // index of the component this is the free ion of, or -1
+	Reaction   string
+	TempNote   string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	Line       int
+}
+
+// Mineral is a solid or a gas written as its dissolution into components.
+type Mineral struct {
+	Name          string
+	Formula       string
+	Gas           bool
+	Terms         []Term
+	LogK          LogKFunc
+	LogK25        float64
+	MolarMass     float64 // g/mol
+	Density       float64 // g/cm3
+	DensitySource string
+	Source        string
+	Confidence    string
+	Reaction      string
+	TempNote      string
+	Line          int
+}
+
+// MolarVolume returns the molar volume in cm3/mol, or 0 if the density is unknown.
+func (m *Mineral) MolarVolume() float64 {
+	if m.Density <= 0 {
+		return 0
+	}
+	return m.MolarMass / m.Density
+}
+
+// Database is a parsed thermodynamic data set. It is read-only once built and safe
+// for concurrent use.
+type Database struct {
+	Components []Component
+	Species    []Species // the free ion of each non-solvent component comes first, in component order
+	Minerals   []Mineral // minerals and gases, in file order
+
+	compIndex    map[string]int
+	speciesIndex map[string]int
+	mineralIndex map[string]int
+	water        int // index of H2O
+	hplus        int // index of H+
+	carbonate    int // index of CO3-2 or -1
+	co2gas       int // index of CO2(g) in Minerals or -1
+	calcite      int
+	hco3         int // species index of HCO3- or -1
+	co3          int
+}
+
+// ComponentIndex returns the index of the named component, or -1.
+func (db *Database) ComponentIndex(name string) int {
+	if i, ok := db.compIndex[name]; ok {
+		return i
+	}
+	return -1
+}
+
+// SpeciesIndex returns the index of the named species, or -1.
+func (db *Database) SpeciesIndex(name string) int {
+	if i, ok := db.speciesIndex[name]; ok {
+		return i
+	}
+	return -1
+}
+
+// Mineral returns the named mineral or gas, or nil.
+func (db *Database) Mineral(name string) *Mineral {
+	if i, ok := db.mineralIndex[name]; ok {
+		return &db.Minerals[i]
+	}
+	return nil
+}
+
+// Names of components with a special role.
+const (
+	NameH2O       = "H2O"
+	NameHPlus     = "H+"
+	NameCarbonate = "CO3-2"
+	NameCO2Gas    = "CO2(g)"
+)
+
+var (
+	defaultOnce sync.Once
+	defaultDB   *Database
+	defaultErr  error
+)
+
+// Default returns the database parsed from the embedded data file (gwsat/data.Thermo).
+// It is parsed once and shared.
+func Default() (*Database, error) {
+	defaultOnce.Do(func() {
+		defaultDB, defaultErr = ParseDatabase(data.Thermo)
+	})
+	return defaultDB, defaultErr
+}
+
+type rawEntry struct {
+	kind, name string
+	line       int
+	fields     map[string]string
+	lines      map[string]int
+}
+
+// ParseDatabase reads a thermodynamic data set in gwsat's own format (described at the
+// top of data/thermo.txt). It needs at least the components H2O and H+. A malformed or
+// inconsistent file is rejected with a *DataError naming the entry and line.
+func ParseDatabase(text string) (*Database, error) {
+	entries, err := splitEntries(text)
+	if err != nil {
+		return nil, err
+	}
+	db := &Database{
+		compIndex:    map[string]int{},
+		speciesIndex: map[string]int{},
+		mineralIndex: map[string]int{},
+		water:        -1, hplus: -1, carbonate: -1, co2gas: -1, calcite: -1, hco3: -1, co3: -1,
+	}
+	seen := map[string]int{}
+	// Components first (they may appear anywhere in the file, but usually lead it).
+	for _, e := range entries {
+		key := e.kind + " " + e.name
+		if prev, dup := seen[key]; dup {
+			return nil, &DataError{Line: e.line, Entry: key, Err: fmt.Errorf("%w (first defined on line %d)", ErrDuplicateEntry, prev)}
+		}
+		seen[key] = e.line
+		switch e.kind {
+		case "component", "species", "mineral", "gas":
+		default:
+			return nil, &DataError{Line: e.line, Entry: key, Err: fmt.Errorf("%w %q", ErrUnknownEntryKind, e.kind)}
+		}
+		if e.kind != "component" {
+			continue
+		}
+		c := Component{Name: e.name, Line: e.line, Solvent: e.name == NameH2O}
+		if c.Charge, err = e.number("charge", true); err != nil {
+			return nil, err
+		}
+		if c.Mass, err = e.number("mass", false); err != nil {
+			return nil, err
+		}
+		if c.Alkalinity, err = e.number("alkalinity", false); err != nil {
+			return nil, err
+		}
+		db.compIndex[c.Name] = len(db.Components)
+		db.Components = append(db.Components, c)
+	}
+	var ok bool
+	if db.water, ok = db.compIndex[NameH2O]; !ok {
+		return nil, &DataError{Line: 1, Err: fmt.Errorf("%w: %s", ErrMissingComponent, NameH2O)}
+	}
+	if db.hplus, ok = db.compIndex[NameHPlus]; !ok {
+		return nil, &DataError{Line: 1, Err: fmt.Errorf("%w: %s", ErrMissingComponent, NameHPlus)}
+	}
+	if i, ok := db.compIndex[NameCarbonate]; ok {
+		db.carbonate = i
+	}
+	// Free-ion species for every non-solvent component.
+	for _, e := range entries {
+		if e.kind != "component" || e.name == NameH2O {
+			continue
+		}
+		ci := db.compIndex[e.name]
+		s := Species{Name: e.name, Charge: db.Components[ci].Charge, Master: ci,
+			Terms: []Term{{Component: e.name, Index: ci, Nu: 1}}, Reaction: e.name,
+			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition"}
+		if err := e.ionParams(&s); err != nil {
+			return nil, err
+		}
+		db.speciesIndex[s.Name] = len(db.Species)
+		db.Species = append(db.Species, s)
+	}
+	// Species and phases, in file order (a reaction may use species defined earlier).
+	for _, e := range entries {
+		switch e.kind {
+		case "species":
+			if _, clash := db.speciesIndex[e.name]; clash {
+				return nil, &DataError{Line: e.line, Entry: "species " + e.name, Err: fmt.Errorf("%w (a component has this name)", ErrDuplicateEntry)}
+			}
+			s := Species{Name: e.name, Line: e.line, Master: -1}
+			if s.Charge, err = e.number("charge", true); err != nil {
+				return nil, err
+			}
+			if err := e.ionParams(&s); err != nil {
+				return nil, err
+			}
+			terms, fn, logk25, note, err := db.reaction(e, +1)
+			if err != nil {
+				return nil, err
+			}
+			s.Terms, s.LogK, s.LogK25, s.TempNote = terms, fn, logk25, note
+			s.Reaction = e.fields["reaction"]
+			s.Source, s.Confidence = e.fields["source"], e.fields["confidence"]
+			if err := db.checkCharge(e, terms, s.Charge); err != nil {
+				return nil, err
+			}
+			db.speciesIndex[s.Name] = len(db.Species)
+			db.Species = append(db.Species, s)
+		case "mineral", "gas":
+			m := Mineral{Name: e.name, Line: e.line, Gas: e.kind == "gas"}
+			terms, fn, logk25, note, err := db.reaction(e, -1)
+			if err != nil {
+				return nil, err
+			}
+			m.Terms, m.LogK, m.LogK25, m.TempNote = terms, fn, logk25, note
+			m.Reaction = e.fields["reaction"]
+			m.Formula = e.fields["formula"]
+			m.Source, m.Confidence = e.fields["source"], e.fields["confidence"]
+			m.DensitySource = e.fields["density_source"]
+			if m.MolarMass, err = e.number("mass", false); err != nil {
+				return nil, err
+			}
+			if m.Density, err = e.number("density", false); err != nil {
+				return nil, err
+			}
+			if m.MolarMass < 0 || m.Density < 0 {
+				return nil, e.errf("mass", "%w: negative mass or density", ErrInvalidParameter)
+			}
+			if err := db.checkCharge(e, terms, 0); err != nil {
+				return nil, err
+			}
+			if _, dup := db.mineralIndex[m.Name]; dup {
+				return nil, &DataError{Line: e.line, Entry: e.kind + " " + e.name, Err: ErrDuplicateEntry}
+			}
+			db.mineralIndex[m.Name] = len(db.Minerals)
+			db.Minerals = append(db.Minerals, m)
+		}
+	}
+	if i, ok := db.mineralIndex[NameCO2Gas]; ok && db.Minerals[i].Gas {
+		db.co2gas = i
+	}
+	if i, ok := db.mineralIndex["Calcite"]; ok {
+		db.calcite = i
+	}
+	db.hco3 = db.SpeciesIndex("HCO3-")
+	db.co3 = db.SpeciesIndex(NameCarbonate)
+	return db, nil
+}
+
+func (e *rawEntry) errf(key, format string, args ...any) *DataError {
+	line := e.line
+	if l, ok := e.lines[key]; ok {
+		line = l
+	}
+	return &DataError{Line: line, Entry: e.kind + " " + e.name, Err: fmt.Errorf(format, args...)}
+}
+
+// number reads a numeric field; a missing optional field is 0.
+func (e *rawEntry) number(key string, required bool) (float64, error) {
+	v, ok := e.fields[key]
+	if !ok {
+		if required {
+			return 0, e.errf(key, "%w %q", ErrMissingField, key)
+		}
+		return 0, nil
+	}
+	x, err := strconv.ParseFloat(v, 64)
+	if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+		return 0, e.errf(key, "%w: %s = %q is not a number", ErrSyntax, key, v)
+	}
+	return x, nil
+}
+
+func (e *rawEntry) ionParams(s *Species) error {
+	var err error
+	if s.IonSize, err = e.number("ion_size", false); err != nil {
+		return err
+	}
+	if s.TJB, err = e.number("tj_b", false); err != nil {
+		return err
+	}
+	if s.IonSize < 0 {
+		return e.errf("ion_size", "%w: negative ion size", ErrInvalidParameter)
+	}
+	if s.Charge != 0 && s.IonSize == 0 {
+		if _, ok := e.fields["ion_size"]; !ok && e.name != NameH2O {
+			return e.errf("charge", "%w \"ion_size\" (needed for a charged species)", ErrMissingField)
+		}
+	}
+	s.SizeSource = e.fields["size_source"]
+	return nil
+}
+
+func (db *Database) checkCharge(e *rawEntry, terms []Term, want float64) error {
+	z := 0.0
+	for _, t := range terms {
+		z += t.Nu * db.Components[t.Index].Charge
+	}
+	if math.Abs(z-want) > 1e-9 {
+		return e.errf("reaction", "%w: reaction gives %g, entry has %g", ErrChargeImbalance, z, want)
+	}
+	return nil
+}
+
+// reaction parses the reaction, expands species into components and builds the
+// log K function. sign is +1 for formation (species) and -1 for dissolution (phases):
+// a species term used in a phase reaction contributes minus its formation constant.
+func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float64, string, error) {
+	var fn LogKFunc
+	rx, ok := e.fields["reaction"]
+	if !ok || strings.TrimSpace(rx) == "" {
+		return nil, fn, 0, "", e.errf("reaction", "%w \"reaction\"", ErrMissingField)
+	}
+	ls, ok := e.fields["logk"]
+	if !ok {
+		return nil, fn, 0, "", e.errf("logk", "%w", ErrMissingLogK)
+	}
+	logk25, err := strconv.ParseFloat(ls, 64)
+	if err != nil || math.IsNaN(logk25) || math.IsInf(logk25, 0) {
+		return nil, fn, 0, "", e.errf("logk", "%w: logk = %q is not a number", ErrSyntax, ls)
+	}
+	var note string
+	if an, ok := e.fields["analytic"]; ok {
+		parts := strings.Fields(an)
+		if len(parts) != 5 {
+			return nil, fn, 0, "", e.errf("analytic", "%w: analytic needs 5 numbers a b c d e, got %d", ErrSyntax, len(parts))
+		}
+		var c [5]float64
+		for i, p := range parts {
+			if c[i], err = strconv.ParseFloat(p, 64); err != nil {
+				return nil, fn, 0, "", e.errf("analytic", "%w: %q is not a number", ErrSyntax, p)
+			}
+		}
+		fn = LogKFunc{c[0], c[1], c[2], c[3], c[4]}
+		if got := fn.At(T25); math.Abs(got-logk25) > 0.02 || math.IsNaN(got) {
+			return nil, fn, 0, "", e.errf("analytic", "%w: expression gives %.4f, logk is %.4f", ErrInconsistentLogK, got, logk25)
+		}
+		note = "analytic"
+	} else if dh, ok := e.fields["dh"]; ok {
+		parts := strings.Fields(dh)
+		switch {
+		case len(parts) == 1 && parts[0] == "none":
+			fn = LogKFunc{A: logk25}
+			note = "constant (no enthalpy)"
+		case len(parts) == 2:
+			v, err := strconv.ParseFloat(parts[0], 64)
+			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, fn, 0, "", e.errf("dh", "%w: dh %q is not a number", ErrSyntax, parts[0])
+			}
+			switch parts[1] {
+			case "kJ":
+				v *= 1000
+			case "kcal":
+				v *= 4184
+			default:
+				return nil, fn, 0, "", e.errf("dh", "%w: dh unit %q (want kJ or kcal)", ErrSyntax, parts[1])
+			}
+			fn = vantHoff(logk25, v)
+			note = "van 't Hoff"
+		default:
+			return nil, fn, 0, "", e.errf("dh", "%w: dh must be \"<number> kJ\", \"<number> kcal\" or \"none\"", ErrSyntax)
+		}
+	} else {
+		return nil, fn, 0, "", e.errf("logk", "%w", ErrMissingTempFunc)
+	}
+	raw, err := parseReaction(rx)
+	if err != nil {
+		return nil, fn, 0, "", e.errf("reaction", "%w", err)
+	}
+	acc := map[int]float64{}
+	order := []int{}
+	addComp := func(ci int, nu float64) {
+		if _, ok := acc[ci]; !ok {
+			order = append(order, ci)
+		}
+		acc[ci] += nu
+	}
+	for _, t := range raw {
+		if ci, ok := db.compIndex[t.Component]; ok {
+			addComp(ci, t.Nu)
+			continue
+		}
+		si, ok := db.speciesIndex[t.Component]
+		if !ok {
+			return nil, fn, 0, "", e.errf("reaction", "%w: %q", ErrUnknownComponent, t.Component)
+		}
+		sp := &db.Species[si]
+		for _, st := range sp.Terms {
+			addComp(st.Index, t.Nu*st.Nu)
+		}
+		fn = fn.add(sp.LogK, sign*t.Nu)
+	}
+	terms := make([]Term, 0, len(order))
+	for _, ci := range order {
+		if nu := acc[ci]; nu != 0 {
+			terms = append(terms, Term{Component: db.Components[ci].Name, Index: ci, Nu: nu})
+		}
+	}
+	if len(terms) == 0 {
+		return nil, fn, 0, "", e.errf("reaction", "%w: empty reaction", ErrSyntax)
+	}
+	return terms, fn, logk25, note, nil
+}
+
+// parseReaction reads "[coef] name (+|-) [coef] name ...".
+func parseReaction(s string) ([]Term, error) {
+	tok := strings.Fields(s)
+	var out []Term
+	sign := 1.0
+	expectTerm := true
+	for i := 0; i < len(tok); i++ {
+		t := tok[i]
+		if !expectTerm {
+			switch t {
+			case "+":
+				sign = 1
+			case "-":
+				sign = -1
+			default:
+				return nil, fmt.Errorf("%w: expected + or - before %q", ErrSyntax, t)
+			}
+			expectTerm = true
+			continue
+		}
+		coef := 1.0
+		if v, err := strconv.ParseFloat(t, 64); err == nil {
+			if v <= 0 || math.IsInf(v, 0) || math.IsNaN(v) {
+				return nil, fmt.Errorf("%w: coefficient %q must be positive", ErrSyntax, t)
+			}
+			coef = v
+			i++
+			if i >= len(tok) {
+				return nil, fmt.Errorf("%w: coefficient %q without a name", ErrSyntax, t)
+			}
+			t = tok[i]
+		}
+		if t == "+" || t == "-" {
+			return nil, fmt.Errorf("%w: operator %q where a term was expected", ErrSyntax, t)
+		}
+		out = append(out, Term{Component: t, Nu: sign * coef})
+		expectTerm = false
+	}
+	if expectTerm {
+		return nil, fmt.Errorf("%w: reaction ends with an operator or is empty", ErrSyntax)
+	}
+	return out, nil
+}
+
+func splitEntries(text string) ([]*rawEntry, error) {
+	var out []*rawEntry
+	var cur *rawEntry
+	for n, line := range strings.Split(text, "\n") {
+		ln := n + 1
+		if i := strings.IndexByte(line, '#'); i >= 0 {
+			line = line[:i]
+		}
+		line = strings.TrimSpace(line)
+		if line == "" {
+			continue
+		}
+		if strings.HasPrefix(line, "[") {
+			if !strings.HasSuffix(line, "]") {
+				return nil, &DataError{Line: ln, Err: fmt.Errorf("%w: header %q lacks a closing ]", ErrSyntax, line)}
+			}
+			f := strings.Fields(line[1 : len(line)-1])
+			if len(f) != 2 {
+				return nil, &DataError{Line: ln, Err: fmt.Errorf("%w: header must be [kind name], got %q", ErrSyntax, line)}
+			}
+			cur = &rawEntry{kind: f[0], name: f[1], line: ln, fields: map[string]string{}, lines: map[string]int{}}
+			out = append(out, cur)
+			continue
+		}
+		k, v, ok := strings.Cut(line, "=")
+		if !ok {
+			return nil, &DataError{Line: ln, Entry: entryName(cur), Err: fmt.Errorf("%w: expected key = value, got %q", ErrSyntax, line)}
+		}
+		if cur == nil {
+			return nil, &DataError{Line: ln, Err: fmt.Errorf("%w: key %q before any [kind name] header", ErrSyntax, strings.TrimSpace(k))}
+		}
+		k, v = strings.TrimSpace(k), strings.TrimSpace(v)
+		if _, dup := cur.fields[k]; dup {
+			return nil, &DataError{Line: ln, Entry: entryName(cur), Err: fmt.Errorf("%w: key %q given twice", ErrSyntax, k)}
+		}
+		cur.fields[k] = v
+		cur.lines[k] = ln
+	}
+	return out, nil
+}
+
+func entryName(e *rawEntry) string {
+	if e == nil {
+		return ""
+	}
+	return e.kind + " " + e.name
+}

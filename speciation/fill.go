@@ -1,0 +1,154 @@
+package speciation
+
+import (
+	"math"
+)
+
+// Warnings attached to results (constant strings: no allocation).
+const (
+	WarnIonicStrength = "ionic strength above the activity model's stated limit"
+	WarnNoEnthalpy    = "some log K values have no published enthalpy and are held at their 25 C value"
+)
+
+// fill writes the converged state into res.
+func (s *Solver) fill(res *Result, w *Water) {
+	db := s.db
+	clearResult(res)
+	u := s.u[:s.n]
+	I := u[s.iCol]
+	// s.m, s.lg and s.logAw hold the converged state (last evaluate).
+	for ci := range s.role {
+		if c := s.col[ci]; c >= 0 {
+			s.la[ci] = u[c]
+		}
+	}
+	res.Model = s.model.Name()
+	res.TempC = w.TempC
+	res.Iterations = s.iters
+	res.IonicStrength = I
+	res.WaterActivity = exp10(s.logAw)
+	res.PH = -s.la[db.hplus]
+	var zsum, zabs, alk float64
+	for k, si := range s.act {
+		sp := &db.Species[si]
+		m := s.m[k]
+		la := s.logm[k] + s.lg[k]
+		res.Species = append(res.Species, SpeciesResult{
+			Name: sp.Name, Charge: sp.Charge, Molality: m,
+			LogGamma: s.lg[k], Gamma: exp10(s.lg[k]),
+			Activity: m * exp10(s.lg[k]), LogActivity: la,
+		})
+		zsum += sp.Charge * m
+		zabs += math.Abs(sp.Charge) * m
+		alk += s.alkSp[si] * m
+	}
+	if zabs > 0 {
+		res.ChargeBalance = 100 * zsum / zabs
+	}
+	res.Alkalinity = alk
+	// totals and distribution
+	for ci := range db.Components {
+		if ci == db.water || ci == db.hplus || !s.active[ci] {
+			continue
+		}
+		tot := 0.0
+		for _, p := range s.compSp[ci] {
+			if k := s.spPos[p.sp]; k >= 0 {
+				tot += p.nu * s.m[k]
+			}
+		}
+		name := db.Components[ci].Name
+		res.Totals = append(res.Totals, ComponentTotal{name, tot})
+		if s.role[ci] == roleCharge {
+			res.Adjusted, res.AdjustedTotal = name, tot
+		}
+		if tot <= 0 {
+			continue
+		}
+		for _, p := range s.compSp[ci] {
+			if k := s.spPos[p.sp]; k >= 0 {
+				res.Distribution = append(res.Distribution, Share{
+					Component: name, Species: db.Species[p.sp].Name, Molality: s.m[k],
+					Percent: 100 * p.nu * s.m[k] / tot,
+				})
+			}
+		}
+	}
+	// saturation indices
+	for pi := range db.Minerals {
+		mn := &db.Minerals[pi]
+		ok := true
+		for _, t := range mn.Terms {
+			if t.Index != db.water && t.Index != db.hplus && !s.active[t.Index] {
+				ok = false
+				break
+			}
+		}
+		if !ok {
+			continue
+		}
+		iap := s.phaseLogIAP(pi, u)
+		lk := s.phLogK[pi]
+		if mn.Gas {
+			if pi == db.co2gas {
+				res.LogPCO2, res.HasLogPCO2 = iap-lk, true
+			}
+			continue
+		}
+		res.Minerals = append(res.Minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk})
+	}
+	for k, pi := range s.eqPhase {
+		res.Phases = append(res.Phases, PhaseAmount{Name: db.Minerals[pi].Name, Dissolved: u[s.iCol+1+k], SI: s.eqTarget[k]})
+	}
+	s.indices(res, w)
+	if I > s.model.MaxIonicStrength() {
+		res.Warnings = append(res.Warnings, WarnIonicStrength)
+	}
+}
+
+// indices computes the Langelier, Ryznar and Larson-Skold indices.
+func (s *Solver) indices(res *Result, w *Water) {
+	db := s.db
+	res.Indices = Indices{}
+	if db.carbonate < 0 || !s.active[db.carbonate] {
+		return
+	}
+	// Larson-Skold: (Cl + 2 SO4) / carbonate alkalinity, equivalents.
+	var carbAlk float64
+	for _, p := range s.compSp[db.carbonate] {
+		if k := s.spPos[p.sp]; k >= 0 {
+			carbAlk += s.alkSp[p.sp] * s.m[k]
+		}
+	}
+	num := 0.0
+	if t, ok := res.Total("Cl-"); ok {
+		num += t
+	}
+	if t, ok := res.Total("SO4-2"); ok {
+		num += 2 * t
+	}
+	if carbAlk > 0 {
+		res.Indices.LarsonSkold = num / carbAlk
+		res.Indices.HasLarsonSkold = true
+	}
+	// Langelier / Ryznar.
+	ca := db.ComponentIndex("Ca+2")
+	if ca < 0 || !s.active[ca] || db.hco3 < 0 || db.calcite < 0 || res.Alkalinity <= 0 {
+		return
+	}
+	caT, _ := res.Total("Ca+2")
+	if caT <= 0 {
+		return
+	}
+	pK2 := s.logK[db.hco3] // log K of CO3-2 + H+ = HCO3- is pK2
+	pKs := -s.phLogK[db.calcite]
+	sq := math.Sqrt(res.IonicStrength)
+	pfm := s.st.A * (sq/(1+sq) - 0.3*res.IonicStrength) // -log10 fm, Davies
+	pHs := pK2 - pKs - math.Log10(caT) - math.Log10(res.Alkalinity) + 5*pfm
+	res.Indices.PHs = pHs
+	res.Indices.Langelier = res.PH - pHs
+	res.Indices.Ryznar = 2*pHs - res.PH
+	res.Indices.HasLangelier = true
+}
+
+func exp10(x float64) float64 { return math.Exp(x * math.Ln10) }

@@ -1,0 +1,196 @@
+package speciation
+
+import "errors"
+
+// Errors of a solve. A *SolveError wraps one of these.
+var (
+	ErrTemperature   = errors.New("speciation: temperature outside 0-100 C")
+	ErrInput         = errors.New("speciation: invalid water")
+	ErrNoConvergence = errors.New("speciation: solver did not converge")
+	ErrSingular      = errors.New("speciation: singular Jacobian")
+)
+
+// SolveError explains why a water could not be speciated.
+type SolveError struct {
+	Reason     string
+	Iterations int
+	Err        error // ErrTemperature, ErrInput, ErrNoConvergence or ErrSingular
+}
+
+func (e *SolveError) Error() string { return e.Err.Error() + ": " + e.Reason }
+
+func (e *SolveError) Unwrap() error { return e.Err }
+
+// SpeciesResult is one aqueous species after speciation.
+type SpeciesResult struct {
+	Name        string
+	Charge      float64
+	Molality    float64 // mol/kgw
+	LogGamma    float64 // log10 activity coefficient
+	Gamma       float64
+	Activity    float64
+	LogActivity float64
+}
+
+// Share is the part of a component's total carried by one species.
+type Share struct {
+	Component string
+	Species   string
+	Molality  float64 // of the species, mol/kgw
+	Percent   float64 // of the component total (stoichiometry counted)
+}
+
+// MineralSI is the saturation state of a mineral: SI = log IAP - log K(T).
+// SI > 0: supersaturated; SI < 0: undersaturated.
+type MineralSI struct {
+	Name   string
+	SI     float64
+	LogIAP float64
+	LogK   float64
+}
+
+// PhaseAmount is the amount of a mineral dissolved (> 0) or precipitated (< 0) to
+// reach the target saturation index, mol/kgw.
+type PhaseAmount struct {
+	Name      string
+	Dissolved float64
+	SI        float64
+}
+
+// Indices are the water-engineering calcium carbonate and corrosion indices.
+type Indices struct {
+	// PHs is the Langelier saturation pH, pHs = pK2 - pKs + p[Ca] + p[Alk] + 5 pfm
+	// (Langelier 1936; the form of Standard Methods 2330), with K2 and Ks(calcite) of
+	// Plummer & Busenberg (1982) at the sample temperature, [Ca] the total calcium and
+	// [Alk] the total alkalinity (mol/kgw and eq/kgw), fm the Davies monovalent activity
+	// coefficient at the speciated ionic strength. Valid roughly at pH 6.5-9.5.
+	PHs float64
+	// Langelier is LSI = pH - pHs (Langelier 1936).
+	Langelier float64
+	// Ryznar is RSI = 2 pHs - pH (Ryznar 1944).
+	Ryznar       float64
+	HasLangelier bool
+	// LarsonSkold is (Cl- + SO4-2) / (HCO3- + CO3-2) in equivalents (Larson & Skold
+	// 1958): totals of chloride and sulfate over the carbonate alkalinity carried by the
+	// carbonate species (including their ion pairs).
+	LarsonSkold    float64
+	HasLarsonSkold bool
+}
+
+// Result is the speciation of one water.
+type Result struct {
+	Model      string
+	TempC      float64
+	PH         float64 // -log10 a(H+) (input pH, or computed)
+	Iterations int
+
+	IonicStrength float64 // mol/kgw
+	WaterActivity float64
+	// ChargeBalance is 100 (sum z m) / (sum |z| m) over all species, percent.
+	ChargeBalance float64
+
+	Species      []SpeciesResult
+	Totals       []ComponentTotal // component totals after the solve (computed ones included)
+	Distribution []Share          // grouped by component, in component order
+	Minerals     []MineralSI      // minerals whose components are all present
+	Phases       []PhaseAmount    // for Water.Equilibrate targets
+
+	LogPCO2    float64 // log10 pCO2 in atm; valid when HasLogPCO2
+	HasLogPCO2 bool
+	Alkalinity float64 // total alkalinity from the speciation, eq/kgw
+
+	// Adjusted names the component adjusted for charge balance ("" if none) and
+	// AdjustedTotal its resulting total (mol/kgw).
+	Adjusted      string
+	AdjustedTotal float64
+
+	Indices  Indices
+	Warnings []string
+}
+
+// SI returns the saturation index of the named mineral, and false if it was not
+// computed (mineral unknown or a component absent).
+func (r *Result) SI(mineral string) (float64, bool) {
+	for i := range r.Minerals {
+		if r.Minerals[i].Name == mineral {
+			return r.Minerals[i].SI, true
+		}
+	}
+	return 0, false
+}
+
+// Mineral returns the saturation record of the named mineral, or nil.
+func (r *Result) Mineral(name string) *MineralSI {
+	for i := range r.Minerals {
+		if r.Minerals[i].Name == name {
+			return &r.Minerals[i]
+		}
+	}
+	return nil
+}
+
+// SpeciesByName returns the named species, or nil if absent.
+func (r *Result) SpeciesByName(name string) *SpeciesResult {
+	for i := range r.Species {
+		if r.Species[i].Name == name {
+			return &r.Species[i]
+		}
+	}
+	return nil
+}
+
+// Molality returns the molality of the named species (0 if absent).
+func (r *Result) Molality(species string) float64 {
+	if s := r.SpeciesByName(species); s != nil {
+		return s.Molality
+	}
+	return 0
+}
+
+// DistributionOf returns the shares of one component (a subslice of Distribution).
+func (r *Result) DistributionOf(component string) []Share {
+	start := -1
+	for i := range r.Distribution {
+		if r.Distribution[i].Component == component {
+			if start < 0 {
+				start = i
+			}
+		} else if start >= 0 {
+			return r.Distribution[start:i]
+		}
+	}
+	if start < 0 {
+		return nil
+	}
+	return r.Distribution[start:]
+}
+
+// Percent returns the percentage of a component's total carried by a species.
+func (r *Result) Percent(component, species string) float64 {
+	for _, s := range r.DistributionOf(component) {
+		if s.Species == species {
+			return s.Percent
+		}
+	}
+	return 0
+}
+
+// Total returns the total of a component after the solve.
+func (r *Result) Total(component string) (float64, bool) {
+	for _, t := range r.Totals {
+		if t.Component == component {
+			return t.MolKgw, true
+		}
+	}
+	return 0, false
+}
+
+// PhaseAmountOf returns the amount dissolved of an equilibrated mineral.
+func (r *Result) PhaseAmountOf(name string) (float64, bool) {
+	for _, p := range r.Phases {
+		if p.Name == name {
+			return p.Dissolved, true
+		}
+	}
+	return 0, false
+}

@@ -1,0 +1,937 @@
+package speciation
+
+import (
+	"fmt"
+	"math"
+)
+
+// Constraint kinds of a component.
+const (
+	roleAbsent = iota
+	roleTotal
+	roleAlk
+	roleCharge
+	rolePhase
+	roleFixed // activity fixed (H+ from pH)
+)
+
+// Tolerance is the relative tolerance every balance meets at convergence.
+const Tolerance = 1e-10
+
+// Solver speciates waters against one database with one activity model. It keeps
+// scratch space between solves, so steady-state solves do not allocate. A Solver is
+// not safe for concurrent use: use one per goroutine.
+type Solver struct {
+	db    *Database
+	model ActivityModel
+
+	// MaxIterations bounds the Newton iterations (default 200).
+	MaxIterations int
+	// MaxStep limits a Newton step in log10 units (default 1.5).
+	MaxStep float64
+
+	nc, ns, nm int
+	sweeps     int
+
+	// per component
+	role    []int
+	total   []float64
+	phaseOf []int
+	target  []float64
+	la      []float64 // log10 activity of the free component species
+	col     []int     // unknown column of the component, -1 if none
+	row     []int     // row of the component's constraint, -1 if none
+	active  []bool
+
+	alk float64
+
+	// per species (db indexing)
+	spActive []bool
+	logK     []float64 // at the current temperature (cached)
+	phLogK   []float64 // minerals at the current temperature
+	lastT    float64
+	alkSp    []float64 // alkalinity equivalents per species
+	alkComp  []float64
+
+	// active species (compact)
+	act     []int
+	st      ActivityState
+	lg, dlg []float64
+	logm, m []float64
+	cst     []float64 // constant part of log m (log K + fixed activities)
+	nuW     []float64 // stoichiometry of water
+	colOff  []int     // offsets into colIdx/colNu for each active species
+	colIdx  []int
+	colNu   []float64
+	rowOff  []int
+	rowIdx  []int
+	rowW    []float64
+
+	compSp [][]spNu // species containing each component with nu > 0 (db order)
+	spPos  []int    // position of a db species among the active ones, -1 if inactive
+
+	// structure cache and warm start
+	structValid, warmValid bool
+	prevRole, prevPhaseOf  []int
+	prevEq                 []int
+	warmU                  []float64
+	warmTotal              []float64
+	warmAlk                float64
+
+	// WarmStart starts a solve from the previous solution when the water has the same
+	// kind of constraints (default true). Results agree with a cold start within the
+	// convergence tolerance.
+	WarmStart bool
+
+	// equilibrium phases
+	eqPhase  []int
+	eqTarget []float64
+
+	// linear system
+	n       int
+	iCol    int
+	u, du   []float64
+	uTry    []float64
+	R       []float64
+	scale   []float64
+	rconst  []float64
+	J       []float64
+	piv     []int
+	logAw   float64
+	lastRes float64
+	iters   int
+	evals   int
+	// phase rows: for each row (or -1) the phase index and target
+	rowPhase  []int
+	rowTarget []float64
+}
+
+// NewSolver returns a solver for db with the activity model. It panics if db or model
+// is nil (programmer error).
+func NewSolver(db *Database, model ActivityModel) *Solver {
+	if db == nil || model == nil {
+		panic("speciation: NewSolver needs a database and a model")
+	}
+	nc, ns, nm := len(db.Components), len(db.Species), len(db.Minerals)
+	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 3, WarmStart: true, nc: nc, ns: ns, nm: nm}
+	s.role = make([]int, nc)
+	s.total = make([]float64, nc)
+	s.phaseOf = make([]int, nc)
+	s.target = make([]float64, nc)
+	s.la = make([]float64, nc)
+	s.col = make([]int, nc)
+	s.row = make([]int, nc)
+	s.active = make([]bool, nc)
+	s.alkComp = make([]float64, nc)
+	for i, c := range db.Components {
+		s.alkComp[i] = c.Alkalinity
+	}
+	s.spActive = make([]bool, ns)
+	s.logK = make([]float64, ns)
+	s.phLogK = make([]float64, nm)
+	s.lastT = math.NaN()
+	s.alkSp = make([]float64, ns)
+	for i := range db.Species {
+		for _, t := range db.Species[i].Terms {
+			s.alkSp[i] += t.Nu * s.alkComp[t.Index]
+		}
+	}
+	s.act = make([]int, 0, ns)
+	s.st = ActivityState{
+		Charge: make([]float64, ns), IonSize: make([]float64, ns), TJB: make([]float64, ns),
+		Molality: make([]float64, ns), Species: make([]int, ns), DB: db,
+	}
+	s.lg = make([]float64, ns)
+	s.dlg = make([]float64, ns)
+	s.logm = make([]float64, ns)
+	s.m = make([]float64, ns)
+	s.cst = make([]float64, ns)
+	s.nuW = make([]float64, ns)
+	s.compSp = make([][]spNu, nc)
+	for si := range db.Species {
+		for _, t := range db.Species[si].Terms {
+			if t.Nu > 0 {
+				s.compSp[t.Index] = append(s.compSp[t.Index], spNu{si, t.Nu})
+			}
+		}
+	}
+	s.spPos = make([]int, ns)
+	s.colOff = make([]int, ns+1)
+	s.rowOff = make([]int, ns+1)
+	s.grow(nc + 1)
+	s.warmTotal = make([]float64, nc)
+	return s
+}
+
+// Database returns the solver's database.
+func (s *Solver) Database() *Database { return s.db }
+
+// Model returns the solver's activity model.
+func (s *Solver) Model() ActivityModel { return s.model }
+
+func (s *Solver) grow(n int) {
+	if cap(s.u) >= n {
+		return
+	}
+	s.u = make([]float64, n)
+	s.du = make([]float64, n)
+	s.uTry = make([]float64, n)
+	s.R = make([]float64, n)
+	s.scale = make([]float64, n)
+	s.rconst = make([]float64, n)
+	s.J = make([]float64, n*n)
+	s.piv = make([]int, n)
+	s.rowPhase = make([]int, n)
+	s.rowTarget = make([]float64, n)
+}
+
+func inputErr(format string, args ...any) error {
+	return &SolveError{Reason: fmt.Sprintf(format, args...), Err: ErrInput}
+}
+
+// Solve speciates w and returns a new Result.
+func (s *Solver) Solve(w *Water) (*Result, error) {
+	res := new(Result)
+	if err := s.SolveInto(res, w); err != nil {
+		return nil, err
+	}
+	return res, nil
+}
+
+// SolveInto speciates w into res, reusing res's slices (no allocation in steady state).
+// On error res is cleared and the error is a *SolveError.
+func (s *Solver) SolveInto(res *Result, w *Water) error {
+	err := s.setup(w)
+	if err == nil {
+		err = s.newton()
+	}
+	if err != nil {
+		clearResult(res)
+		return err
+	}
+	s.fill(res, w)
+	return nil
+}
+
+func clearResult(res *Result) {
+	*res = Result{
+		Species: res.Species[:0], Totals: res.Totals[:0], Distribution: res.Distribution[:0],
+		Minerals: res.Minerals[:0], Phases: res.Phases[:0], Warnings: res.Warnings[:0],
+	}
+}
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+func (s *Solver) setup(w *Water) error {
+	db := s.db
+	if !finite(w.TempC) || w.TempC < MinTempC || w.TempC > MaxTempC {
+		return &SolveError{Reason: fmt.Sprintf("temperature %g C is outside %g-%g C", w.TempC, MinTempC, MaxTempC), Err: ErrTemperature}
+	}
+	s.alk = 0
+	for i := range s.role {
+		s.role[i], s.total[i], s.phaseOf[i], s.target[i] = roleAbsent, 0, -1, 0
+		s.active[i] = false
+	}
+	for _, t := range w.totals {
+		ci := db.ComponentIndex(t.Component)
+		if ci < 0 {
+			return inputErr("unknown component %q", t.Component)
+		}
+		if ci == db.water || ci == db.hplus {
+			return inputErr("%s cannot be given a total", t.Component)
+		}
+		if !finite(t.MolKgw) || t.MolKgw < 0 {
+			return inputErr("total of %s is %g mol/kgw (must be finite and >= 0)", t.Component, t.MolKgw)
+		}
+		if t.MolKgw > 0 {
+			s.role[ci], s.total[ci] = roleTotal, t.MolKgw
+		}
+	}
+	if w.hasAlk {
+		if db.carbonate < 0 {
+			return inputErr("alkalinity given but the database has no %s component", NameCarbonate)
+		}
+		if _, set := w.Total(NameCarbonate); set && s.role[db.carbonate] == roleTotal {
+			return inputErr("both a carbonate total and an alkalinity are given")
+		}
+		if !finite(w.alk) || w.alk <= 0 {
+			return inputErr("alkalinity %g eq/kgw: must be positive to define the carbonate (give total carbon instead)", w.alk)
+		}
+		s.role[db.carbonate] = roleAlk
+		s.alk = w.alk
+	}
+	// H+
+	if w.PHFromChargeBalance {
+		s.role[db.hplus] = roleCharge
+	} else {
+		if !finite(w.PH) || w.PH <= 0 || w.PH >= 14.5 {
+			return inputErr("pH %g outside 0-14.5 (set PH or PHFromChargeBalance)", w.PH)
+		}
+		s.role[db.hplus] = roleFixed
+		s.la[db.hplus] = -w.PH
+	}
+	if w.ChargeBalanceIon != "" {
+		ci := db.ComponentIndex(w.ChargeBalanceIon)
+		if ci < 0 {
+			return inputErr("unknown charge-balance ion %q", w.ChargeBalanceIon)
+		}
+		if ci == db.hplus {
+			s.role[ci] = roleCharge
+		} else {
+			if w.PHFromChargeBalance {
+				return inputErr("charge balance used twice (pH and %s)", w.ChargeBalanceIon)
+			}
+			if db.Components[ci].Charge == 0 {
+				return inputErr("charge-balance ion %s is neutral", w.ChargeBalanceIon)
+			}
+			if s.role[ci] == roleAlk {
+				return inputErr("charge-balance ion %s is already fixed by alkalinity", w.ChargeBalanceIon)
+			}
+			if s.total[ci] == 0 {
+				s.total[ci] = 1e-4
+			}
+			s.role[ci] = roleCharge
+		}
+	}
+	for _, f := range w.fixes {
+		ci := db.ComponentIndex(f.Component)
+		if ci < 0 || ci == db.water {
+			return inputErr("unknown component %q fixed by %s", f.Component, f.Phase)
+		}
+		pi, ok := db.mineralIndex[f.Phase]
+		if !ok {
+			return inputErr("unknown mineral or gas %q", f.Phase)
+		}
+		if !finite(f.Target) {
+			return inputErr("target of %s is not finite", f.Phase)
+		}
+		if nuOf(db.Minerals[pi].Terms, ci) == 0 {
+			return inputErr("%s does not contain %s", f.Phase, f.Component)
+		}
+		if s.role[ci] == roleCharge || s.role[ci] == roleAlk || (ci == db.hplus && s.role[ci] == roleFixed && !w.PHFromChargeBalance && false) {
+			return inputErr("%s has two constraints", f.Component)
+		}
+		s.role[ci], s.phaseOf[ci], s.target[ci] = rolePhase, pi, f.Target
+	}
+	for ci := range s.role {
+		s.active[ci] = s.role[ci] != roleAbsent
+	}
+	s.active[db.water] = true
+	// Equilibrium phases.
+	s.eqPhase = s.eqPhase[:0]
+	s.eqTarget = s.eqTarget[:0]
+	for _, e := range w.equilibria {
+		pi, ok := db.mineralIndex[e.Phase]
+		if !ok || db.Minerals[pi].Gas {
+			return inputErr("unknown mineral %q to equilibrate", e.Phase)
+		}
+		if !finite(e.SI) {
+			return inputErr("target SI of %s is not finite", e.Phase)
+		}
+		for _, t := range db.Minerals[pi].Terms {
+			if !s.active[t.Index] {
+				return inputErr("%s needs %s, which is absent", e.Phase, t.Component)
+			}
+		}
+		s.eqPhase = append(s.eqPhase, pi)
+		s.eqTarget = append(s.eqTarget, e.SI)
+	}
+	// Phases used to fix components must have all components present.
+	for ci := range s.role {
+		if s.role[ci] != rolePhase {
+			continue
+		}
+		for _, t := range db.Minerals[s.phaseOf[ci]].Terms {
+			if !s.active[t.Index] {
+				return inputErr("%s fixed by %s needs %s, which is absent", db.Components[ci].Name, db.Minerals[s.phaseOf[ci]].Name, t.Component)
+			}
+		}
+	}
+	// Temperature-dependent constants (cached).
+	if w.TempC != s.lastT {
+		T := w.TempC + 273.15
+		lt := math.Log10(T)
+		for i := range db.Species {
+			f := &db.Species[i].LogK
+			s.logK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
+		}
+		for i := range db.Minerals {
+			f := &db.Minerals[i].LogK
+			s.phLogK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
+		}
+		s.st.A, s.st.B = DebyeHuckelAB(w.TempC)
+		s.lastT = w.TempC
+	}
+	s.st.TempC = w.TempC
+
+	same := s.structValid && equalInts(s.role, s.prevRole) && equalInts(s.phaseOf, s.prevPhaseOf) &&
+		equalInts(s.eqPhase, s.prevEq)
+	if !same {
+		s.buildStructure()
+		s.prevRole = append(s.prevRole[:0], s.role...)
+		s.prevPhaseOf = append(s.prevPhaseOf[:0], s.phaseOf...)
+		s.prevEq = append(s.prevEq[:0], s.eqPhase...)
+		s.structValid = true
+		s.warmValid = false
+	}
+	// Constants of the rows and of the species.
+	n := s.iCol + 1
+	for r := 0; r < s.n; r++ {
+		s.rconst[r] = 0
+	}
+	for ci := range s.role {
+		r := s.row[ci]
+		switch s.role[ci] {
+		case roleTotal:
+			s.rconst[r] = s.total[ci]
+		case roleAlk:
+			s.rconst[r] = s.alk
+		case rolePhase:
+			s.rowTarget[r] = s.target[ci]
+		}
+	}
+	for k := range s.eqPhase {
+		s.rowTarget[n+k] = s.eqTarget[k]
+	}
+	for k, si := range s.act {
+		c := s.logK[si]
+		for _, t := range db.Species[si].Terms {
+			if ci := t.Index; ci != db.water && s.col[ci] < 0 {
+				c += t.Nu * s.la[ci]
+			}
+		}
+		s.cst[k] = c
+	}
+	if !(s.WarmStart && s.warmValid && s.warmStart()) {
+		s.initialGuess()
+	}
+	return nil
+}
+
+func equalInts(a, b []int) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
+}
+
+// buildStructure assigns unknown columns and constraint rows and builds the sparse
+// stoichiometry of the active species. It runs only when the kind of problem changes.
+func (s *Solver) buildStructure() {
+	db := s.db
+	// Unknown columns and rows.
+	for i := range s.col {
+		s.col[i], s.row[i] = -1, -1
+	}
+	n := 0
+	for ci := range s.role {
+		switch s.role[ci] {
+		case roleTotal, roleAlk, roleCharge, rolePhase:
+			s.col[ci], s.row[ci] = n, n
+			n++
+		}
+	}
+	s.iCol = n
+	n++
+	nTot := n + len(s.eqPhase)
+	s.grow(nTot)
+	s.n = nTot
+	for r := 0; r < nTot; r++ {
+		s.rowPhase[r] = -1
+		s.rconst[r] = 0
+	}
+	for ci := range s.role {
+		if s.role[ci] == rolePhase {
+			s.rowPhase[s.row[ci]] = s.phaseOf[ci]
+		}
+	}
+	for k, pi := range s.eqPhase {
+		s.rowPhase[n+k] = pi
+	}
+
+	// Active species and their sparse structure.
+	s.act = s.act[:0]
+	s.colIdx, s.colNu = s.colIdx[:0], s.colNu[:0]
+	s.rowIdx, s.rowW = s.rowIdx[:0], s.rowW[:0]
+	for si := range db.Species {
+		sp := &db.Species[si]
+		ok := true
+		for _, t := range sp.Terms {
+			if !s.active[t.Index] {
+				ok = false
+				break
+			}
+		}
+		s.spActive[si] = ok
+		s.spPos[si] = -1
+		if !ok {
+			continue
+		}
+		k := len(s.act)
+		s.spPos[si] = k
+		s.act = append(s.act, si)
+		s.st.Charge[k], s.st.IonSize[k], s.st.TJB[k], s.st.Species[k] = sp.Charge, sp.IonSize, sp.TJB, si
+		s.colOff[k], s.rowOff[k] = len(s.colIdx), len(s.rowIdx)
+		s.nuW[k] = 0
+		for _, t := range sp.Terms {
+			ci := t.Index
+			switch {
+			case ci == db.water:
+				s.nuW[k] = t.Nu
+			case s.col[ci] >= 0:
+				s.colIdx = append(s.colIdx, s.col[ci])
+				s.colNu = append(s.colNu, t.Nu)
+			}
+			if r := s.row[ci]; r >= 0 && s.role[ci] == roleTotal {
+				s.rowIdx = append(s.rowIdx, r)
+				s.rowW = append(s.rowW, t.Nu)
+			}
+		}
+		if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkSp[si] != 0 {
+			s.rowIdx = append(s.rowIdx, s.row[db.carbonate])
+			s.rowW = append(s.rowW, s.alkSp[si])
+		}
+		if sp.Charge != 0 {
+			for ci := range s.role {
+				if s.role[ci] == roleCharge {
+					s.rowIdx = append(s.rowIdx, s.row[ci])
+					s.rowW = append(s.rowW, sp.Charge)
+				}
+			}
+			s.rowIdx = append(s.rowIdx, s.iCol)
+			s.rowW = append(s.rowW, -0.5*sp.Charge*sp.Charge)
+		}
+	}
+	na := len(s.act)
+	s.colOff[na], s.rowOff[na] = len(s.colIdx), len(s.rowIdx)
+}
+
+type spNu struct {
+	sp int
+	nu float64
+}
+
+func nuOf(terms []Term, ci int) float64 {
+	for _, t := range terms {
+		if t.Index == ci {
+			return t.Nu
+		}
+	}
+	return 0
+}
+
+// warmStart starts from the previous solution, with each free activity scaled by the
+// change of its total. It reports false if the previous solution does not fit.
+func (s *Solver) warmStart() bool {
+	if len(s.warmU) != s.n {
+		return false
+	}
+	u := s.u[:s.n]
+	copy(u, s.warmU)
+	for ci := range s.role {
+		c := s.col[ci]
+		if c < 0 {
+			continue
+		}
+		switch s.role[ci] {
+		case roleTotal:
+			if s.warmTotal[ci] > 0 {
+				u[c] += math.Log10(s.total[ci] / s.warmTotal[ci])
+			}
+		case roleAlk:
+			if s.warmAlk > 0 {
+				u[c] += math.Log10(s.alk / s.warmAlk)
+			}
+		}
+	}
+	return true
+}
+
+// speciesMolalities computes log m and m of every active species from s.u (columns),
+// s.lg and s.logAw.
+func (s *Solver) speciesMolalities(u []float64) {
+	for k := range s.act {
+		v := s.cst[k] + s.nuW[k]*s.logAw - s.lg[k]
+		for p := s.colOff[k]; p < s.colOff[k+1]; p++ {
+			v += s.colNu[p] * u[s.colIdx[p]]
+		}
+		if v > 4 {
+			v = 4
+		} else if v < -300 {
+			v = -300
+		}
+		s.logm[k] = v
+		s.m[k] = math.Exp(v * math.Ln10)
+	}
+}
+
+func (s *Solver) gammas(I float64) {
+	na := len(s.act)
+	s.st.I = I
+	s.st.Molality = s.st.Molality[:cap(s.st.Molality)]
+	copy(s.st.Molality[:na], s.m[:na])
+	s.logAw = s.model.LogGammas(s.lg[:na], s.dlg[:na], &s.st)
+}
+
+// phaseLogIAP returns log IAP of phase pi at columns u.
+func (s *Solver) phaseLogIAP(pi int, u []float64) float64 {
+	db := s.db
+	v := 0.0
+	for _, t := range db.Minerals[pi].Terms {
+		ci := t.Index
+		switch {
+		case ci == db.water:
+			v += t.Nu * s.logAw
+		case s.col[ci] >= 0:
+			v += t.Nu * u[s.col[ci]]
+		default:
+			v += t.Nu * s.la[ci]
+		}
+	}
+	return v
+}
+
+// initialGuess fills s.u: free ≈ total, then a few continued-fraction sweeps at a fixed
+// ionic strength, then the ionic strength from the resulting molalities.
+func (s *Solver) initialGuess() {
+	db := s.db
+	u := s.u[:s.n]
+	I := 0.0
+	for ci, c := range db.Components {
+		if s.role[ci] == roleTotal || s.role[ci] == roleCharge {
+			I += 0.5 * c.Charge * c.Charge * s.total[ci]
+		}
+	}
+	if s.role[max(db.carbonate, 0)] == roleAlk && db.carbonate >= 0 {
+		I += 0.5 * s.alk
+	}
+	I = math.Max(I, 1e-7)
+	s.logAw = 0
+	s.gammas(I)
+	for ci := range s.role {
+		c := s.col[ci]
+		if c < 0 {
+			continue
+		}
+		switch s.role[ci] {
+		case roleTotal:
+			u[c] = math.Log10(s.total[ci])
+		case roleAlk:
+			u[c] = math.Log10(s.alk) - 3
+		case roleCharge:
+			if ci == db.hplus {
+				u[c] = -7
+			} else {
+				u[c] = math.Log10(s.total[ci])
+			}
+		case rolePhase:
+			u[c] = -5
+		}
+	}
+	for k := range s.eqPhase {
+		u[s.iCol+1+k] = 0
+	}
+	for sweep := 0; sweep < s.sweeps; sweep++ {
+		// phase-fixed components first: solve the phase equation for them
+		for ci := range s.role {
+			if s.role[ci] != rolePhase {
+				continue
+			}
+			pi := s.phaseOf[ci]
+			nu := nuOf(db.Minerals[pi].Terms, ci)
+			rest := s.phaseLogIAP(pi, u) - nu*u[s.col[ci]]
+			v := (s.phLogK[pi] + s.target[ci] - rest) / nu
+			u[s.col[ci]] = math.Max(math.Min(v, 1), -30)
+		}
+		s.speciesMolalities(u)
+		// accumulate sums per row
+		for ci := range s.role {
+			if r := s.row[ci]; r >= 0 {
+				s.R[r], s.scale[r] = 0, 0
+			}
+		}
+		pos, neg := 0.0, 0.0
+		for k := range s.act {
+			m := s.m[k]
+			for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
+				r := s.rowIdx[p]
+				if r == s.iCol {
+					continue
+				}
+				s.R[r] += s.rowW[p] * m
+			}
+			if z := s.st.Charge[k]; z > 0 {
+				pos += z * m
+			} else {
+				neg -= z * m
+			}
+		}
+		for ci := range s.role {
+			c := s.col[ci]
+			if c < 0 {
+				continue
+			}
+			var d float64
+			switch s.role[ci] {
+			case roleTotal:
+				if s.R[c] > 0 {
+					d = math.Log10(s.total[ci] / s.R[c])
+				}
+			case roleAlk:
+				if s.R[c] > 0 {
+					d = math.Log10(s.alk / s.R[c])
+				}
+			case roleCharge:
+				if pos > 0 && neg > 0 {
+					d = 0.5 * math.Log10(neg/pos)
+					if db.Components[ci].Charge < 0 {
+						d = -d
+					}
+				}
+			}
+			if d > 2 {
+				d = 2
+			} else if d < -2 {
+				d = -2
+			}
+			u[c] += d
+		}
+	}
+	s.speciesMolalities(u)
+	I = 0
+	for k := range s.act {
+		I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * s.m[k]
+	}
+	u[s.iCol] = math.Max(I, 1e-9)
+}
+
+// evaluate computes residuals, scales and (if jac) the Jacobian at u, and returns the
+// scaled residual norm (sum of squares) and the largest scaled residual.
+func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
+	n := s.n
+	s.evals++
+	I := u[s.iCol]
+	s.gammas(I)
+	s.speciesMolalities(u)
+	R, sc := s.R[:n], s.scale[:n]
+	for r := 0; r < n; r++ {
+		R[r] = -s.rconst[r]
+		sc[r] = math.Abs(s.rconst[r])
+	}
+	R[s.iCol] = I
+	sc[s.iCol] = I
+	var J []float64
+	if jac {
+		J = s.J[:n*n]
+		clear(J)
+		J[s.iCol*n+s.iCol] = 1
+	}
+	ln10 := math.Ln10
+	for k := range s.act {
+		m := s.m[k]
+		dl := s.dlg[k]
+		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
+			r, w := s.rowIdx[p], s.rowW[p]
+			wm := w * m
+			R[r] += wm
+			sc[r] += math.Abs(wm)
+			if jac {
+				f := ln10 * wm
+				jr := J[r*n : r*n+n]
+				for q := s.colOff[k]; q < s.colOff[k+1]; q++ {
+					jr[s.colIdx[q]] += f * s.colNu[q]
+				}
+				jr[s.iCol] -= f * dl
+			}
+		}
+	}
+	// equilibrium phases: amounts dissolved add to totals (and alkalinity)
+	base := s.iCol + 1
+	db := s.db
+	for k, pi := range s.eqPhase {
+		xi := u[base+k]
+		for _, t := range db.Minerals[pi].Terms {
+			ci := t.Index
+			if s.role[ci] == roleTotal {
+				r := s.row[ci]
+				R[r] -= t.Nu * xi
+				sc[r] += math.Abs(t.Nu * xi)
+				if jac {
+					J[r*n+base+k] -= t.Nu
+				}
+			}
+			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
+				r := s.row[db.carbonate]
+				R[r] -= t.Nu * s.alkComp[ci] * xi
+				sc[r] += math.Abs(t.Nu * s.alkComp[ci] * xi)
+				if jac {
+					J[r*n+base+k] -= t.Nu * s.alkComp[ci]
+				}
+			}
+		}
+	}
+	// phase rows (linear in the columns)
+	for r := 0; r < n; r++ {
+		pi := s.rowPhase[r]
+		if pi < 0 {
+			continue
+		}
+		R[r] = s.phaseLogIAP(pi, u) - s.phLogK[pi] - s.rowTarget[r]
+		sc[r] = 1
+		if jac {
+			jr := J[r*n : r*n+n]
+			for _, t := range db.Minerals[pi].Terms {
+				if c := s.col[t.Index]; c >= 0 {
+					jr[c] += t.Nu
+				}
+			}
+		}
+	}
+	for r := 0; r < n; r++ {
+		if sc[r] == 0 {
+			sc[r] = 1
+		}
+		e := R[r] / sc[r]
+		norm += e * e
+		if a := math.Abs(e); a > worst || a != a {
+			worst = a
+		}
+	}
+	return norm, worst
+}
+
+func (s *Solver) newton() error {
+	n := s.n
+	u := s.u[:n]
+	maxIt := s.MaxIterations
+	if maxIt <= 0 {
+		maxIt = 200
+	}
+	maxStep := s.MaxStep
+	if maxStep <= 0 {
+		maxStep = 1.5
+	}
+	s.evals = 0
+	norm, worst := s.evaluate(u, true)
+	it := 0
+	for ; it < maxIt; it++ {
+		if !finite(norm) {
+			return &SolveError{Reason: "non-finite residual", Iterations: it, Err: ErrNoConvergence}
+		}
+		if worst <= Tolerance {
+			// check the lagged water activity
+			aw := s.logAw
+			s.gammas(u[s.iCol])
+			if math.Abs(s.logAw-aw) <= 1e-12 {
+				s.lastRes = worst
+				s.iters = it
+				s.warmU = append(s.warmU[:0], u...)
+				copy(s.warmTotal, s.total)
+				s.warmAlk = s.alk
+				s.warmValid = true
+				return nil
+			}
+			norm, worst = s.evaluate(u, true)
+			continue
+		}
+		// scale rows, solve J du = -R
+		J := s.J[:n*n]
+		du := s.du[:n]
+		for r := 0; r < n; r++ {
+			inv := 1 / s.scale[r]
+			jr := J[r*n : r*n+n]
+			for c := range jr {
+				jr[c] *= inv
+			}
+			du[r] = -s.R[r] * inv
+		}
+		if !luSolve(J, s.piv[:n], du, n) {
+			return &SolveError{Reason: fmt.Sprintf("singular Jacobian at iteration %d", it), Iterations: it, Err: ErrSingular}
+		}
+		// step limiting in log units; keep I positive
+		f := 1.0
+		for c := 0; c < s.iCol; c++ {
+			if a := math.Abs(du[c]); a*f > maxStep {
+				f = maxStep / a
+			}
+		}
+		I := u[s.iCol]
+		if dI := du[s.iCol]; I+f*dI < 0.2*I {
+			f = 0.8 * I / -dI
+		}
+		if !finite(f) {
+			return &SolveError{Reason: "non-finite Newton step", Iterations: it, Err: ErrNoConvergence}
+		}
+		// backtracking on the scaled residual norm
+		try := s.uTry[:n]
+		var nTry, wTry float64
+		for h := 0; ; h++ {
+			for c := range try {
+				try[c] = u[c] + f*du[c]
+			}
+			nTry, wTry = s.evaluate(try, true)
+			if (finite(nTry) && nTry < norm*(1-1e-4*f)) || h >= 10 || nTry <= 1e-30 {
+				break
+			}
+			f *= 0.5
+		}
+		copy(u, try)
+		norm, worst = nTry, wTry
+	}
+	return &SolveError{Reason: fmt.Sprintf("no convergence after %d iterations (largest relative balance error %.3g)", it, worst), Iterations: it, Err: ErrNoConvergence}
+}
+
+// luSolve solves A x = b in place (b becomes x) by Gaussian elimination with partial
+// pivoting on the row-major n x n matrix A (destroyed). It reports false when A is
+// singular to working precision.
+func luSolve(A []float64, piv []int, b []float64, n int) bool {
+	for k := 0; k < n; k++ {
+		p := k
+		mx := math.Abs(A[k*n+k])
+		for i := k + 1; i < n; i++ {
+			if v := math.Abs(A[i*n+k]); v > mx {
+				mx, p = v, i
+			}
+		}
+		if mx < 1e-250 || mx != mx {
+			return false
+		}
+		if p != k {
+			rk, rp := A[k*n:k*n+n], A[p*n:p*n+n]
+			for j := range rk {
+				rk[j], rp[j] = rp[j], rk[j]
+			}
+			b[k], b[p] = b[p], b[k]
+		}
+		piv[k] = p
+		d := 1 / A[k*n+k]
+		rk := A[k*n+k+1 : k*n+n]
+		for i := k + 1; i < n; i++ {
+			l := A[i*n+k] * d
+			if l == 0 {
+				continue
+			}
+			ri := A[i*n+k+1 : i*n+n]
+			for j, v := range rk {
+				ri[j] -= l * v
+			}
+			b[i] -= l * b[k]
+		}
+	}
+	for k := n - 1; k >= 0; k-- {
+		v := b[k]
+		for j := k + 1; j < n; j++ {
+			v -= A[k*n+j] * b[j]
+		}
+		b[k] = v / A[k*n+k]
+		if !finite(b[k]) {
+			return false
+		}
+	}
+	return true
+}
