@@ -467,7 +467,7 @@ func (s seriesStyle) legend(label string) legendEntry {
 	return legendEntry{label: label, kind: legendLine, line: s.line, withGlyph: true, fill: s.color, glyph: s.glyph}
 }
 
-// niceTicks places about n labelled ticks at 1, 2, 2.5 or 5 times a power
+// niceTicks places n+1 or fewer (but at least about n/2) labelled ticks at 1, 2, 2.5 or 5 times a power
 // of ten, labelled without spurious decimals, with unlabelled minor ticks
 // halfway.
 type niceTicks struct{ n int }
@@ -480,7 +480,7 @@ func (t niceTicks) Ticks(min, max float64) []plot.Tick {
 	if !(max > min) {
 		return nil
 	}
-	raw := (max - min) / float64(n)
+	raw := (max - min) / float64(n+1)
 	e := math.Floor(math.Log10(raw))
 	base := math.Pow(10, e)
 	step := 10 * base

@@ -71,8 +71,10 @@ func candidate(it labelItem, dir [2]int, dist vg.Length) vg.Rectangle {
 // placeLabels places labels greedily in the order given. A label must stay
 // inside bounds and clear every symbol, every obstacle and every label
 // already placed (by labelGap). Candidates next to the symbol come first;
-// then candidates two and four symbol-radii further out, which get a leader
-// line. Labels with no free candidate are not placed.
+// then two rings further out (about half and one label height beyond),
+// which get a leader line. Rings stay close so that a leader never sends a
+// label far from its symbol; labels with no free candidate are not placed
+// and the caller reports how many.
 func placeLabels(items []labelItem, obstacles []vg.Rectangle, bounds vg.Rectangle) []labelPlacement {
 	out := make([]labelPlacement, len(items))
 	blocked := make([]vg.Rectangle, 0, len(items)*2+len(obstacles))
@@ -85,7 +87,7 @@ func placeLabels(items []labelItem, obstacles []vg.Rectangle, bounds vg.Rectangl
 	blocked = append(blocked, obstacles...)
 	for i, it := range items {
 		base := it.r + labelGap
-		for ring, dist := range []vg.Length{base, base + 2*it.r + it.h*0.6, base + 4*it.r + it.h*1.6} {
+		for ring, dist := range []vg.Length{base, base + it.r + it.h*0.5, base + 2*it.r + it.h*1.2} {
 			found := false
 			for _, d := range labelDirs {
 				r := candidate(it, d, dist)

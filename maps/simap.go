@@ -5,6 +5,7 @@ import (
 	"image"
 	"image/color"
 	"math"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -304,36 +305,40 @@ func (m SIMap) Draw(c draw.Canvas) error {
 	if err != nil {
 		return err
 	}
-	cap := m.Caption
+	caption := m.Caption
 	if m.HasCV && finite(m.CVRMSE) {
-		if cap != "" {
-			cap += " "
+		if caption != "" {
+			caption += " "
 		}
-		cap += fmt.Sprintf("Surface cross-validation (leave-one-out) RMSE: %s SI units.", formatNum(m.CVRMSE, 2))
+		caption += fmt.Sprintf("Surface cross-validation (leave-one-out) RMSE: %s SI units.", formatNum(m.CVRMSE, 2))
 	}
 	legend := s.legend()
 	note := ""
 	var lay mapLayout
 	for pass := 0; pass < 2; pass++ {
-		pg := newPage(c, m.Title, cap, legend, note)
+		pg := newPage(c, m.Title, caption, legend, note)
 		body, legTop, capTop := pg.layout(c)
 		lay = s.layout(body)
 		lay.page, lay.legTop, lay.capTop = pg, legTop, capTop
-		n := 0
-		for _, p := range lay.places {
+		var dropped []string
+		for i, p := range lay.places {
 			if !p.placed {
-				n++
+				dropped = append(dropped, lay.texts[i])
 			}
 		}
-		if n == 0 {
+		if len(dropped) == 0 {
+			lay.page.legendNote = ""
 			break
 		}
-		nw := n
-		if nw > 0 && note == "" {
-			note = fmt.Sprintf("%d label(s) not shown where symbols crowd.", nw)
+		msg := fmt.Sprintf("%d labels not shown where symbols crowd.", len(dropped))
+		if len(dropped) <= 6 {
+			msg = "Not labelled where symbols crowd: " + strings.Join(dropped, ", ") + "."
+		}
+		if note == "" {
+			note = msg
 			continue
 		}
-		lay.page.legendNote = fmt.Sprintf("%d label(s) not shown where symbols crowd.", nw)
+		lay.page.legendNote = msg
 		break
 	}
 	lay.p.Draw(lay.mapC)

@@ -839,6 +839,9 @@ func (s *Solver) newton() error {
 			norm, worst = s.evaluate(u, true)
 			continue
 		}
+		if err := s.checkBounds(u, it); err != nil {
+			return err
+		}
 		// scale rows, solve J du = -R
 		J := s.J[:n*n]
 		du := s.du[:n]
@@ -884,6 +887,26 @@ func (s *Solver) newton() error {
 		norm, worst = nTry, wTry
 	}
 	return &SolveError{Reason: fmt.Sprintf("no convergence after %d iterations (largest relative balance error %.3g)", it, worst), Iterations: it, Err: ErrNoConvergence}
+}
+
+// checkBounds stops a solve that runs away: a component adjusted for charge balance
+// whose total would have to be negative, or a pH outside any water.
+func (s *Solver) checkBounds(u []float64, it int) error {
+	db := s.db
+	for ci := range s.role {
+		if s.role[ci] != roleCharge {
+			continue
+		}
+		v := u[s.col[ci]]
+		if ci == db.hplus {
+			if v > 2 || v < -16 {
+				return &SolveError{Reason: "no pH between -2 and 16 closes the charge balance", Iterations: it, Err: ErrNoConvergence}
+			}
+		} else if v < -30 {
+			return &SolveError{Reason: fmt.Sprintf("the charge balance cannot be closed by adjusting %s (its total would be negative)", db.Components[ci].Name), Iterations: it, Err: ErrNoConvergence}
+		}
+	}
+	return nil
 }
 
 // luSolve solves A x = b in place (b becomes x) by Gaussian elimination with partial

@@ -220,6 +220,12 @@ func TestQualityAndFlaws(t *testing.T) {
 			if math.Abs(cbe) > 5 || pH < 6 || pH > 9 || negative {
 				t.Errorf("%s: charge balance %.1f %%, pH %.2f, negative %v; want a clean sample", id, cbe, pH, negative)
 			}
+			// Standard Methods 1030 E acceptance (from memory): anion sum
+			// 3-10 meq/L allows 2 %, 10-800 meq/L allows 5 %. The fresh
+			// injectate falls in the stricter band.
+			if r["Sample type"] == "injectate" && math.Abs(cbe) > 2 {
+				t.Errorf("%s: injectate charge balance %.1f %%, want within 2 %%", id, cbe)
+			}
 		case strings.HasPrefix(flaw, flawTransposed):
 			kinds[flawTransposed] = true
 			if math.Abs(cbe) < 10 || math.Abs(cbe) > 20 {
@@ -239,6 +245,44 @@ func TestQualityAndFlaws(t *testing.T) {
 	}
 	if len(kinds) != 3 {
 		t.Errorf("flaw kinds found %v, want all three", kinds)
+	}
+}
+
+// TestReportedBetweenEndMembers: every clean monitoring sample's reported
+// major ions lie within the range spanned by the reported end-members
+// (injectate and native samples), widened by 15 % for analytical noise and
+// the small calcite, gypsum and barite reactions.
+func TestReportedBetweenEndMembers(t *testing.T) {
+	g, f := demo(t)
+	_, rows := readRows(t, f["samples.csv"])
+	flawed := map[string]bool{}
+	for _, s := range g.Samples {
+		flawed[s.ID] = s.Flaw != ""
+	}
+	cols := []string{"Ca (mg/L)", "Mg (mg/L)", "Na (mg/L)", "K (mg/L)", "Sr (mg/L)", "Cl (mg/L)",
+		"SO4 (mg/L)", "Alkalinity (mg/L as CaCO3)", "Br (mg/L)", "Ba (ug/L)"}
+	lo, hi := map[string]float64{}, map[string]float64{}
+	for _, c := range cols {
+		lo[c], hi[c] = math.Inf(1), math.Inf(-1)
+	}
+	for _, r := range rows {
+		if r["Sample type"] == "monitoring" {
+			continue
+		}
+		for _, c := range cols {
+			v := value(t, r, c)
+			lo[c], hi[c] = math.Min(lo[c], v), math.Max(hi[c], v)
+		}
+	}
+	for _, r := range rows {
+		if r["Sample type"] != "monitoring" || flawed[r["Sample ID"]] {
+			continue
+		}
+		for _, c := range cols {
+			if v := value(t, r, c); v < 0.85*lo[c] || v > 1.15*hi[c] {
+				t.Errorf("%s %s = %g outside the end-members' %g-%g", r["Sample ID"], c, v, lo[c], hi[c])
+			}
+		}
 	}
 }
 

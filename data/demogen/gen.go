@@ -23,7 +23,7 @@ var header = []string{
 	"F (mg/L)", "SiO2 (mg/L)", "NO3-N (mg/L)", "Br (mg/L)",
 }
 
-// analyteColumn maps a component to its CSV column and the relative standard
+// analytes maps each component to its CSV column and the relative standard
 // deviation of its invented analytical noise (common practice: a few percent
 // for major ions, more for trace metals).
 var analytes = []struct {

@@ -1,0 +1,206 @@
+package assess
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"runtime"
+	"sync"
+
+	"gwsat/hydro"
+	"gwsat/speciation"
+)
+
+// DefaultTempC is the temperature assumed for a sample reported without one
+// (25 C, the reference temperature of the data; common practice). The row
+// gets a warning when it is used.
+const DefaultTempC = 25.0
+
+// Options control Run.
+type Options struct {
+	// Model is the activity model (default Truesdell-Jones).
+	Model speciation.ActivityModel
+	// BalanceOn names a component (e.g. "Cl-", "Na+") whose total is
+	// adjusted so that the speciated water is electrically neutral; "" for
+	// none.
+	BalanceOn string
+	// Workers is the number of goroutines solving (default GOMAXPROCS).
+	Workers int
+	// Progress, when not nil, is called after each record is done (from one
+	// goroutine at a time).
+	Progress func()
+}
+
+// Record is one input row with everything computed for it.
+type Record struct {
+	File string
+	Row  hydro.Row
+
+	Water   hydro.Water
+	Balance hydro.Balance
+	// Result is the speciation, nil when the row was rejected, could not
+	// be speciated (no pH) or the solve failed (SolveError says why).
+	Result     *speciation.Result
+	SolveError string
+	// PHAdjusted is set when a charge-balance adjustment was asked for.
+	Adjusted string
+
+	// Status and Reasons are the final verdict: the reader's, the unit
+	// conversion's, the charge balance's and the solver's together.
+	Status  hydro.Status
+	Reasons []string
+}
+
+// Sample returns the record's sample.
+func (r *Record) Sample() *hydro.Sample { return &r.Row.Sample }
+
+// Run assesses every row of the batches, in order. It returns one record per
+// row; the error is only for a cancelled context.
+func Run(ctx context.Context, db *speciation.Database, batches []*hydro.Batch, opt Options) ([]Record, error) {
+	if opt.Model == nil {
+		opt.Model = speciation.TruesdellJones{}
+	}
+	var recs []Record
+	for _, b := range batches {
+		for _, row := range b.Rows {
+			recs = append(recs, Record{File: b.File, Row: row})
+		}
+	}
+	workers := opt.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	var mu sync.Mutex
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			solver := speciation.NewSolver(db, opt.Model)
+			var sw speciation.Water
+			for i := range jobs {
+				assessOne(&recs[i], solver, &sw, opt)
+				if opt.Progress != nil {
+					mu.Lock()
+					opt.Progress()
+					mu.Unlock()
+				}
+			}
+		}()
+	}
+	var err error
+feed:
+	for i := range recs {
+		select {
+		case jobs <- i:
+		case <-ctx.Done():
+			err = ctx.Err()
+			break feed
+		}
+	}
+	close(jobs)
+	wg.Wait()
+	return recs, err
+}
+
+// worse returns the more severe of two statuses.
+func worse(a, b hydro.Status) hydro.Status {
+	rank := map[hydro.Status]int{hydro.StatusOK: 0, hydro.StatusWarning: 1, hydro.StatusRejected: 2}
+	if rank[b] > rank[a] {
+		return b
+	}
+	return a
+}
+
+func (r *Record) note(st hydro.Status, format string, a ...any) {
+	r.Status = worse(r.Status, st)
+	r.Reasons = append(r.Reasons, fmt.Sprintf(format, a...))
+}
+
+func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt Options) {
+	r.Status = r.Row.Status
+	for _, is := range r.Row.Issues {
+		r.Reasons = append(r.Reasons, is.String())
+	}
+	s := &r.Row.Sample
+	r.Balance = hydro.ChargeBalance(s)
+	switch {
+	case !r.Balance.Complete:
+		// Info only: many files carry a partial analysis on purpose.
+		r.Reasons = append(r.Reasons, fmt.Sprintf("info: charge balance incomplete (missing %v)", r.Balance.Missing))
+	case r.Balance.Status == hydro.BalanceFail:
+		r.note(hydro.StatusWarning, "warning: charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+	case r.Balance.Status == hydro.BalanceWarn:
+		r.note(hydro.StatusWarning, "warning: charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+	}
+	if r.Status == hydro.StatusRejected {
+		return
+	}
+	w, issues := s.Water()
+	r.Water = w
+	for _, is := range issues {
+		switch is.Severity {
+		case hydro.Error:
+			r.note(hydro.StatusRejected, "%s", is)
+		case hydro.Warning:
+			r.note(hydro.StatusWarning, "%s", is)
+		default:
+			r.Reasons = append(r.Reasons, is.String())
+		}
+	}
+	if r.Status == hydro.StatusRejected {
+		return
+	}
+	if !w.HasPH {
+		r.note(hydro.StatusWarning, "warning: no pH: speciation skipped")
+		return
+	}
+	tempC := w.TempC
+	if !w.HasTemp {
+		tempC = DefaultTempC
+		r.note(hydro.StatusWarning, "warning: no temperature: speciated at %.0f C", DefaultTempC)
+	}
+	sw.Reset()
+	sw.TempC = tempC
+	sw.PH = w.PH
+	for comp, m := range w.Molal {
+		if m > 0 {
+			sw.SetTotal(comp, m)
+		}
+	}
+	if w.HasAlkalinity {
+		if _, hasTIC := w.Molal[speciation.NameCarbonate]; !hasTIC && w.AlkalinityEqKgw > 0 {
+			sw.SetAlkalinity(w.AlkalinityEqKgw)
+		}
+	}
+	if opt.BalanceOn != "" {
+		sw.ChargeBalanceIon = opt.BalanceOn
+	}
+	res, err := solver.Solve(sw)
+	if err != nil {
+		var se *speciation.SolveError
+		reason := err.Error()
+		if errors.As(err, &se) && se.Reason != "" {
+			reason = se.Reason
+		}
+		r.SolveError = reason
+		r.note(hydro.StatusWarning, "warning: speciation failed: %s", reason)
+		return
+	}
+	r.Result = res
+	if res.Adjusted != "" {
+		r.Adjusted = res.Adjusted
+		r.Reasons = append(r.Reasons, fmt.Sprintf("info: %s total adjusted to %.4g mol/kgw to close the charge balance", res.Adjusted, res.AdjustedTotal))
+	}
+	for _, wmsg := range res.Warnings {
+		if wmsg == speciation.WarnIonicStrength {
+			r.note(hydro.StatusWarning, "warning: ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
+			continue
+		}
+		r.Reasons = append(r.Reasons, "info: "+wmsg)
+	}
+	if _, ok := w.Molal[speciation.NameCarbonate]; !ok && !w.HasAlkalinity {
+		r.Reasons = append(r.Reasons, "info: no alkalinity or carbonate: carbonate minerals and log pCO2 not computed")
+	}
+}

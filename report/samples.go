@@ -1,0 +1,276 @@
+package report
+
+import (
+	"encoding/json"
+	"io"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+	"unicode"
+
+	"gwsat/assess"
+	"gwsat/hydro"
+	"gwsat/speciation"
+)
+
+// ColumnName returns the table column of a mineral's saturation index:
+// "si_" and the lower-case name with non-alphanumerics as underscores
+// ("SiO2(am)" becomes "si_sio2_am").
+func ColumnName(mineral string) string {
+	var b strings.Builder
+	b.WriteString("si_")
+	under := false
+	for _, r := range strings.ToLower(mineral) {
+		if unicode.IsLetter(r) || unicode.IsDigit(r) {
+			b.WriteRune(r)
+			under = false
+		} else if !under {
+			b.WriteByte('_')
+			under = true
+		}
+	}
+	return strings.TrimRight(b.String(), "_")
+}
+
+// SolidMinerals lists the minerals (not gases) of a database, in file order.
+func SolidMinerals(db *speciation.Database) []string {
+	var out []string
+	for _, m := range db.Minerals {
+		if !m.Gas {
+			out = append(out, m.Name)
+		}
+	}
+	return out
+}
+
+// DepthM returns the sample depth below ground: the reported sample depth,
+// else the middle of the screen, and false when neither is known.
+func DepthM(s *hydro.Sample) (float64, bool) {
+	if s.DepthM.OK {
+		return s.DepthM.V, true
+	}
+	if s.ScreenTopM.OK && s.ScreenBottomM.OK {
+		return (s.ScreenTopM.V + s.ScreenBottomM.V) / 2, true
+	}
+	if s.ScreenTopM.OK {
+		return s.ScreenTopM.V, true
+	}
+	return 0, false
+}
+
+// SubstitutedAnalytes lists the analytes whose value came from the
+// non-detect policy, sorted.
+func SubstitutedAnalytes(s *hydro.Sample) []string {
+	var out []string
+	for k, m := range s.Analytes {
+		if m.Substituted {
+			out = append(out, k)
+		}
+	}
+	sort.Strings(out)
+	return out
+}
+
+// SampleColumns are the fixed columns of the sample table, before the
+// saturation-index columns. The README documents each.
+var SampleColumns = []string{
+	"file", "line", "sample_id", "well_id", "round", "status", "reasons",
+	"latitude", "longitude", "easting_m", "northing_m", "epsg",
+	"depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m",
+	"temp_c", "ph", "ph_source", "tds_mg_l", "density_kg_l", "density_source", "nondetects_substituted",
+	"cations_meq_l", "anions_meq_l", "charge_balance_pct", "balance_status",
+	"model", "ionic_strength_mol_kgw", "log_pco2_atm", "charge_balance_speciated_pct",
+	"langelier_si", "ryznar_si", "larson_skold",
+}
+
+func opt(v hydro.Value, prec int) string {
+	if !v.OK {
+		return ""
+	}
+	return Num(v.V, prec)
+}
+
+// SampleTable builds the main table: one row per record, in order, with a
+// saturation-index column per mineral.
+func SampleTable(recs []assess.Record, minerals []string) *Table {
+	t := &Table{Header: append([]string(nil), SampleColumns...)}
+	for _, m := range minerals {
+		t.Header = append(t.Header, ColumnName(m))
+	}
+	for i := range recs {
+		r := &recs[i]
+		s := r.Sample()
+		row := []string{
+			Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round),
+			string(r.Status), Text(strings.Join(r.Reasons, "; ")),
+			opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
+		}
+		d, ok := DepthM(s)
+		row = append(row, cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
+			opt(s.TempC, 1), opt(s.PH, 2), s.PHSource)
+		if r.Water.KgWaterPerL > 0 {
+			row = append(row, Num(r.Water.TDSMgL, 0), Num(r.Water.DensityKgL, 4), r.Water.DensitySource)
+		} else {
+			row = append(row, "", "", "")
+		}
+		row = append(row, strings.Join(SubstitutedAnalytes(s), " "))
+		b := r.Balance
+		if b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+			row = append(row, Num(b.CationsMeqL, 3), Num(b.AnionsMeqL, 3), Num(b.ErrorPct, 2), string(b.Status))
+		} else {
+			row = append(row, "", "", "", "")
+		}
+		res := r.Result
+		if res == nil {
+			row = append(row, "", "", "", "", "", "", "")
+			for range minerals {
+				row = append(row, "")
+			}
+			t.Rows = append(t.Rows, row)
+			continue
+		}
+		row = append(row, res.Model, Sig(res.IonicStrength, 4), cond(res.HasLogPCO2, Num(res.LogPCO2, 3)), Num(res.ChargeBalance, 2),
+			cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 2)), cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 2)),
+			cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
+		for _, m := range minerals {
+			si, ok := res.SI(m)
+			row = append(row, cond(ok, Num(si, 3)))
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	return t
+}
+
+func epsg(c int) string {
+	if c == 0 {
+		return ""
+	}
+	return strconv.Itoa(c)
+}
+
+func cond(ok bool, s string) string {
+	if !ok {
+		return ""
+	}
+	return s
+}
+
+// jsonNum is a float that marshals NaN and Inf as null, so that no
+// non-number reaches a JSON output.
+type jsonNum float64
+
+func (f jsonNum) MarshalJSON() ([]byte, error) {
+	v := float64(f)
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return []byte("null"), nil
+	}
+	return strconv.AppendFloat(nil, v, 'g', 8, 64), nil
+}
+
+type jsonSpecies struct {
+	Name     string  `json:"name"`
+	Molality jsonNum `json:"molality_mol_kgw"`
+	Gamma    jsonNum `json:"gamma"`
+	Activity jsonNum `json:"activity"`
+}
+
+type jsonShare struct {
+	Component string  `json:"component"`
+	Species   string  `json:"species"`
+	Percent   jsonNum `json:"percent"`
+}
+
+type jsonRecord struct {
+	File    string             `json:"file"`
+	Line    int                `json:"line"`
+	Sample  string             `json:"sample_id"`
+	Well    string             `json:"well_id,omitempty"`
+	Round   string             `json:"round,omitempty"`
+	Status  string             `json:"status"`
+	Reasons []string           `json:"reasons"`
+	Balance *jsonBalance       `json:"charge_balance,omitempty"`
+	Water   map[string]jsonNum `json:"totals_mol_kgw,omitempty"`
+	Alk     *jsonNum           `json:"alkalinity_eq_kgw,omitempty"`
+	Result  *jsonResult        `json:"speciation,omitempty"`
+	Error   string             `json:"speciation_error,omitempty"`
+}
+
+type jsonBalance struct {
+	Cations   jsonNum `json:"cations_meq_l"`
+	Anions    jsonNum `json:"anions_meq_l"`
+	ErrorPct  jsonNum `json:"error_pct"`
+	Status    string  `json:"status"`
+	Criterion string  `json:"criterion"`
+	Complete  bool    `json:"complete"`
+}
+
+type jsonResult struct {
+	Model         string             `json:"model"`
+	TempC         jsonNum            `json:"temp_c"`
+	PH            jsonNum            `json:"ph"`
+	IonicStrength jsonNum            `json:"ionic_strength_mol_kgw"`
+	LogPCO2       *jsonNum           `json:"log_pco2_atm,omitempty"`
+	ChargeBalance jsonNum            `json:"charge_balance_pct"`
+	SI            map[string]jsonNum `json:"saturation_index"`
+	Langelier     *jsonNum           `json:"langelier_si,omitempty"`
+	Ryznar        *jsonNum           `json:"ryznar_si,omitempty"`
+	LarsonSkold   *jsonNum           `json:"larson_skold,omitempty"`
+	Species       []jsonSpecies      `json:"species"`
+	Distribution  []jsonShare        `json:"distribution"`
+	Warnings      []string           `json:"warnings,omitempty"`
+	Iterations    int                `json:"iterations"`
+}
+
+func ptr(ok bool, v float64) *jsonNum {
+	if !ok {
+		return nil
+	}
+	j := jsonNum(v)
+	return &j
+}
+
+// WriteJSON writes every record with its full speciation as a JSON array.
+func WriteJSON(w io.Writer, recs []assess.Record) error {
+	out := make([]jsonRecord, 0, len(recs))
+	for i := range recs {
+		r := &recs[i]
+		s := r.Sample()
+		reasons := r.Reasons
+		if reasons == nil {
+			reasons = []string{}
+		}
+		jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
+			Status: string(r.Status), Reasons: reasons, Error: r.SolveError}
+		if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+			jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
+		}
+		if len(r.Water.Molal) > 0 {
+			jr.Water = map[string]jsonNum{}
+			for k, v := range r.Water.Molal {
+				jr.Water[k] = jsonNum(v)
+			}
+			jr.Alk = ptr(r.Water.HasAlkalinity, r.Water.AlkalinityEqKgw)
+		}
+		if res := r.Result; res != nil {
+			x := &jsonResult{Model: res.Model, TempC: jsonNum(res.TempC), PH: jsonNum(res.PH), IonicStrength: jsonNum(res.IonicStrength),
+				LogPCO2: ptr(res.HasLogPCO2, res.LogPCO2), ChargeBalance: jsonNum(res.ChargeBalance), SI: map[string]jsonNum{},
+				Langelier: ptr(res.Indices.HasLangelier, res.Indices.Langelier), Ryznar: ptr(res.Indices.HasLangelier, res.Indices.Ryznar),
+				LarsonSkold: ptr(res.Indices.HasLarsonSkold, res.Indices.LarsonSkold), Warnings: res.Warnings, Iterations: res.Iterations}
+			for _, m := range res.Minerals {
+				x.SI[m.Name] = jsonNum(m.SI)
+			}
+			for _, sp := range res.Species {
+				x.Species = append(x.Species, jsonSpecies{sp.Name, jsonNum(sp.Molality), jsonNum(sp.Gamma), jsonNum(sp.Activity)})
+			}
+			for _, sh := range res.Distribution {
+				x.Distribution = append(x.Distribution, jsonShare{sh.Component, sh.Species, jsonNum(sh.Percent)})
+			}
+			jr.Result = x
+		}
+		out = append(out, jr)
+	}
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(out)
+}

@@ -1,0 +1,179 @@
+package speciation
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"reflect"
+	"testing"
+)
+
+// The analytic Jacobian (d m_s/d log a_j = ln10 nu_sj m_s, plus the ionic-strength
+// column through d log gamma/dI) must match central finite differences of the residuals.
+func TestJacobianFiniteDifference(t *testing.T) {
+	db := mustDefault(t)
+	for _, model := range []ActivityModel{TruesdellJones{}, Davies{}} {
+		s := NewSolver(db, model)
+		w := nativeWater()
+		w.ChargeBalanceIon = "Cl-"
+		w.Equilibrate("Calcite", 0)
+		if err := s.setup(&w); err != nil {
+			t.Fatal(err)
+		}
+		n := s.n
+		u := append([]float64(nil), s.u[:n]...)
+		u[s.iCol] *= 1.3 // away from the solution
+		s.evaluate(u, true)
+		J := append([]float64(nil), s.J[:n*n]...)
+		rp, rm := make([]float64, n), make([]float64, n)
+		for c := 0; c < n; c++ {
+			h := 1e-6
+			if c == s.iCol {
+				h = 1e-6 * u[c]
+			}
+			up := append([]float64(nil), u...)
+			up[c] += h
+			s.evaluate(up, false)
+			copy(rp, s.R[:n])
+			up[c] -= 2 * h
+			s.evaluate(up, false)
+			copy(rm, s.R[:n])
+			s.evaluate(u, false)
+			for r := 0; r < n; r++ {
+				fd := (rp[r] - rm[r]) / (2 * h)
+				an := J[r*n+c]
+				if math.Abs(fd-an) > 1e-6*s.scale[r]/math.Max(h, 1e-6)*1e-3+1e-6*math.Abs(fd) {
+					t.Errorf("%s: J[%d][%d] analytic %.8g, finite difference %.8g", model.Name(), r, c, an, fd)
+				}
+			}
+		}
+	}
+}
+
+func checkFinite(t *testing.T, label string, res *Result) {
+	t.Helper()
+	bad := func(x float64) bool { return math.IsNaN(x) || math.IsInf(x, 0) }
+	v := reflect.ValueOf(res).Elem()
+	var walk func(v reflect.Value, path string)
+	walk = func(v reflect.Value, path string) {
+		switch v.Kind() {
+		case reflect.Float64:
+			if bad(v.Float()) {
+				t.Errorf("%s: %s is %v", label, path, v.Float())
+			}
+		case reflect.Struct:
+			for i := 0; i < v.NumField(); i++ {
+				walk(v.Field(i), path+"."+v.Type().Field(i).Name)
+			}
+		case reflect.Slice:
+			for i := 0; i < v.Len(); i++ {
+				walk(v.Index(i), path)
+			}
+		}
+	}
+	walk(v, "Result")
+}
+
+// Fuzz-ish robustness: random plausible (and some implausible) waters either converge,
+// with every balance closed and no NaN or Inf anywhere in the result, or return a
+// *SolveError. Fixed seed.
+func TestRandomWatersConvergeOrError(t *testing.T) {
+	db := mustDefault(t)
+	rng := rand.New(rand.NewPCG(1, 2))
+	comps := []string{"Ca+2", "Mg+2", "Na+", "K+", "Sr+2", "Ba+2", "Fe+2", "Mn+2", "Cl-", "SO4-2", "F-", "H4SiO4", "NO3-", "Br-"}
+	models := []ActivityModel{Davies{}, TruesdellJones{}, Ideal{}}
+	solvers := make([]*Solver, len(models))
+	for i, m := range models {
+		solvers[i] = NewSolver(db, m)
+	}
+	n := 600
+	if testing.Short() {
+		n = 150
+	}
+	failures := 0
+	var res Result
+	for i := 0; i < n; i++ {
+		w := Water{TempC: rng.Float64() * 100, PH: 4 + 6*rng.Float64()}
+		for _, c := range comps {
+			if rng.Float64() < 0.8 {
+				w.SetTotal(c, math.Pow(10, -7+5.5*rng.Float64())) // 1e-7 .. 0.3 mol/kgw
+			}
+		}
+		switch rng.IntN(4) {
+		case 0:
+			w.SetAlkalinity(math.Pow(10, -5+3.5*rng.Float64()))
+		case 1:
+			w.SetTotal("CO3-2", math.Pow(10, -5+3.5*rng.Float64()))
+		case 2:
+			w.PHFromChargeBalance = true
+			w.SetTotal("CO3-2", math.Pow(10, -5+3*rng.Float64()))
+		}
+		if rng.Float64() < 0.2 {
+			w.ChargeBalanceIon = "Cl-"
+			w.PHFromChargeBalance = false
+		}
+		if rng.Float64() < 0.1 {
+			if _, ok := w.Total("Ca+2"); ok {
+				if c, ok2 := w.Total("CO3-2"); ok2 && c > 0 {
+					w.Equilibrate("Calcite", 0)
+				}
+			}
+		}
+		s := solvers[i%len(solvers)]
+		s.WarmStart = i%2 == 0
+		err := s.SolveInto(&res, &w)
+		if err != nil {
+			var se *SolveError
+			if !errors.As(err, &se) {
+				t.Fatalf("water %d: error %T %v", i, err, err)
+			}
+			failures++
+			continue
+		}
+		checkFinite(t, "random water", &res)
+		for _, tt := range w.Totals() {
+			if tt.MolKgw == 0 || tt.Component == w.ChargeBalanceIon {
+				continue
+			}
+			got, _ := res.Total(tt.Component)
+			want := tt.MolKgw
+			for _, p := range res.Phases {
+				want += p.Dissolved * nuOf(db.Mineral(p.Name).Terms, db.ComponentIndex(tt.Component))
+			}
+			if math.Abs(got-want) > 1e-9*want {
+				t.Errorf("water %d: %s total %.12g, want %.12g", i, tt.Component, got, want)
+			}
+		}
+	}
+	t.Logf("%d of %d random waters returned an error", failures, n)
+	if failures > n/20 {
+		t.Errorf("%d of %d random waters failed", failures, n)
+	}
+}
+
+// Warm and cold starts agree within the convergence tolerance.
+func TestWarmStartAgrees(t *testing.T) {
+	db := mustDefault(t)
+	warm, cold := NewSolver(db, TruesdellJones{}), NewSolver(db, TruesdellJones{})
+	cold.WarmStart = false
+	w := seaWater()
+	if _, err := warm.Solve(&w); err != nil {
+		t.Fatal(err)
+	}
+	w2 := nativeWater()
+	w2.SetAlkalinity(0)
+	w2 = nativeWater()
+	a, err := warm.Solve(&w2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := cold.Solve(&w2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range a.Species {
+		if math.Abs(a.Species[i].Molality-b.Species[i].Molality) > 1e-9*b.Species[i].Molality {
+			t.Errorf("%s warm %.12g cold %.12g", a.Species[i].Name, a.Species[i].Molality, b.Species[i].Molality)
+		}
+	}
+}
