@@ -90,3 +90,27 @@ func (f LocalFrame) ProjectGeometry(g orb.Geometry) orb.Geometry {
 	}
 	return project.Geometry(orb.Clone(g), f.Forward)
 }
+
+// PlaceInFrame checks sample positions with ValidLonLat, builds a
+// LocalFrame from the usable ones and projects them. For each input,
+// flags[i] is nil and xy[i] holds metres when the position is usable;
+// otherwise flags[i] says why and xy[i] is the zero point, to be left off
+// maps and counted in captions.
+func PlaceInFrame(points []orb.Point) (frame LocalFrame, xy []orb.Point, flags []error) {
+	frame = NewLocalFrame(points)
+	xy = make([]orb.Point, len(points))
+	flags = make([]error, len(points))
+	for i, p := range points {
+		if err := ValidLonLat(p); err != nil {
+			flags[i] = err
+			continue
+		}
+		q := frame.Forward(p)
+		if !finite(q[0]) || !finite(q[1]) {
+			flags[i] = ErrProjection
+			continue
+		}
+		xy[i] = q
+	}
+	return frame, xy, flags
+}

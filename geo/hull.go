@@ -95,7 +95,7 @@ func (h hullRegion) contains(p orb.Point) bool {
 			return true
 		}
 	}
-	return len(h.ring) == 1 && segDist2(p, h.ring[0], h.ring[0]) <= b2
+	return false
 }
 
 // segDist2 is the squared distance from p to segment ab.

@@ -458,3 +458,57 @@ func TestKrigingIllConditioned(t *testing.T) {
 		t.Errorf("merged %v, err %v", k, err)
 	}
 }
+
+// Kriging variance: zero at a well without nugget; for a pure-nugget
+// model (range shorter than every spacing, partial sill C) away from the
+// wells the weights are 1/n and the variance is C (1 + 1/n), the textbook
+// result for estimating a new value from n uncorrelated ones (here n = 4,
+// C = 1: 1.25).
+func TestKrigingVariance(t *testing.T) {
+	pts := []orb.Point{{0, 0}, {10, 0}, {10, 10}, {0, 10}}
+	vals := []float64{1, 2, 3, 6}
+	k, err := NewKriging(pts, vals, KrigingOptions{Variogram: &Variogram{Model: Spherical, Sill: 1, Range: 1}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	z, v := k.PredictVariance(orb.Point{5, 5})
+	if math.Abs(z-3) > 1e-12 || math.Abs(v-1.25) > 1e-12 {
+		t.Errorf("pure nugget: z %v var %v, want 3 and 1.25", z, v)
+	}
+	k2, err := NewKriging(pts, vals, KrigingOptions{Variogram: &Variogram{Model: Exponential, Sill: 1, Range: 30}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, p := range pts {
+		z, v := k2.PredictVariance(p)
+		if math.Abs(z-vals[i]) > 1e-9 || v > 1e-9 {
+			t.Errorf("at well %d: z %v var %v", i, z, v)
+		}
+	}
+	zIn, vIn := k2.PredictVariance(orb.Point{5, 5})
+	_, vOut := k2.PredictVariance(orb.Point{40, 40})
+	if !(vIn > 0 && vOut > vIn) {
+		t.Errorf("variance inside %v, outside %v: want 0 < inside < outside", vIn, vOut)
+	}
+	if d := k2.Predict(orb.Point{5, 5}) - zIn; math.Abs(d) > 1e-9 {
+		t.Errorf("dual and primal estimates differ by %v", d)
+	}
+}
+
+func TestPlaceInFrame(t *testing.T) {
+	in := []orb.Point{{-101.15, 31.9}, {0, 0}, {-101.14, 31.905}, {math.NaN(), 31.9}, {-101.145, 95}}
+	f, xy, flags := PlaceInFrame(in)
+	wantErr := []error{nil, ErrNullIsland, nil, ErrCoordNotFinite, ErrLatRange}
+	for i, w := range wantErr {
+		if w == nil && flags[i] != nil || w != nil && !errors.Is(flags[i], w) {
+			t.Errorf("point %d: flag %v, want %v", i, flags[i], w)
+		}
+	}
+	// Projected distance matches the geodesic one (1096.4357 m by PROJ geod).
+	if d := planarDist(xy[0], xy[2]); math.Abs(d-1096.4357) > 0.01 {
+		t.Errorf("distance in frame %v m", d)
+	}
+	if math.Abs(f.Centre[0]+101.145) > 1e-9 || math.Abs(f.Centre[1]-31.9025) > 1e-9 {
+		t.Errorf("centre %v ignores flagged points wrongly", f.Centre)
+	}
+}

@@ -215,7 +215,14 @@ func TestSemarangAsDelivered(t *testing.T) {
 		t.Errorf("empty depth %d, screen %d; want 11, 18", emptyDepth, emptyScreen)
 	}
 	if len(sb219) != 2 || sb219[0].Line == sb219[1].Line || sb219[0].Sample.Analytes["Na"].Value == sb219[1].Sample.Analytes["Na"].Value {
-		t.Errorf("SB 219 rows: %d, want 2 kept apart", len(sb219))
+		t.Fatalf("SB 219 rows: %d, want 2 kept apart", len(sb219))
+	}
+	// SB 219 at (439824, 9230794) and (421500, 9229650): 18.4 km apart by
+	// Pythagoras on the file's own coordinates; both rows are warned.
+	for _, r := range sb219 {
+		if r.Status != StatusWarning || !hasIssue(r, Warning, "", "18.4 km away") {
+			t.Errorf("SB 219 line %d: %s %v", r.Line, r.Status, r.Issues)
+		}
 	}
 	// no 54, "30-35 & 48-53": top 30, bottom 53, with a warning.
 	r := byID["54"]

@@ -42,6 +42,12 @@ func ReadColumnMap(path string) (map[string]string, error) {
 	if strings.TrimSpace(text) == "" {
 		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrColumnMap, ErrEmpty)}
 	}
+	// gocsv matches header names exactly: lower-case the header line.
+	if i := strings.IndexByte(text, '\n'); i >= 0 {
+		text = strings.ToLower(text[:i]) + text[i:]
+	} else {
+		text = strings.ToLower(text)
+	}
 	cr := csv.NewReader(bytes.NewReader([]byte(text)))
 	cr.Comma = detectDelimiter(text)
 	cr.TrimLeadingSpace = true

@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"regexp"
 	"sort"
@@ -143,8 +144,11 @@ func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 		for i := range rec {
 			rec[i] = trimCell(rec[i])
 		}
-		if len(recs) == 0 && allEmpty(rec) {
-			continue // blank lines of delimiters before the header
+		if allEmpty(rec) {
+			// A line of bare delimiters (",,,,", common at the end of
+			// spreadsheet exports) is a blank line, as encoding/csv treats
+			// an empty line: not a row.
+			continue
 		}
 		recs = append(recs, rec)
 		lines = append(lines, line)
@@ -604,9 +608,6 @@ func (rd *reader) readWide(recs [][]string, lines []int) []Row {
 				row.add(Error, row.Line, "", "ragged row: %d fields, the header has %d (extra fields from column %d on)", len(rec), len(rd.header), len(rd.header)+1)
 			}
 		}
-		if allEmpty(rec) {
-			row.add(Error, row.Line, "", "row has no values")
-		}
 		for i, c := range rec {
 			if n := strings.Count(c, "\n"); n > 0 && i < len(rd.header) && len(rec) != len(rd.header) {
 				row.add(Error, row.Line, rd.header[i], "a quote opened here is not closed: lines %d-%d read as one row", row.Line, row.Line+n)
@@ -1062,12 +1063,13 @@ func (rd *reader) finishSample(row *Row) {
 	if s.ScreenTopM.OK && s.ScreenBottomM.OK && s.ScreenTopM.V > s.ScreenBottomM.V {
 		row.add(Warning, row.Line, "", "screen top %g m below screen bottom %g m", s.ScreenTopM.V, s.ScreenBottomM.V)
 	}
-	for col, v := range s.Extra {
-		if classOfHeader(rd, col) == pTime && !s.SampledAt.IsZero() && s.SampledAt.Hour() == 0 && s.SampledAt.Minute() == 0 {
+	// A separate time column completes a date without a time.
+	if tc := rd.timeHeader(); tc != "" {
+		if v, ok := s.Extra[tc]; ok && !s.SampledAt.IsZero() && s.SampledAt.Hour() == 0 && s.SampledAt.Minute() == 0 {
 			for _, l := range []string{"15:04:05", "15:04", "1504"} {
 				if t, err := time.Parse(l, v); err == nil {
 					s.SampledAt = s.SampledAt.Add(time.Duration(t.Hour())*time.Hour + time.Duration(t.Minute())*time.Minute + time.Duration(t.Second())*time.Second)
-					delete(s.Extra, col)
+					delete(s.Extra, tc)
 					break
 				}
 			}
@@ -1078,10 +1080,11 @@ func (rd *reader) finishSample(row *Row) {
 	}
 }
 
-func classOfHeader(rd *reader, h string) string {
-	for i, hh := range rd.header {
-		if hh == h {
-			return rd.specs[i].Param
+// timeHeader is the header of the time-of-day column, "" if none.
+func (rd *reader) timeHeader() string {
+	for i, sp := range rd.specs {
+		if sp.Param == pTime {
+			return rd.header[i]
 		}
 	}
 	return ""
@@ -1096,8 +1099,51 @@ func hasError(r *Row) bool {
 	return false
 }
 
-// markDuplicates warns on every row whose sample id is used again.
+// wellApartM is the distance beyond which two rows of one well id are taken
+// to be at different places (`common practice`: well coordinates from a
+// handheld GPS or a site plan agree within tens of metres).
+const wellApartM = 100
+
+// apartM returns the distance in metres between the locations of two
+// samples, and false when they cannot be compared.
+func apartM(a, b *Sample) (float64, bool) {
+	if a.Easting.OK && a.Northing.OK && b.Easting.OK && b.Northing.OK && a.EPSG == b.EPSG {
+		return math.Hypot(a.Easting.V-b.Easting.V, a.Northing.V-b.Northing.V), true
+	}
+	if a.Lat.OK && a.Lon.OK && b.Lat.OK && b.Lon.OK {
+		// Equirectangular approximation on a sphere of radius 6371 km
+		// (mean Earth radius), ample for a 100 m threshold.
+		const r = 6371000.0
+		lat := (a.Lat.V + b.Lat.V) / 2 * math.Pi / 180
+		dx := (a.Lon.V - b.Lon.V) * math.Pi / 180 * math.Cos(lat)
+		dy := (a.Lat.V - b.Lat.V) * math.Pi / 180
+		return r * math.Hypot(dx, dy), true
+	}
+	return 0, false
+}
+
+// markDuplicates warns on every row whose sample id is used again, and on
+// rows sharing a well id at places more than wellApartM apart (both rows
+// are kept as they are).
 func markDuplicates(rows []Row) {
+	wells := map[string][]int{}
+	for i, r := range rows {
+		if r.Sample.WellID != "" {
+			wells[r.Sample.WellID] = append(wells[r.Sample.WellID], i)
+		}
+	}
+	for id, idx := range wells {
+		for _, i := range idx {
+			for _, j := range idx {
+				if i == j {
+					continue
+				}
+				if d, ok := apartM(&rows[i].Sample, &rows[j].Sample); ok && d > wellApartM {
+					rows[i].add(Warning, rows[i].Line, "", "well id %q also on line %d, %.1f km away: two wells with one id, or a mislabel?", id, rows[j].Line, d/1000)
+				}
+			}
+		}
+	}
 	at := map[string][]int{}
 	for _, r := range rows {
 		if r.Sample.ID != "" {

@@ -499,3 +499,92 @@ func TestFieldsAndDates(t *testing.T) {
 		t.Errorf("EPSG %d", b.Rows[0].Sample.EPSG)
 	}
 }
+
+func TestQualifierAndLimitColumns(t *testing.T) {
+	in := "Sample,Ca,Ca_DL,Mn (ug/L),Mn flag,Cl\n" +
+		"A,<DL,0.4,>500,,10\n" + // Ca non-detect, limit from the DL column; Mn a lower bound
+		"B,2.5,0.4,3,J,10\n"
+	b := mustRead(t, in, Options{NonDetect: DL})
+	a := b.Rows[0]
+	if m := a.Sample.Analytes["Ca"]; !m.NonDetect || m.DetectionLimit != 0.4 || m.Value != 0.4 || !m.Substituted {
+		t.Errorf("Ca <DL with DL column: %+v", m)
+	}
+	if m := a.Sample.Analytes["Mn"]; m.Value != 500 || m.Qualifier != ">" || a.Status != StatusWarning || !hasIssue(a, Warning, "Mn (ug/L)", "greater than") {
+		t.Errorf("Mn >500: %+v %s %v", m, a.Status, a.Issues)
+	}
+	bb := b.Rows[1]
+	if m := bb.Sample.Analytes["Ca"]; m.NonDetect || m.Value != 2.5 || m.DetectionLimit != 0.4 {
+		t.Errorf("Ca 2.5: %+v", m)
+	}
+	if m := bb.Sample.Analytes["Mn"]; m.Qualifier != "J" || m.Substituted || bb.Status != StatusOK {
+		t.Errorf("Mn 3 J: %+v %s", m, bb.Status)
+	}
+	if b.Mapping[2].Param != "Ca.dl" || b.Mapping[4].Param != "Mn.qualifier" {
+		t.Errorf("mapping %+v", b.Mapping)
+	}
+}
+
+// Every row accounted for, in order, when the file ends in trouble: blank
+// delimiter-only lines are not rows; an unclosed quote is reported on the
+// row where it opens, naming its column and the lines it swallowed.
+func TestRowsAccountedFor(t *testing.T) {
+	in := "Sample,Ca,Cl\nA,1,2\n,,\nB,3,4\nC,\"5,6\nD,7,8\n"
+	b := mustRead(t, in, Options{})
+	if len(b.Rows) != 3 {
+		t.Fatalf("%d rows, want 3", len(b.Rows))
+	}
+	wantLines := []int{2, 4, 5}
+	for i, r := range b.Rows {
+		if r.Line != wantLines[i] {
+			t.Errorf("row %d on line %d, want %d", i, r.Line, wantLines[i])
+		}
+	}
+	if b.Rows[0].Status != StatusOK || b.Rows[1].Status != StatusOK {
+		t.Error("good rows not ok")
+	}
+	if r := b.Rows[2]; r.Status != StatusRejected || !hasIssue(r, Error, "Ca", "lines 5-7") {
+		t.Errorf("unclosed quote: %v", r.Issues)
+	}
+}
+
+// In the long shape a sample id that comes back after another sample is a
+// second sample: kept apart and warned.
+func TestLongDuplicateSamples(t *testing.T) {
+	in := "Sample\tParameter\tValue\nS1\tCa\t1\nS1\tCl\t2\nS2\tCa\t3\nS1\tCa\t4\nS1\tCa\t5\n"
+	b := mustRead(t, in, Options{})
+	if b.Shape != Long || len(b.Rows) != 3 {
+		t.Fatalf("shape %s, %d rows", b.Shape, len(b.Rows))
+	}
+	first, again := b.Rows[0], b.Rows[2]
+	if first.Line != 2 || again.Line != 5 || first.Sample.Analytes["Ca"].Value != 1 || again.Sample.Analytes["Ca"].Value != 4 {
+		t.Errorf("rows %+v / %+v", first, again)
+	}
+	if !hasIssue(first, Warning, "", "line 5") || !hasIssue(again, Warning, "", "line 2") {
+		t.Errorf("duplicate warnings: %v / %v", first.Issues, again.Issues)
+	}
+	// The repeated Ca on line 6 is warned against its sample with its line.
+	found := false
+	for _, is := range again.Issues {
+		found = found || is.Line == 6 && is.Column == "Parameter" && strings.Contains(is.Message, "repeated")
+	}
+	if !found {
+		t.Errorf("repeated parameter: %v", again.Issues)
+	}
+}
+
+func BenchmarkReadSemarang(b *testing.B) {
+	raw, err := os.ReadFile("../testdata/semarang_data_smg.csv")
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.SetBytes(int64(len(raw)))
+	for b.Loop() {
+		bt, err := Read(strings.NewReader(string(raw)), "x", Options{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		for i := range bt.Rows {
+			ChargeBalance(&bt.Rows[i].Sample)
+		}
+	}
+}

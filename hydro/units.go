@@ -251,10 +251,6 @@ func (a *analyte) checkUnit(u Unit) error {
 		if a.Z == 0 {
 			return fmt.Errorf("meq/L given for uncharged %s", a.Key)
 		}
-	case MolL, MmolL, UmolL, MolKgw, MmolKgw:
-		if a.Key == "Alk" {
-			return fmt.Errorf("alkalinity in %s: give it in meq/L or as CaCO3/HCO3", u.Conc)
-		}
 	}
 	if u.As != "" && u.As != a.Key {
 		if _, ok := a.Bases[u.As]; !ok {
@@ -275,7 +271,9 @@ type Solution struct {
 var Dilute = Solution{DensityKgL: 1, KgWaterPerL: 1}
 
 // MmolL returns the measurement in millimoles of the analyte per litre of
-// solution (for alkalinity, milliequivalents per litre).
+// solution (for alkalinity, milliequivalents per litre: alkalinity given in
+// mmol/L is read as mmol of H+ taken up per litre, i.e. meq/L, the way an
+// acid capacity to pH 4.3 is reported).
 func (m Measurement) MmolL(sol Solution) (float64, error) {
 	a, ok := analytes[m.Param]
 	if !ok {

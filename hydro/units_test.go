@@ -31,6 +31,8 @@ func TestConversions(t *testing.T) {
 		{"Alk as CaCO3, older masses", Measurement{Param: "Alk", Value: 100.0869, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute, 2, 2, 1e-5},
 		// Alkalinity in a mass unit with no basis is taken as CaCO3.
 		{"Alk default basis", Measurement{Param: "Alk", Value: 50.043, Unit: mgL}, Dilute, 1, 1, 1e-12},
+		// Alkalinity (acid capacity) in mmol/L is mmol H+ per litre = meq/L.
+		{"Alk mmol/L", Measurement{Param: "Alk", Value: 2.5, Unit: Unit{Conc: MmolL}}, Dilute, 2.5, 2.5, 1e-12},
 		// HCO3 = 1.008 + 12.011 + 47.997 = 61.016 g/mol.
 		{"Alk as HCO3", Measurement{Param: "Alk", Value: 61.016, Unit: Unit{Conc: MgL, As: "HCO3"}}, Dilute, 1, 1, 1e-12},
 		{"HCO3 ion", Measurement{Param: "HCO3", Value: 61.016, Unit: mgL}, Dilute, 1, 1, 1e-12},
@@ -108,7 +110,6 @@ func TestAlkalinityToBicarbonateHem(t *testing.T) {
 func TestUnitErrors(t *testing.T) {
 	tests := []Measurement{
 		{Param: "SiO2", Value: 1, Unit: Unit{Conc: MeqL}},           // no charge
-		{Param: "Alk", Value: 1, Unit: Unit{Conc: MmolL}},           // ambiguous
 		{Param: "Ca", Value: 1, Unit: Unit{Conc: MgL, As: "N"}},     // nonsense basis
 		{Param: "Cl", Value: 1, Unit: Unit{Conc: "furlongs"}},       // unknown
 		{Param: "Unobtainium", Value: 1, Unit: Unit{Conc: MgL}},     // unknown analyte

@@ -39,6 +39,13 @@ func parseNum(s string, decComma bool) (float64, error) {
 	if s == "" || s == "+" || s == "-" || s == "." || s == "," {
 		return 0, strconv.ErrSyntax
 	}
+	if plainNumber(s) {
+		v, err := strconv.ParseFloat(s, 64)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return 0, strconv.ErrSyntax
+		}
+		return v, nil
+	}
 	var t string
 	if !decComma {
 		switch {
@@ -75,6 +82,18 @@ func parseNum(s string, decComma bool) (float64, error) {
 		return 0, strconv.ErrRange
 	}
 	return v, nil
+}
+
+// plainNumber says whether s has only digits, '.', signs and exponent
+// marks (no separators to decide on).
+func plainNumber(s string) bool {
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		if !(c >= '0' && c <= '9' || c == '.' || c == '-' || c == '+' || c == 'e' || c == 'E') {
+			return false
+		}
+	}
+	return true
 }
 
 // cell is a parsed concentration cell.

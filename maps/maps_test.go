@@ -53,6 +53,7 @@ func TestRenderPNG(t *testing.T) {
 	wantH := int(testH.Points()*PNGDPI/72 + 0.5)
 	for name, f := range testFigures() {
 		t.Run(name, func(t *testing.T) {
+			t.Parallel()
 			b, err := Render(f, "png", testW, testH)
 			if err != nil {
 				t.Fatal(err)
@@ -194,6 +195,9 @@ func TestRenderErrors(t *testing.T) {
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
+			if c.w == testW && c.h == testH {
+				c.w, c.h = 4*vg.Centimeter, 3*vg.Centimeter // errors come before drawing
+			}
 			b, err := Render(c.fig, c.format, c.w, c.h)
 			if !errors.Is(err, c.want) {
 				t.Errorf("error %v, want %v", err, c.want)

@@ -187,7 +187,9 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 		p := newPlot()
 		p.X.Label.Text = "SI (log IAP/K)"
 		p.X.Tick.Marker = siTicks{n: 4}
-		x0, x1 := -band, band
+		// Show at least twice the band so the near-equilibrium strip reads as
+		// a strip, not as the background.
+		x0, x1 := -2*band, 2*band
 		for _, l := range pd.lines {
 			for _, q := range l {
 				x0, x1 = math.Min(x0, q.X), math.Max(x1, q.X)

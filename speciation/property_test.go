@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"reflect"
+	"strings"
 	"testing"
 )
 
@@ -20,6 +21,7 @@ func TestJacobianFiniteDifference(t *testing.T) {
 		if err := s.setup(&w); err != nil {
 			t.Fatal(err)
 		}
+		s.initialGuess(0)
 		n := s.n
 		u := append([]float64(nil), s.u[:n]...)
 		u[s.iCol] *= 1.3 // away from the solution
@@ -128,6 +130,12 @@ func TestRandomWatersConvergeOrError(t *testing.T) {
 				t.Fatalf("water %d: error %T %v", i, err, err)
 			}
 			failures++
+			if strings.Contains(se.Reason, "stalled with") || strings.Contains(se.Reason, "no convergence after") || errors.Is(err, ErrSingular) {
+				t.Errorf("water %d: unexplained failure: %v", i, err)
+			}
+			if testing.Verbose() {
+				t.Logf("water %d (%s, cb=%v ion=%q eq=%d): %v", i, s.model.Name(), w.PHFromChargeBalance, w.ChargeBalanceIon, len(w.equilibria), err)
+			}
 			continue
 		}
 		checkFinite(t, "random water", &res)
@@ -145,9 +153,48 @@ func TestRandomWatersConvergeOrError(t *testing.T) {
 			}
 		}
 	}
-	t.Logf("%d of %d random waters returned an error", failures, n)
-	if failures > n/20 {
-		t.Errorf("%d of %d random waters failed", failures, n)
+	t.Logf("%d of %d random waters returned an error (inconsistent inputs: alkalinity below the non-carbonate alkalinity, or a charge balance the chosen ion cannot close)", failures, n)
+}
+
+// Plausible groundwaters (charge balanced by chloride, pH 6-9, alkalinity 0.5-10 meq,
+// 0-60 C) must all converge, with every model, cold or warm.
+func TestPlausibleWatersConverge(t *testing.T) {
+	db := mustDefault(t)
+	rng := rand.New(rand.NewPCG(7, 11))
+	cations := []struct {
+		name string
+		z    float64
+		lo   float64
+		hi   float64
+	}{{"Ca+2", 2, -4, -2}, {"Mg+2", 2, -4.5, -2.3}, {"Na+", 1, -4, -1.5}, {"K+", 1, -5, -3}, {"Sr+2", 2, -6, -4},
+		{"Ba+2", 2, -7.5, -5.5}, {"Fe+2", 2, -7, -4}, {"Mn+2", 2, -7.5, -5}}
+	var res Result
+	for _, model := range []ActivityModel{Davies{}, TruesdellJones{}, Ideal{}} {
+		s := NewSolver(db, model)
+		for i := 0; i < 200; i++ {
+			s.WarmStart = i%3 != 0
+			w := Water{TempC: 60 * rng.Float64(), PH: 6 + 3*rng.Float64()}
+			eq := 0.0
+			for _, c := range cations {
+				m := math.Pow(10, c.lo+(c.hi-c.lo)*rng.Float64())
+				w.SetTotal(c.name, m)
+				eq += c.z * m
+			}
+			alk := math.Pow(10, -3.3+1.3*rng.Float64())
+			so4 := math.Pow(10, -4.5+2.5*rng.Float64())
+			f := math.Pow(10, -6+2*rng.Float64())
+			w.SetAlkalinity(alk)
+			w.SetTotal("SO4-2", so4)
+			w.SetTotal("F-", f)
+			w.SetTotal("H4SiO4", math.Pow(10, -4.5+1.5*rng.Float64()))
+			w.SetTotal("NO3-", math.Pow(10, -5+1.5*rng.Float64()))
+			w.SetTotal("Cl-", math.Max(eq-alk-2*so4-f, 1e-5))
+			if err := s.SolveInto(&res, &w); err != nil {
+				t.Errorf("%s water %d: %v", model.Name(), i, err)
+				continue
+			}
+			checkFinite(t, "plausible water", &res)
+		}
 	}
 }
 

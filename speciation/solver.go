@@ -69,6 +69,8 @@ type Solver struct {
 
 	compSp [][]spNu // species containing each component with nu > 0 (db order)
 	spPos  []int    // position of a db species among the active ones, -1 if inactive
+	hSp    int      // species index of H+
+	ohSp   int      // species index of OH-, or -1
 
 	// structure cache and warm start
 	structValid, warmValid bool
@@ -100,6 +102,7 @@ type Solver struct {
 	logAw   float64
 	lastRes float64
 	iters   int
+	debug   bool
 	evals   int
 	// phase rows: for each row (or -1) the phase index and target
 	rowPhase  []int
@@ -156,6 +159,8 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 		}
 	}
 	s.spPos = make([]int, ns)
+	s.hSp = db.SpeciesIndex(NameHPlus)
+	s.ohSp = db.SpeciesIndex("OH-")
 	s.colOff = make([]int, ns+1)
 	s.rowOff = make([]int, ns+1)
 	s.grow(nc + 1)
@@ -203,7 +208,7 @@ func (s *Solver) Solve(w *Water) (*Result, error) {
 func (s *Solver) SolveInto(res *Result, w *Water) error {
 	err := s.setup(w)
 	if err == nil {
-		err = s.newton()
+		err = s.solveWithRetries()
 	}
 	if err != nil {
 		clearResult(res)
@@ -211,6 +216,33 @@ func (s *Solver) SolveInto(res *Result, w *Water) error {
 	}
 	s.fill(res, w)
 	return nil
+}
+
+// solveWithRetries runs Newton from the warm start (if any), then from up to three
+// cold starting points: a charge-balance-aware guess, a gentle guess, and the gentle
+// guess with shorter steps. The first converged solution is kept.
+func (s *Solver) solveWithRetries() error {
+	var err error
+	if s.WarmStart && s.warmValid && s.warmStart() {
+		if err = s.newton(s.MaxStep); err == nil {
+			return nil
+		}
+	}
+	for attempt := 0; attempt < 3; attempt++ {
+		s.initialGuess(min(attempt, 1))
+		step := s.MaxStep
+		if attempt == 2 {
+			step = 0.5
+		}
+		var e error
+		if e = s.newton(step); e == nil {
+			return nil
+		}
+		if err == nil || attempt == 0 {
+			err = e
+		}
+	}
+	return err
 }
 
 func clearResult(res *Result) {
@@ -401,9 +433,6 @@ func (s *Solver) setup(w *Water) error {
 			}
 		}
 		s.cst[k] = c
-	}
-	if !(s.WarmStart && s.warmValid && s.warmStart()) {
-		s.initialGuess()
 	}
 	return nil
 }
@@ -598,7 +627,7 @@ func (s *Solver) phaseLogIAP(pi int, u []float64) float64 {
 
 // initialGuess fills s.u: free ≈ total, then a few continued-fraction sweeps at a fixed
 // ionic strength, then the ionic strength from the resulting molalities.
-func (s *Solver) initialGuess() {
+func (s *Solver) initialGuess(mode int) {
 	db := s.db
 	u := s.u[:s.n]
 	I := 0.0
@@ -636,18 +665,14 @@ func (s *Solver) initialGuess() {
 	for k := range s.eqPhase {
 		u[s.iCol+1+k] = 0
 	}
-	for sweep := 0; sweep < s.sweeps; sweep++ {
-		// phase-fixed components first: solve the phase equation for them
-		for ci := range s.role {
-			if s.role[ci] != rolePhase {
-				continue
-			}
-			pi := s.phaseOf[ci]
-			nu := nuOf(db.Minerals[pi].Terms, ci)
-			rest := s.phaseLogIAP(pi, u) - nu*u[s.col[ci]]
-			v := (s.phLogK[pi] + s.target[ci] - rest) / nu
-			u[s.col[ci]] = math.Max(math.Min(v, 1), -30)
+	sweeps := s.sweeps
+	for ci := range s.role {
+		if s.role[ci] == roleCharge || s.role[ci] == rolePhase {
+			sweeps = 3 * s.sweeps
 		}
+	}
+	for sweep := 0; sweep < sweeps; sweep++ {
+		s.applyPhaseFixes(u)
 		s.speciesMolalities(u)
 		// accumulate sums per row
 		for ci := range s.role {
@@ -655,7 +680,6 @@ func (s *Solver) initialGuess() {
 				s.R[r], s.scale[r] = 0, 0
 			}
 		}
-		pos, neg := 0.0, 0.0
 		for k := range s.act {
 			m := s.m[k]
 			for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
@@ -664,11 +688,6 @@ func (s *Solver) initialGuess() {
 					continue
 				}
 				s.R[r] += s.rowW[p] * m
-			}
-			if z := s.st.Charge[k]; z > 0 {
-				pos += z * m
-			} else {
-				neg -= z * m
 			}
 		}
 		for ci := range s.role {
@@ -687,27 +706,86 @@ func (s *Solver) initialGuess() {
 					d = math.Log10(s.alk / s.R[c])
 				}
 			case roleCharge:
-				if pos > 0 && neg > 0 {
-					d = 0.5 * math.Log10(neg/pos)
-					if db.Components[ci].Charge < 0 {
-						d = -d
+				Z := s.R[c] // sum z m
+				if ci == db.hplus && mode == 0 {
+					// Solve m(H+) - m(OH-) + D = 0 with m(H+) m(OH-) held at its current value.
+					mh, moh := 0.0, 0.0
+					if k := s.spPos[s.hSp]; k >= 0 {
+						mh = s.m[k]
+					}
+					if s.ohSp >= 0 {
+						if k := s.spPos[s.ohSp]; k >= 0 {
+							moh = s.m[k]
+						}
+					}
+					D := Z - mh + moh
+					kw := mh * moh
+					var mNew float64
+					if D > 0 {
+						mNew = 2 * kw / (D + math.Sqrt(D*D+4*kw))
+					} else {
+						mNew = (-D + math.Sqrt(D*D+4*kw)) / 2
+					}
+					if mh > 0 && mNew > 0 {
+						d = math.Log10(mNew / mh)
+					}
+				} else if ci == db.hplus {
+					// gentle: move toward balance by half the log ratio of the charges
+					pos, neg := 0.0, 0.0
+					for k := range s.act {
+						if z := s.st.Charge[k]; z > 0 {
+							pos += z * s.m[k]
+						} else {
+							neg -= z * s.m[k]
+						}
+					}
+					if pos > 0 && neg > 0 {
+						d = 0.5 * math.Log10(neg/pos)
+					}
+				} else {
+					sum := 0.0
+					for _, p := range s.compSp[ci] {
+						if k := s.spPos[p.sp]; k >= 0 {
+							sum += p.nu * s.m[k]
+						}
+					}
+					newT := math.Max(sum-Z/db.Components[ci].Charge, 1e-3*sum)
+					if sum > 0 {
+						d = math.Log10(newT / sum)
 					}
 				}
 			}
-			if d > 2 {
-				d = 2
-			} else if d < -2 {
-				d = -2
+			if d > 4 {
+				d = 4
+			} else if d < -4 {
+				d = -4
 			}
 			u[c] += d
 		}
 	}
+	s.applyPhaseFixes(u)
 	s.speciesMolalities(u)
 	I = 0
 	for k := range s.act {
 		I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * s.m[k]
 	}
 	u[s.iCol] = math.Max(I, 1e-9)
+}
+
+// applyPhaseFixes solves each phase equation for the component it fixes, given the
+// other activities.
+func (s *Solver) applyPhaseFixes(u []float64) {
+	db := s.db
+	for ci := range s.role {
+		if s.role[ci] != rolePhase {
+			continue
+		}
+		pi := s.phaseOf[ci]
+		nu := nuOf(db.Minerals[pi].Terms, ci)
+		rest := s.phaseLogIAP(pi, u) - nu*u[s.col[ci]]
+		v := (s.phLogK[pi] + s.target[ci] - rest) / nu
+		u[s.col[ci]] = math.Max(math.Min(v, 1), -30)
+	}
 }
 
 // evaluate computes residuals, scales and (if jac) the Jacobian at u, and returns the
@@ -805,20 +883,19 @@ func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
 	return norm, worst
 }
 
-func (s *Solver) newton() error {
+func (s *Solver) newton(maxStep float64) error {
 	n := s.n
 	u := s.u[:n]
 	maxIt := s.MaxIterations
 	if maxIt <= 0 {
 		maxIt = 200
 	}
-	maxStep := s.MaxStep
 	if maxStep <= 0 {
 		maxStep = 1.5
 	}
 	s.evals = 0
 	norm, worst := s.evaluate(u, true)
-	it := 0
+	it, stall := 0, 0
 	for ; it < maxIt; it++ {
 		if !finite(norm) {
 			return &SolveError{Reason: "non-finite residual", Iterations: it, Err: ErrNoConvergence}
@@ -863,6 +940,9 @@ func (s *Solver) newton() error {
 				f = maxStep / a
 			}
 		}
+		if s.debug {
+			fmt.Printf("du %.3g\n", du)
+		}
 		I := u[s.iCol]
 		if dI := du[s.iCol]; I+f*dI < 0.2*I {
 			f = 0.8 * I / -dI
@@ -883,16 +963,65 @@ func (s *Solver) newton() error {
 			}
 			f *= 0.5
 		}
+		if !(nTry < norm*(1-1e-6)) {
+			stall++
+		} else {
+			stall = 0
+		}
 		copy(u, try)
+		if stall >= 6 {
+			return &SolveError{Reason: s.diagnose(wTry), Iterations: it + 1, Err: ErrNoConvergence}
+		}
+		if s.debug {
+			fmt.Printf("it %d f %.3g norm %.3g worst %.3g I %.4g u %.3f\n", it, f, nTry, wTry, u[s.iCol], u)
+		}
 		norm, worst = nTry, wTry
 	}
 	return &SolveError{Reason: fmt.Sprintf("no convergence after %d iterations (largest relative balance error %.3g)", it, worst), Iterations: it, Err: ErrNoConvergence}
+}
+
+// diagnose explains a stalled solve: usually constraints that no composition can meet.
+func (s *Solver) diagnose(worst float64) string {
+	db := s.db
+	if c := db.carbonate; c >= 0 && s.role[c] == roleAlk {
+		nonCarb := 0.0
+		for k, si := range s.act {
+			if s.spPos[si] >= 0 && nuOf(db.Species[si].Terms, c) == 0 {
+				nonCarb += s.alkSp[si] * s.m[k]
+			}
+		}
+		if nonCarb >= s.alk {
+			return fmt.Sprintf("the alkalinity %.4g eq/kgw is not above the non-carbonate alkalinity %.4g eq/kgw (OH-, H3SiO4-, HF, HSO4-, hydroxide pairs) at this pH: no carbonate can satisfy it", s.alk, nonCarb)
+		}
+	}
+	for ci := range s.role {
+		if s.role[ci] != roleCharge {
+			continue
+		}
+		z := db.Components[ci].Charge
+		other := 0.0
+		for k, si := range s.act {
+			if nuOf(db.Species[si].Terms, ci) == 0 {
+				other += s.st.Charge[k] * s.m[k]
+			}
+		}
+		if ci == db.hplus {
+			return fmt.Sprintf("no pH closes the charge balance (stalled, largest relative balance error %.3g)", worst)
+		}
+		if other*z > 0 {
+			return fmt.Sprintf("the charge balance cannot be closed by adjusting %s: the other ions already carry %.4g eq/kgw of the same sign", db.Components[ci].Name, other)
+		}
+	}
+	return fmt.Sprintf("stalled with largest relative balance error %.3g", worst)
 }
 
 // checkBounds stops a solve that runs away: a component adjusted for charge balance
 // whose total would have to be negative, or a pH outside any water.
 func (s *Solver) checkBounds(u []float64, it int) error {
 	db := s.db
+	if c := db.carbonate; c >= 0 && s.role[c] == roleAlk && u[s.col[c]] < -20 {
+		return &SolveError{Reason: "the given alkalinity is below the non-carbonate alkalinity (OH-, H3SiO4-, ion pairs...) at this pH: no carbonate can satisfy it", Iterations: it, Err: ErrNoConvergence}
+	}
 	for ci := range s.role {
 		if s.role[ci] != roleCharge {
 			continue

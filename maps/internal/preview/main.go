@@ -29,14 +29,15 @@ func main() {
 	}
 	w, h := 16*vg.Centimeter, 12*vg.Centimeter
 	figs := map[string]maps.Figure{
-		"simap":       DemoMap(),
-		"simap-deg":   DemoMapDegrees(),
-		"wellsonly":   DemoWellsOnly(),
-		"profile":     DemoProfile(),
-		"mixing":      DemoMixing(),
-		"temperature": DemoTemperature(),
-		"bars":        DemoBars(),
-		"panels":      maps.Panels([]maps.Figure{DemoMap(), DemoWellsOnly()}, 2),
+		"simap":        DemoMap(),
+		"simap-deg":    DemoMapDegrees(),
+		"wellsonly":    DemoWellsOnly(),
+		"profile":      DemoProfile(),
+		"profile-elev": DemoProfileElevation(),
+		"mixing":       DemoMixing(),
+		"temperature":  DemoTemperature(),
+		"bars":         DemoBars(),
+		"panels":       maps.Panels([]maps.Figure{DemoMap(), DemoWellsOnly()}, 2),
 	}
 	for name, f := range figs {
 		for _, format := range []string{"png", "svg", "pdf"} {
@@ -223,4 +224,17 @@ func DemoBars() maps.Bars {
 		Secondary:   []float64{35.0, 0, 3.0, 0.2, 9.8},
 		PrimaryName: "alone", SecondaryName: "together",
 	}
+}
+
+func DemoProfileElevation() maps.DepthProfile {
+	d := DemoProfile()
+	d.Elevation = true
+	for _, p := range d.Panels {
+		for _, l := range p.Lines {
+			for i := range l.Depth {
+				l.Depth[i] = 212 - l.Depth[i] // ground at 212 m above datum
+			}
+		}
+	}
+	return d
 }

@@ -1,0 +1,542 @@
+package report
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"github.com/paulmach/orb"
+	"gonum.org/v1/plot/vg"
+
+	"gwsat/assess"
+	"gwsat/geo"
+	"gwsat/hydro"
+	"gwsat/maps"
+)
+
+// Position returns a sample's position in WGS84 longitude and latitude:
+// latitude/longitude as reported, or easting/northing converted from their
+// EPSG code. The error says why a sample cannot be placed.
+func Position(s *hydro.Sample) (orb.Point, error) {
+	switch {
+	case s.Lat.OK && s.Lon.OK:
+		p := orb.Point{s.Lon.V, s.Lat.V}
+		if err := geo.ValidLonLat(p); err != nil {
+			return p, err
+		}
+		return p, nil
+	case s.Easting.OK && s.Northing.OK:
+		if s.EPSG == 0 {
+			return orb.Point{}, errors.New("easting/northing without an EPSG code (give -epsg)")
+		}
+		p, err := geo.ToLonLat(s.Easting.V, s.Northing.V, s.EPSG)
+		if err != nil {
+			return p, err
+		}
+		return p, geo.ValidLonLat(p)
+	}
+	return orb.Point{}, errors.New("no coordinates")
+}
+
+// SiteOptions choose what BuildSite draws.
+type SiteOptions struct {
+	// Minerals to map and profile; nil chooses those whose SI crosses zero
+	// somewhere on site (at most MaxAutoMinerals, in data order).
+	Minerals []string
+	// Method is "kriging" (default; falls back to IDW when the variogram
+	// cannot be fitted) or "idw".
+	Method string
+	// Features are drawn on every map.
+	Features []geo.SiteFeature
+	// BandEdges split sample depths into zones mapped separately (metres
+	// below ground, increasing); nil finds zones from gaps in the depths.
+	BandEdges []float64
+	// ProfileRound is the sampling round shown in depth profiles; "" takes
+	// the last round.
+	ProfileRound string
+	// Model names the activity model for captions.
+	Model string
+}
+
+// MaxAutoMinerals caps the minerals chosen automatically.
+const MaxAutoMinerals = 6
+
+// Fig is one figure of the report.
+type Fig struct {
+	Stem    string // file name without extension
+	Title   string
+	Caption string
+	Figure  maps.Figure
+	W, H    vg.Length
+}
+
+// SurfaceRow describes one interpolated surface for the surfaces table.
+type SurfaceRow struct {
+	Mineral, Zone, Round, Method string
+	Wells                        int
+	CVRMSE                       float64
+	HasCV                        bool
+	Note                         string
+}
+
+// Site is what BuildSite makes: figures, the surfaces table and notes.
+type Site struct {
+	Minerals []string
+	Zones    []Zone
+	Figures  []Fig
+	Surfaces []SurfaceRow
+	Placed   int
+	Unplaced []string // "ID (reason)" for rows left off the maps
+	Notes    []string
+}
+
+// Zone is a depth interval mapped on its own.
+type Zone struct {
+	Top, Bottom float64
+	Label       string
+}
+
+type placedRec struct {
+	rec   *assess.Record
+	ll    orb.Point
+	xy    orb.Point
+	depth float64
+	hasD  bool
+}
+
+// BuildSite composes the SI maps and depth profiles of a run.
+func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site, error) {
+	site := &Site{}
+	var placed []placedRec
+	for i := range recs {
+		r := &recs[i]
+		s := r.Sample()
+		p, err := Position(s)
+		if err != nil {
+			site.Unplaced = append(site.Unplaced, fmt.Sprintf("%s line %d (%v)", s.ID, r.Row.Line, err))
+			continue
+		}
+		if r.Result == nil {
+			site.Unplaced = append(site.Unplaced, fmt.Sprintf("%s line %d (%s, no saturation indices)", s.ID, r.Row.Line, r.Status))
+			continue
+		}
+		d, ok := DepthM(s)
+		placed = append(placed, placedRec{rec: r, ll: p, depth: d, hasD: ok})
+	}
+	site.Placed = len(placed)
+	if len(placed) == 0 {
+		return site, errors.New("report: no sample has both a position and saturation indices: no maps drawn")
+	}
+	var lls []orb.Point
+	for _, p := range placed {
+		lls = append(lls, p.ll)
+	}
+	frame := geo.NewLocalFrame(lls)
+	for i := range placed {
+		placed[i].xy = frame.Forward(placed[i].ll)
+	}
+	feats := projectFeatures(frame, opt.Features)
+
+	if opt.Minerals != nil {
+		site.Minerals = opt.Minerals
+	} else {
+		site.Minerals = crossingZero(placed, minerals)
+	}
+	if len(site.Minerals) == 0 {
+		site.Notes = append(site.Notes, "no mineral's saturation index crosses zero on site: no maps drawn (choose minerals with -minerals)")
+		return site, nil
+	}
+	site.Zones = depthZones(placed, opt.BandEdges)
+	rounds := roundsOf(placed)
+
+	for _, m := range site.Minerals {
+		for _, z := range site.Zones {
+			var panels []maps.Figure
+			for _, rd := range rounds {
+				var pts []orb.Point
+				var vals []float64
+				var wells []maps.Well
+				for _, p := range placed {
+					if p.rec.Sample().Round != rd || !z.contains(p) {
+						continue
+					}
+					si, ok := p.rec.Result.SI(m)
+					if !ok {
+						continue
+					}
+					pts = append(pts, p.xy)
+					vals = append(vals, si)
+					wells = append(wells, maps.Well{X: p.xy[0], Y: p.xy[1], SI: si, Label: wellLabel(p.rec.Sample())})
+				}
+				if len(wells) == 0 {
+					continue
+				}
+				sm := maps.SIMap{Title: panelTitle(m, rd, z), Wells: wells, Features: feats, Units: maps.UnitsMetres, NorthArrow: true, ScaleBar: true}
+				row := SurfaceRow{Mineral: m, Zone: z.Label, Round: rd, Wells: len(wells)}
+				surf, err := interpolate(pts, vals, opt.Method)
+				if err != nil {
+					row.Method = "none"
+					row.Note = err.Error()
+				} else {
+					row.Method, row.CVRMSE, row.HasCV = surf.Method, surf.CVRMSE, true
+					sm.Grid = toMapGrid(surf.Grid)
+					sm.CVRMSE, sm.HasCV = surf.CVRMSE, true
+				}
+				site.Surfaces = append(site.Surfaces, row)
+				panels = append(panels, sm)
+			}
+			if len(panels) == 0 {
+				continue
+			}
+			// One colour scale for all panels of a figure, so rounds compare.
+			lim := colourLimit(panels)
+			for i := range panels {
+				sm := panels[i].(maps.SIMap)
+				sm.Limit = lim
+				panels[i] = sm
+			}
+			cap := fmt.Sprintf("%s saturation index, %s; each panel one sampling round; speciated at each sample's temperature with the %s model. "+
+				"Blue: undersaturated (may dissolve); orange: supersaturated (may deposit); black line: SI = 0.", m, z.Label, opt.Model)
+			if n := len(site.Unplaced); n > 0 {
+				cap += fmt.Sprintf(" %d row(s) without a usable position or result not shown.", n)
+			}
+			if n := noDepthCount(placed); n > 0 && z.Label != noDepthZone {
+				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone maps.", n)
+			}
+			site.Figures = append(site.Figures, Fig{
+				Stem: "map_" + slug(m) + "_" + slug(z.Label), Title: fmt.Sprintf("%s, %s", m, z.Label), Caption: cap,
+				Figure: maps.Panels(panels, len(panels)), W: vg.Length(len(panels)) * 14 * vg.Centimeter, H: 13 * vg.Centimeter,
+			})
+		}
+	}
+	site.Figures = append(site.Figures, profiles(placed, site.Minerals, rounds, opt)...)
+	return site, nil
+}
+
+func (z Zone) contains(p placedRec) bool {
+	if !p.hasD {
+		return z.Label == noDepthZone
+	}
+	return p.depth >= z.Top && p.depth < z.Bottom
+}
+
+const noDepthZone = "depth not reported"
+
+func interpolate(pts []orb.Point, vals []float64, method string) (*geo.Surface, error) {
+	if method == "idw" {
+		return geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
+	}
+	s, err := geo.InterpolateKriging(pts, vals, geo.GridOptions{}, geo.KrigingOptions{})
+	if err != nil && !errors.Is(err, geo.ErrTooFewWells) {
+		return geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
+	}
+	return s, err
+}
+
+func toMapGrid(g *geo.Grid) *maps.Grid {
+	mg := &maps.Grid{X0: g.X0, Y0: g.Y0, DX: g.DX, DY: g.DY, NX: g.NX, NY: g.NY,
+		Z: make([]float64, len(g.Values)), Valid: make([]bool, len(g.Values))}
+	for j := 0; j < g.NY; j++ {
+		for i := 0; i < g.NX; i++ {
+			if v, ok := g.At(i, j); ok {
+				mg.Z[j*g.NX+i], mg.Valid[j*g.NX+i] = v, true
+			}
+		}
+	}
+	return mg
+}
+
+func projectFeatures(frame geo.LocalFrame, fs []geo.SiteFeature) []maps.Feature {
+	var out []maps.Feature
+	for _, f := range fs {
+		g := frame.ProjectGeometry(f.Geometry)
+		add := func(kind string, pts []orb.Point) {
+			mf := maps.Feature{Kind: kind, Name: f.Name}
+			for _, p := range pts {
+				mf.Coords = append(mf.Coords, [2]float64{p[0], p[1]})
+			}
+			out = append(out, mf)
+		}
+		switch g := g.(type) {
+		case orb.Point:
+			add(maps.FeaturePoint, []orb.Point{g})
+		case orb.MultiPoint:
+			for _, p := range g {
+				add(maps.FeaturePoint, []orb.Point{p})
+			}
+		case orb.LineString:
+			add(maps.FeatureLine, g)
+		case orb.MultiLineString:
+			for _, l := range g {
+				add(maps.FeatureLine, l)
+			}
+		case orb.Polygon:
+			if len(g) > 0 {
+				add(maps.FeaturePolygon, g[0])
+			}
+		case orb.MultiPolygon:
+			for _, pg := range g {
+				if len(pg) > 0 {
+					add(maps.FeaturePolygon, pg[0])
+				}
+			}
+		}
+	}
+	return out
+}
+
+// crossingZero returns the minerals whose SI is below zero at one placed
+// sample and above zero at another.
+func crossingZero(placed []placedRec, minerals []string) []string {
+	var out []string
+	for _, m := range minerals {
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for _, p := range placed {
+			if si, ok := p.rec.Result.SI(m); ok {
+				lo, hi = math.Min(lo, si), math.Max(hi, si)
+			}
+		}
+		if lo < 0 && hi > 0 {
+			out = append(out, m)
+			if len(out) == MaxAutoMinerals {
+				break
+			}
+		}
+	}
+	return out
+}
+
+// depthZones splits the sampled depths into zones: given edges, or breaks
+// at gaps wider than a quarter of the depth range and at least 10 m
+// (common practice for nested monitoring wells; one zone when depths are
+// continuous). Samples without depth form their own zone.
+func depthZones(placed []placedRec, edges []float64) []Zone {
+	var ds []float64
+	noDepth := false
+	for _, p := range placed {
+		if p.hasD {
+			ds = append(ds, p.depth)
+		} else {
+			noDepth = true
+		}
+	}
+	var zones []Zone
+	if len(edges) >= 2 {
+		for i := 0; i+1 < len(edges); i++ {
+			zones = append(zones, Zone{Top: edges[i], Bottom: edges[i+1], Label: fmt.Sprintf("%g-%g m depth", edges[i], edges[i+1])})
+		}
+	} else if len(ds) > 0 {
+		sort.Float64s(ds)
+		gap := math.Max(10, (ds[len(ds)-1]-ds[0])/4)
+		start := 0
+		for i := 1; i <= len(ds); i++ {
+			if i == len(ds) || ds[i]-ds[i-1] > gap {
+				top, bot := ds[start], ds[i-1]
+				lbl := fmt.Sprintf("%.0f-%.0f m depth", top, bot)
+				if top == bot {
+					lbl = fmt.Sprintf("%.0f m depth", top)
+				}
+				zones = append(zones, Zone{Top: top, Bottom: math.Nextafter(bot, math.Inf(1)), Label: lbl})
+				start = i
+			}
+		}
+	}
+	if noDepth && len(ds) == 0 {
+		// Only when no sample reports a depth: one zone for the whole site.
+		zones = append(zones, Zone{Label: noDepthZone})
+	}
+	return zones
+}
+
+func roundsOf(placed []placedRec) []string {
+	seen := map[string]bool{}
+	var out []string
+	for _, p := range placed {
+		r := p.rec.Sample().Round
+		if !seen[r] {
+			seen[r] = true
+			out = append(out, r)
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool { return naturalLess(out[i], out[j]) })
+	return out
+}
+
+// naturalLess orders "2" before "10" and text alphabetically.
+func naturalLess(a, b string) bool {
+	var x, y float64
+	_, ea := fmt.Sscanf(a, "%g", &x)
+	_, eb := fmt.Sscanf(b, "%g", &y)
+	if ea == nil && eb == nil {
+		return x < y
+	}
+	return a < b
+}
+
+func panelTitle(m, round string, z Zone) string {
+	if round == "" {
+		return m
+	}
+	return fmt.Sprintf("%s, round %s", m, round)
+}
+
+func wellLabel(s *hydro.Sample) string {
+	if s.WellID != "" {
+		return s.WellID
+	}
+	return s.ID
+}
+
+func slug(s string) string {
+	return strings.TrimPrefix(ColumnName(s), "si_")
+}
+
+// clusterOf returns the well cluster of a sample: a "Cluster" column when
+// the file has one, else "" (one cluster for the whole site).
+func clusterOf(s *hydro.Sample) string {
+	for k, v := range s.Extra {
+		if strings.EqualFold(strings.TrimSpace(k), "cluster") {
+			return strings.TrimSpace(v)
+		}
+	}
+	return ""
+}
+
+// profiles draws SI against depth per well cluster, one line per nest
+// (wells within 10 m of each other), for one sampling round.
+func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []Fig {
+	round := opt.ProfileRound
+	if round == "" && len(rounds) > 0 {
+		round = rounds[len(rounds)-1]
+	}
+	byCluster := map[string][]placedRec{}
+	var order []string
+	for _, p := range placed {
+		if !p.hasD || p.rec.Sample().Round != round {
+			continue
+		}
+		c := clusterOf(p.rec.Sample())
+		if _, ok := byCluster[c]; !ok {
+			order = append(order, c)
+		}
+		byCluster[c] = append(byCluster[c], p)
+	}
+	sort.Strings(order)
+	var figs []Fig
+	for _, c := range order {
+		nests := nestsOf(byCluster[c])
+		var panels []maps.ProfilePanel
+		for _, m := range minerals {
+			pp := maps.ProfilePanel{Mineral: m}
+			for _, n := range nests {
+				line := maps.ProfileLine{Label: n.label}
+				sort.Slice(n.members, func(i, j int) bool { return n.members[i].depth < n.members[j].depth })
+				for _, p := range n.members {
+					if si, ok := p.rec.Result.SI(m); ok {
+						line.Depth = append(line.Depth, p.depth)
+						line.SI = append(line.SI, si)
+					}
+				}
+				if len(line.Depth) > 0 {
+					pp.Lines = append(pp.Lines, line)
+				}
+			}
+			panels = append(panels, pp)
+		}
+		name := c
+		if name == "" {
+			name = "site"
+		}
+		title := fmt.Sprintf("Cluster %s, round %s", name, round)
+		if c == "" {
+			title = fmt.Sprintf("All wells, round %s", round)
+		}
+		figs = append(figs, Fig{
+			Stem:  "profile_" + slug(name),
+			Title: title,
+			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
+				maps.DefaultBand, opt.Model),
+			Figure: maps.DepthProfile{Title: title, Panels: panels},
+			W:      vg.Length(len(panels))*5*vg.Centimeter + 3*vg.Centimeter, H: 11 * vg.Centimeter,
+		})
+	}
+	return figs
+}
+
+type nest struct {
+	label   string
+	at      orb.Point
+	members []placedRec
+}
+
+// nestsOf groups wells standing within 10 m of each other (a nest of wells
+// screened at different depths); the label is the well ids' common prefix.
+func nestsOf(ps []placedRec) []*nest {
+	var out []*nest
+	for _, p := range ps {
+		var hit *nest
+		for _, n := range out {
+			if math.Hypot(n.at[0]-p.xy[0], n.at[1]-p.xy[1]) < 10 {
+				hit = n
+				break
+			}
+		}
+		if hit == nil {
+			hit = &nest{at: p.xy}
+			out = append(out, hit)
+		}
+		hit.members = append(hit.members, p)
+	}
+	for _, n := range out {
+		ids := make([]string, len(n.members))
+		for i, p := range n.members {
+			ids[i] = wellLabel(p.rec.Sample())
+		}
+		n.label = commonPrefix(ids)
+	}
+	sort.Slice(out, func(i, j int) bool { return out[i].label < out[j].label })
+	return out
+}
+
+func commonPrefix(ids []string) string {
+	if len(ids) == 1 {
+		return ids[0]
+	}
+	p := ids[0]
+	for _, s := range ids[1:] {
+		for !strings.HasPrefix(s, p) {
+			p = p[:len(p)-1]
+		}
+	}
+	p = strings.TrimRight(p, "-_ ./")
+	if p == "" {
+		return ids[0] + "..."
+	}
+	return p
+}
+
+func noDepthCount(placed []placedRec) int {
+	n := 0
+	for _, p := range placed {
+		if !p.hasD {
+			n++
+		}
+	}
+	return n
+}
+
+// colourLimit is the largest |SI| of the wells in the panels, rounded up to
+// a multiple of 0.5 and at least 0.5, so every panel shares one scale.
+func colourLimit(panels []maps.Figure) float64 {
+	m := 0.0
+	for _, f := range panels {
+		for _, w := range f.(maps.SIMap).Wells {
+			if !math.IsNaN(w.SI) && !math.IsInf(w.SI, 0) {
+				m = math.Max(m, math.Abs(w.SI))
+			}
+		}
+	}
+	return math.Max(0.5, math.Ceil(m/0.5)*0.5)
+}
