@@ -38,7 +38,7 @@ func ExampleRead() {
 	// "Ca (mg/L)" -> Ca [mg/L]
 	// "Ba (µg/L)" -> Ba [ug/L]
 	// line 2 A-1 ok
-	//    info: column "Ba (µg/L)": Ba (µg/L): non-detect "<5": half the detection limit, 2.5 ug/L, used (policy half-dl)
+	//    info: column "Ba (µg/L)": non-detect "<5": half the detection limit, 2.5 ug/L, used (policy half-dl)
 	// line 3 A-2 rejected
 	//    error: column "pH field": pH 15.1 outside 0-14
 	// line 4 A-3 ok

@@ -298,6 +298,9 @@ func decideDecimal(forced, delim rune, recs [][]string, rd *reader) bool {
 			if i < len(rd.specs) && (rd.specs[i].Class == clText || rd.specs[i].Class == clDate || rd.specs[i].Class == clLongParam) {
 				continue
 			}
+			if c == "" || plainNumber(c) && !strings.Contains(c, ".") {
+				continue
+			}
 			if reCommaDec.MatchString(c) {
 				commas++
 			} else if rePointDec.MatchString(c) {
@@ -348,7 +351,6 @@ type reader struct {
 	dlCol      []int // per analyte column: its detection-limit column or -1
 	// long shape
 	paramCol, valueCol, unitCol, lqualCol, ldlCol int
-	longSeen                                      map[string]bool
 }
 
 func (rd *reader) fatal(err error, col int, field string) error {
@@ -408,7 +410,7 @@ func (rd *reader) mapHeader() error {
 		}
 		if p == pID && has(pWellID) < 0 {
 			rd.specs[j].Param = pWellID
-			rd.specs[j].Note = "bare \"id\" beside a sample-number column: taken as the well id"
+			rd.specs[j].Note = "bare \"id\" beside another sample-id column: taken as the well id"
 			continue
 		}
 		rd.specs[j] = colSpec{Note: "another column is the sample id; kept unmapped"}
@@ -636,7 +638,7 @@ func (rd *reader) readWide(recs [][]string, lines []int) []Row {
 				rd.setConc(&row, row.Line, rd.header[i], rd.header[i], sp, c, q, dl)
 				continue
 			}
-			rd.setField(&row, row.Line, rd.header[i], sp, c)
+			rd.setField(&row, row.Line, rd.header[i], rd.header[i], sp, c)
 		}
 		rd.finishSample(&row)
 		rows = append(rows, row)
@@ -719,7 +721,7 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 			if sp.Class == clConc {
 				rd.setConc(row, line, rd.header[i], rd.header[i], sp, c, "", "")
 			} else {
-				rd.setField(row, line, rd.header[i], sp, c)
+				rd.setField(row, line, rd.header[i], rd.header[i], sp, c)
 			}
 		}
 		name := get(rd.paramCol)
@@ -767,10 +769,16 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 			continue
 		}
 		seenParam[sp.Param] = line
+		if sp.UnitErr != "" && unit != "" && rd.unitCol >= 0 {
+			if val != "" {
+				row.add(Error, line, rd.header[rd.unitCol], "%s: unknown unit %q", name, unit)
+			}
+			continue
+		}
 		if sp.Class == clConc {
 			rd.setConc(row, line, valCol, name, sp, val, get(rd.lqualCol), get(rd.ldlCol))
 		} else {
-			rd.setField(row, line, name, sp, val)
+			rd.setField(row, line, valCol, name, sp, val)
 		}
 	}
 	flush()
@@ -822,11 +830,16 @@ func withUnit(sp colSpec, unit string) colSpec {
 // parameter as written.
 func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw, qual, dlRaw string) {
 	a := analytes[sp.Param]
+	// In the long shape the column is "Value": name the parameter too.
+	pre := ""
+	if name != col {
+		pre = name + ": "
+	}
 	c, err := parseConcCell(raw, rd.decComma)
 	if err != nil {
-		msg := fmt.Sprintf("%s: not a number: %q", name, raw)
+		msg := fmt.Sprintf("%snot a number: %q", pre, raw)
 		if errors.Is(err, errAmbiguous) {
-			msg = fmt.Sprintf("%s: ambiguous number %q (thousands separator or decimal comma?)", name, raw)
+			msg = fmt.Sprintf("%sambiguous number %q (thousands separator or decimal comma?)", pre, raw)
 		}
 		row.add(Error, line, col, "%s", msg)
 		return
@@ -837,7 +850,7 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 	}
 	u := sp.Unit
 	if sp.UnitErr != "" {
-		row.add(Error, line, col, "%s: unknown unit %q", name, sp.UnitErr)
+		row.add(Error, line, col, "%sunknown unit %q", pre, sp.UnitErr)
 		return
 	}
 	if u.Conc == "" {
@@ -847,7 +860,7 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 		u.As = a.DefaultAs
 	}
 	if err := a.checkUnit(u); err != nil {
-		row.add(Error, line, col, "%s: unit %s: %v", name, u, err)
+		row.add(Error, line, col, "%sunit %s: %v", pre, u, err)
 		return
 	}
 	m := Measurement{Unit: u, Raw: raw, Param: sp.Param, Column: name, Qualifier: c.qualifier}
@@ -864,11 +877,11 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 		if v, err := parseNum(dlRaw, rd.decComma); err == nil && v >= 0 {
 			m.DetectionLimit = v
 		} else {
-			row.add(Warning, line, col, "%s: detection limit %q is not a non-negative number; ignored", name, dlRaw)
+			row.add(Warning, line, col, "%sdetection limit %q is not a non-negative number; ignored", pre, dlRaw)
 		}
 	}
 	if c.value < 0 {
-		row.add(Error, line, col, "%s: negative concentration %s", name, raw)
+		row.add(Error, line, col, "%snegative concentration %s", pre, raw)
 		return
 	}
 	if c.nonDetect {
@@ -880,31 +893,35 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 		switch {
 		case rd.opt.NonDetect == Zero:
 			m.Value = 0
-			row.add(Info, line, col, "%s: non-detect %q: 0 used (policy zero)", name, strings.TrimSpace(raw+" "+qual))
+			row.add(Info, line, col, "%snon-detect %q: 0 used (policy zero)", pre, strings.TrimSpace(raw+" "+qual))
 		case m.DetectionLimit > 0 && rd.opt.NonDetect == DL:
 			m.Value = m.DetectionLimit
-			row.add(Info, line, col, "%s: non-detect %q: detection limit %g %s used (policy dl)", name, strings.TrimSpace(raw+" "+qual), m.Value, u)
+			row.add(Info, line, col, "%snon-detect %q: detection limit %g %s used (policy dl)", pre, strings.TrimSpace(raw+" "+qual), m.Value, u)
 		case m.DetectionLimit > 0:
 			m.Value = m.DetectionLimit / 2
-			row.add(Info, line, col, "%s: non-detect %q: half the detection limit, %g %s, used (policy half-dl)", name, strings.TrimSpace(raw+" "+qual), m.Value, u)
+			row.add(Info, line, col, "%snon-detect %q: half the detection limit, %g %s, used (policy half-dl)", pre, strings.TrimSpace(raw+" "+qual), m.Value, u)
 		default:
 			m.Value = 0
-			row.add(Warning, line, col, "%s: non-detect %q without a detection limit: 0 used", name, strings.TrimSpace(raw+" "+qual))
+			row.add(Warning, line, col, "%snon-detect %q without a detection limit: 0 used", pre, strings.TrimSpace(raw+" "+qual))
 		}
 	} else {
 		m.Value = c.value
 		if c.greater {
-			row.add(Warning, line, col, "%s: reported as greater than %g; that bound used", name, c.value)
+			row.add(Warning, line, col, "%sreported as greater than %g; that bound used", pre, c.value)
 		} else if m.Qualifier != "" {
-			row.add(Info, line, col, "%s: lab qualifier %q", name, m.Qualifier)
+			row.add(Info, line, col, "%slab qualifier %q", pre, m.Qualifier)
 		}
 	}
 	row.Sample.Analytes[sp.Param] = m
 }
 
 // setField reads one non-analyte cell into the sample.
-func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw string) {
+func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw string) {
 	s := &row.Sample
+	pre := ""
+	if name != col {
+		pre = name + ": "
+	}
 	if raw == "" {
 		return
 	}
@@ -925,7 +942,7 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		s.SampledAtRaw = raw
 		t, err := parseDate(raw, rd.dateOrder)
 		if err != nil {
-			row.add(Warning, line, col, "%v", err)
+			row.add(Warning, line, col, "%s%v", pre, err)
 			return
 		}
 		s.SampledAt = t
@@ -934,7 +951,7 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		t := strings.TrimSpace(strings.TrimPrefix(strings.ToUpper(raw), "EPSG:"))
 		v, err := strconv.Atoi(t)
 		if err != nil || v <= 0 {
-			row.add(Warning, line, col, "EPSG code %q is not a positive integer; ignored", raw)
+			row.add(Warning, line, col, "%sEPSG code %q is not a positive integer; ignored", pre, raw)
 			return
 		}
 		s.EPSG = v
@@ -943,7 +960,7 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		s.ScreenRaw = raw
 		top, bot, n, err := parseScreen(raw, rd.decComma)
 		if err != nil {
-			row.add(Warning, line, col, "%v; screen left empty", err)
+			row.add(Warning, line, col, "%s%v; screen left empty", pre, err)
 			return
 		}
 		conv := sp.FUnit.conv
@@ -953,9 +970,9 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		s.ScreenTopM, s.ScreenBottomM = Some(conv(top)), Some(conv(bot))
 		switch {
 		case n == 1:
-			row.add(Warning, line, col, "screen %q is a single depth; used as top and bottom", raw)
+			row.add(Warning, line, col, "%sscreen %q is a single depth; used as top and bottom", pre, raw)
 		case n > 2:
-			row.add(Warning, line, col, "screen %q has several intervals; overall top %g and bottom %g used", raw, top, bot)
+			row.add(Warning, line, col, "%sscreen %q has several intervals; overall top %g and bottom %g used", pre, raw, top, bot)
 		}
 		return
 	}
@@ -964,12 +981,12 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		sev = Error
 	}
 	if sp.UnitErr != "" {
-		row.add(sev, line, col, "unknown unit %q", sp.UnitErr)
+		row.add(sev, line, col, "%sunknown unit %q", pre, sp.UnitErr)
 		return
 	}
 	v, err := parseNum(raw, rd.decComma)
 	if err != nil {
-		row.add(sev, line, col, "not a number: %q", raw)
+		row.add(sev, line, col, "%snot a number: %q", pre, raw)
 		return
 	}
 	if sp.FUnit.conv != nil {
@@ -979,13 +996,13 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 	case pTemp:
 		// Supported range of the chemistry: 0-100 C (DESIGN.md).
 		if v < 0 || v > 100 {
-			row.add(Error, line, col, "temperature %g C outside 0-100 C", v)
+			row.add(Error, line, col, "%stemperature %g C outside 0-100 C", pre, v)
 			return
 		}
 		s.TempC = Some(v)
 	case pPHField, pPHLab:
 		if v < 0 || v > 14 {
-			row.add(Error, line, col, "pH %g outside 0-14", v)
+			row.add(Error, line, col, "%spH %g outside 0-14", pre, v)
 			return
 		}
 		if sp.Param == pPHField {
@@ -995,32 +1012,32 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		}
 	case pSpecCond:
 		if v < 0 {
-			row.add(Error, line, col, "negative specific conductance %g", v)
+			row.add(Error, line, col, "%snegative specific conductance %g", pre, v)
 			return
 		}
 		s.SpecCondUScm = Some(v)
 	case pTDS:
 		if v < 0 {
-			row.add(Error, line, col, "negative TDS %g", v)
+			row.add(Error, line, col, "%snegative TDS %g", pre, v)
 			return
 		}
 		s.TDSMgL = Some(v)
 	case pDensity:
 		// Natural waters and brines: about 0.95-1.4 kg/L (common practice).
 		if v < 0.9 || v > 1.5 {
-			row.add(Error, line, col, "density %g kg/L outside 0.9-1.5", v)
+			row.add(Error, line, col, "%sdensity %g kg/L outside 0.9-1.5", pre, v)
 			return
 		}
 		s.Density = Some(v)
 	case pLat:
 		if v < -90 || v > 90 {
-			row.add(Warning, line, col, "latitude %g outside -90..90; ignored", v)
+			row.add(Warning, line, col, "%slatitude %g outside -90..90; ignored", pre, v)
 			return
 		}
 		s.Lat = Some(v)
 	case pLon:
 		if v < -180 || v > 360 {
-			row.add(Warning, line, col, "longitude %g outside -180..360; ignored", v)
+			row.add(Warning, line, col, "%slongitude %g outside -180..360; ignored", pre, v)
 			return
 		}
 		if v > 180 {
@@ -1035,7 +1052,7 @@ func (rd *reader) setField(row *Row, line int, col string, sp colSpec, raw strin
 		s.GroundElevM = Some(v)
 	case pDepth, pScreenTop, pScreenBottom:
 		if v < 0 {
-			row.add(Warning, line, col, "negative depth %g", v)
+			row.add(Warning, line, col, "%snegative depth %g", pre, v)
 		}
 		switch sp.Param {
 		case pDepth:
@@ -1132,15 +1149,26 @@ func markDuplicates(rows []Row) {
 			wells[r.Sample.WellID] = append(wells[r.Sample.WellID], i)
 		}
 	}
+	// Each row is compared with the first located row of its well (linear
+	// in the number of rows).
 	for id, idx := range wells {
+		anchor := -1
 		for _, i := range idx {
-			for _, j := range idx {
-				if i == j {
-					continue
-				}
-				if d, ok := apartM(&rows[i].Sample, &rows[j].Sample); ok && d > wellApartM {
-					rows[i].add(Warning, rows[i].Line, "", "well id %q also on line %d, %.1f km away: two wells with one id, or a mislabel?", id, rows[j].Line, d/1000)
-				}
+			if _, ok := apartM(&rows[i].Sample, &rows[i].Sample); ok {
+				anchor = i
+				break
+			}
+		}
+		if anchor < 0 {
+			continue
+		}
+		for _, i := range idx {
+			if i == anchor {
+				continue
+			}
+			if d, ok := apartM(&rows[i].Sample, &rows[anchor].Sample); ok && d > wellApartM {
+				rows[i].add(Warning, rows[i].Line, "", "well id %q also on line %d, %.1f km away: two wells with one id, or a mislabel?", id, rows[anchor].Line, d/1000)
+				rows[anchor].add(Warning, rows[anchor].Line, "", "well id %q also on line %d, %.1f km away: two wells with one id, or a mislabel?", id, rows[i].Line, d/1000)
 			}
 		}
 	}

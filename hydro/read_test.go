@@ -2,6 +2,7 @@ package hydro
 
 import (
 	"errors"
+	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
@@ -323,7 +324,7 @@ func TestLongShape(t *testing.T) {
 	var neg, unit bool
 	for _, is := range s2.Issues {
 		neg = neg || is.Column == "Value" && is.Line == 0 && strings.Contains(is.Message, "negative")
-		unit = unit || is.Column == "Value" && is.Line == 9 && strings.Contains(is.Message, "unknown unit")
+		unit = unit || is.Column == "Unit" && is.Line == 9 && strings.Contains(is.Message, "unknown unit")
 	}
 	if !neg || !unit {
 		t.Errorf("S2 issues: %v", s2.Issues)
@@ -585,6 +586,22 @@ func BenchmarkReadSemarang(b *testing.B) {
 		}
 		for i := range bt.Rows {
 			ChargeBalance(&bt.Rows[i].Sample)
+		}
+	}
+}
+
+// A large invented wide file: 20,000 rows of 12 columns.
+func BenchmarkReadWide20k(b *testing.B) {
+	var sb strings.Builder
+	sb.WriteString("Sample ID,Well,Date,Temp (C),pH field,Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity as CaCO3 (mg/L)\n")
+	for i := 0; i < 20000; i++ {
+		fmt.Fprintf(&sb, "S%d,MW-%d,2024-03-05,%.1f,7.%d,%d.5,12.25,%d,3.1,<0.5,96.1,250\n", i, i%30, 10+float64(i%15), i%10, 20+i%50, 30+i%40)
+	}
+	raw := sb.String()
+	b.SetBytes(int64(len(raw)))
+	for b.Loop() {
+		if _, err := Read(strings.NewReader(raw), "x", Options{}); err != nil {
+			b.Fatal(err)
 		}
 	}
 }

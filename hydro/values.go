@@ -123,6 +123,10 @@ func parseConcCell(raw string, decComma bool) (cell, error) {
 	if s == "" {
 		return cell{missing: true}, nil
 	}
+	if plainNumber(s) {
+		v, err := parseNum(s, decComma)
+		return cell{value: v}, err
+	}
 	low := strings.ToLower(s)
 	if missingWord[strings.ReplaceAll(low, " ", "")] {
 		return cell{missing: true}, nil

@@ -116,7 +116,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 		panic("speciation: NewSolver needs a database and a model")
 	}
 	nc, ns, nm := len(db.Components), len(db.Species), len(db.Minerals)
-	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 3, WarmStart: true, nc: nc, ns: ns, nm: nm}
+	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, WarmStart: true, nc: nc, ns: ns, nm: nm}
 	s.role = make([]int, nc)
 	s.total = make([]float64, nc)
 	s.phaseOf = make([]int, nc)
@@ -788,6 +788,53 @@ func (s *Solver) applyPhaseFixes(u []float64) {
 	}
 }
 
+// jacobian builds the Jacobian at the point of the last evaluate (it uses s.m, s.dlg).
+func (s *Solver) jacobian(u []float64) {
+	n := s.n
+	J := s.J[:n*n]
+	clear(J)
+	J[s.iCol*n+s.iCol] = 1
+	ln10 := math.Ln10
+	for k := range s.act {
+		m := ln10 * s.m[k]
+		dl := s.dlg[k]
+		c0, c1 := s.colOff[k], s.colOff[k+1]
+		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
+			f := s.rowW[p] * m
+			jr := J[s.rowIdx[p]*n : s.rowIdx[p]*n+n]
+			for q := c0; q < c1; q++ {
+				jr[s.colIdx[q]] += f * s.colNu[q]
+			}
+			jr[s.iCol] -= f * dl
+		}
+	}
+	base := s.iCol + 1
+	db := s.db
+	for k, pi := range s.eqPhase {
+		for _, t := range db.Minerals[pi].Terms {
+			ci := t.Index
+			if s.role[ci] == roleTotal {
+				J[s.row[ci]*n+base+k] -= t.Nu
+			}
+			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
+				J[s.row[db.carbonate]*n+base+k] -= t.Nu * s.alkComp[ci]
+			}
+		}
+	}
+	for r := 0; r < n; r++ {
+		pi := s.rowPhase[r]
+		if pi < 0 {
+			continue
+		}
+		jr := J[r*n : r*n+n]
+		for _, t := range db.Minerals[pi].Terms {
+			if c := s.col[t.Index]; c >= 0 {
+				jr[c] += t.Nu
+			}
+		}
+	}
+}
+
 // evaluate computes residuals, scales and (if jac) the Jacobian at u, and returns the
 // scaled residual norm (sum of squares) and the largest scaled residual.
 func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
@@ -894,7 +941,7 @@ func (s *Solver) newton(maxStep float64) error {
 		maxStep = 1.5
 	}
 	s.evals = 0
-	norm, worst := s.evaluate(u, true)
+	norm, worst := s.evaluate(u, false)
 	it, stall := 0, 0
 	for ; it < maxIt; it++ {
 		if !finite(norm) {
@@ -913,12 +960,13 @@ func (s *Solver) newton(maxStep float64) error {
 				s.warmValid = true
 				return nil
 			}
-			norm, worst = s.evaluate(u, true)
+			norm, worst = s.evaluate(u, false)
 			continue
 		}
 		if err := s.checkBounds(u, it); err != nil {
 			return err
 		}
+		s.jacobian(u)
 		// scale rows, solve J du = -R
 		J := s.J[:n*n]
 		du := s.du[:n]
@@ -957,7 +1005,7 @@ func (s *Solver) newton(maxStep float64) error {
 			for c := range try {
 				try[c] = u[c] + f*du[c]
 			}
-			nTry, wTry = s.evaluate(try, true)
+			nTry, wTry = s.evaluate(try, false)
 			if (finite(nTry) && nTry < norm*(1-1e-4*f)) || h >= 10 || nTry <= 1e-30 {
 				break
 			}

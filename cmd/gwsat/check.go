@@ -8,7 +8,6 @@ import (
 
 	"gwsat/assess"
 	"gwsat/hydro"
-	"gwsat/internal/atomicfile"
 	"gwsat/report"
 )
 
@@ -32,11 +31,11 @@ func runCheck(e *env, args []string) int {
 		return failf(e, exitUsage, "%v", err)
 	}
 	tbl := report.SampleTable(recs, report.SolidMinerals(db))
-	if err := atomicfile.WriteWith(*out, tbl.WriteCSV); err != nil {
+	if err := e.writeFile(*out, tbl.WriteCSV); err != nil {
 		return failf(e, exitRejected, "writing %s: %v", *out, err)
 	}
 	if *jsonOut != "" {
-		if err := atomicfile.WriteWith(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, recs) }); err != nil {
+		if err := e.writeFile(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, recs) }); err != nil {
 			return failf(e, exitRejected, "writing %s: %v", *jsonOut, err)
 		}
 	}

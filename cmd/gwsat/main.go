@@ -7,10 +7,12 @@
 package main
 
 import (
+	"bytes"
 	"context"
 	"errors"
 	"flag"
 	"fmt"
+	"gwsat/internal/atomicfile"
 	"io"
 	"os"
 	"os/signal"
@@ -115,6 +117,20 @@ func parseFlags(fs *flag.FlagSet, args []string) (code int, ok bool) {
 		return exitUsage, false
 	}
 	return 0, true
+}
+
+// writeFile writes an output atomically; "-" means the command's standard
+// output (buffered, so that nothing is printed when fill fails).
+func (e *env) writeFile(path string, fill func(w io.Writer) error) error {
+	if path == "-" {
+		var buf bytes.Buffer
+		if err := fill(&buf); err != nil {
+			return err
+		}
+		_, err := e.stdout.Write(buf.Bytes())
+		return err
+	}
+	return atomicfile.WriteWith(path, fill)
 }
 
 // failf prints a one-line error for the command and returns code.

@@ -9,7 +9,6 @@ import (
 	"text/tabwriter"
 
 	"gwsat/assess"
-	"gwsat/internal/atomicfile"
 	"gwsat/report"
 )
 
@@ -54,7 +53,7 @@ func runSpecies(e *env, args []string) int {
 	r := hits[0]
 	if *jsonOut != "" {
 		one := []assess.Record{*r}
-		if err := atomicfile.WriteWith(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, one) }); err != nil {
+		if err := e.writeFile(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, one) }); err != nil {
 			return failf(e, exitRejected, "writing %s: %v", *jsonOut, err)
 		}
 		return exitOK

@@ -1,0 +1,273 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"encoding/csv"
+	"encoding/json"
+	"image"
+	"image/png"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/paulmach/orb/geojson"
+)
+
+// gwsat runs the command in process and returns its exit code and streams.
+func gwsat(t *testing.T, stdin string, args ...string) (int, string, string) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code := run(context.Background(), args, strings.NewReader(stdin), &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+func readCSV(t *testing.T, s string) [][]string {
+	t.Helper()
+	recs, err := csv.NewReader(strings.NewReader(s)).ReadAll()
+	if err != nil {
+		t.Fatalf("output is not CSV: %v", err)
+	}
+	return recs
+}
+
+func col(t *testing.T, header []string, name string) int {
+	t.Helper()
+	for i, h := range header {
+		if h == name {
+			return i
+		}
+	}
+	t.Fatalf("no column %q in %v", name, header)
+	return -1
+}
+
+// The demo has 96 rows; every one comes out, in order, and the deliberately
+// flawed ones (documented in data/demo/README.md) are flagged.
+func TestCheckDemoAccountsForEveryRow(t *testing.T) {
+	code, out, errs := gwsat(t, "", "check", "-demo")
+	if code != exitRejected {
+		t.Fatalf("exit %d, want %d (the demo has rejected rows); stderr:\n%s", code, exitRejected, errs)
+	}
+	recs := readCSV(t, out)
+	if len(recs) != 97 {
+		t.Fatalf("%d table lines, want header + 96", len(recs))
+	}
+	h := recs[0]
+	id, st, line, cb := col(t, h, "sample_id"), col(t, h, "status"), col(t, h, "line"), col(t, h, "balance_status")
+	sic := col(t, h, "si_calcite")
+	want := map[string]string{"C1-D-R2": "rejected", "C3-I-R3": "rejected", "B2-S-R2": "warning"}
+	for i, r := range recs[1:] {
+		if r[line] != itoa(i+2) {
+			t.Fatalf("row %d has line %s: order lost", i, r[line])
+		}
+		if w, ok := want[r[id]]; ok && r[st] != w {
+			t.Errorf("%s: status %s, want %s", r[id], r[st], w)
+		}
+		if r[st] != "rejected" && r[sic] == "" {
+			t.Errorf("%s: no calcite SI", r[id])
+		}
+		if r[id] == "B2-S-R2" && r[cb] != "fail" {
+			t.Errorf("B2-S-R2: balance %s, want fail", r[cb])
+		}
+		for _, c := range r {
+			if strings.Contains(strings.ToLower(c), "nan") || strings.Contains(c, "Inf") {
+				t.Fatalf("row %d carries a non-number: %v", i, r)
+			}
+		}
+	}
+	if !strings.Contains(errs, "2 rejected") || !strings.Contains(errs, "licensed professionals") {
+		t.Errorf("summary lacks counts or caution:\n%s", errs)
+	}
+}
+
+func itoa(i int) string { return strings.TrimSpace(strings.Repeat(" ", 0) + fmtInt(i)) }
+
+func fmtInt(i int) string {
+	b := []byte{}
+	if i == 0 {
+		return "0"
+	}
+	for i > 0 {
+		b = append([]byte{byte('0' + i%10)}, b...)
+		i /= 10
+	}
+	return string(b)
+}
+
+// Bad input: a fatal file problem exits 2 naming the file; a bad row is
+// reported with its line and column while the good rows still come out.
+func TestCheckBadInput(t *testing.T) {
+	dir := t.TempDir()
+	good := "Sample ID,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3)\n" +
+		"S1,7.2,15,60,12,20,2,30,40,180\n" +
+		"S2,7.1,15,abc,12,20,2,30,40,180\n" +
+		"S3,7.3,16,58,11,21,2,31,39,175\n"
+	p := filepath.Join(dir, "lab.csv")
+	os.WriteFile(p, []byte(good), 0o644)
+	code, out, errs := gwsat(t, "", "check", p)
+	if code != exitRejected {
+		t.Fatalf("exit %d, want %d", code, exitRejected)
+	}
+	recs := readCSV(t, out)
+	if len(recs) != 4 {
+		t.Fatalf("%d lines, want header + 3", len(recs))
+	}
+	st, reasons := col(t, recs[0], "status"), col(t, recs[0], "reasons")
+	if recs[1][st] == "rejected" || recs[3][st] == "rejected" || recs[2][st] != "rejected" {
+		t.Fatalf("statuses %s %s %s", recs[1][st], recs[2][st], recs[3][st])
+	}
+	if !strings.Contains(recs[2][reasons], "Ca (mg/L)") || !strings.Contains(errs, "line 3") {
+		t.Errorf("the bad row's message must name column and line: %q / %q", recs[2][reasons], errs)
+	}
+
+	empty := filepath.Join(dir, "empty.csv")
+	os.WriteFile(empty, nil, 0o644)
+	code, out, errs = gwsat(t, "", "check", "-o", filepath.Join(dir, "never.csv"), empty)
+	if code != exitUsage || !strings.Contains(errs, "empty.csv") {
+		t.Errorf("empty file: exit %d, stderr %q", code, errs)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "never.csv")); !os.IsNotExist(err) {
+		t.Errorf("a failed run left an output file")
+	}
+	code, _, errs = gwsat(t, "", "check", "-model", "nonsense", p)
+	if code != exitUsage || !strings.Contains(errs, "nonsense") {
+		t.Errorf("bad model: exit %d, %q", code, errs)
+	}
+	code, _, _ = gwsat(t, "", "nosuchcommand")
+	if code != exitUsage {
+		t.Errorf("unknown command: exit %d", code)
+	}
+}
+
+// Standard input works and a long-shape file is accepted.
+func TestCheckStdinLongShape(t *testing.T) {
+	long := "sample,parameter,value,unit\n" +
+		"W1,pH,7.4,\nW1,temperature,12,C\nW1,Ca,50,mg/L\nW1,Mg,10,mg/L\nW1,Na,15,mg/L\nW1,K,1.5,mg/L\n" +
+		"W1,Cl,20,mg/L\nW1,SO4,30,mg/L\nW1,Alkalinity as CaCO3,160,mg/L\n"
+	code, out, errs := gwsat(t, long, "check", "-")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	recs := readCSV(t, out)
+	if len(recs) != 2 || recs[1][col(t, recs[0], "si_calcite")] == "" {
+		t.Fatalf("long input gave %v", recs)
+	}
+}
+
+func TestSpeciesView(t *testing.T) {
+	code, out, errs := gwsat(t, "", "species", "-demo", "-sample", "A1-D-R3")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	for _, want := range []string{"CaSO4(aq)", "Calcite", "Ionic strength", "Distribution"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("species view lacks %q", want)
+		}
+	}
+	code, _, errs = gwsat(t, "", "species", "-demo", "-sample", "NOPE")
+	if code != exitUsage || !strings.Contains(errs, "NOPE") {
+		t.Errorf("unknown sample: exit %d %q", code, errs)
+	}
+}
+
+// The report folder holds non-trivial figures, tables, GeoJSON that decodes,
+// and an index.html that escapes input text.
+func TestReportDemo(t *testing.T) {
+	if testing.Short() {
+		t.Skip("report renders figures")
+	}
+	dir := t.TempDir()
+	code, _, errs := gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png,svg", "-minerals", "Calcite,Barite")
+	if code != exitRejected {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	figs, _ := filepath.Glob(filepath.Join(dir, "figures", "*.png"))
+	if len(figs) < 4 {
+		t.Fatalf("%d PNG figures, want maps and profiles", len(figs))
+	}
+	for _, f := range figs {
+		checkPNG(t, f)
+	}
+	svgs, _ := filepath.Glob(filepath.Join(dir, "figures", "*.svg"))
+	if len(svgs) != len(figs) {
+		t.Errorf("%d SVG for %d PNG", len(svgs), len(figs))
+	}
+	raw, err := os.ReadFile(filepath.Join(dir, "samples.geojson"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	fc, err := geojson.UnmarshalFeatureCollection(raw)
+	if err != nil || len(fc.Features) != 96 {
+		t.Fatalf("GeoJSON: %v, %d features", err, len(fc.Features))
+	}
+	html, _ := os.ReadFile(filepath.Join(dir, "index.html"))
+	for _, want := range []string{"licensed professionals", "data:image/png;base64,", "si_barite"} {
+		if !bytes.Contains(html, []byte(want)) {
+			t.Errorf("index.html lacks %q", want)
+		}
+	}
+	var js []map[string]any
+	raw, _ = os.ReadFile(filepath.Join(dir, "samples.json"))
+	if err := json.Unmarshal(raw, &js); err != nil || len(js) != 96 {
+		t.Fatalf("samples.json: %v, %d records", err, len(js))
+	}
+}
+
+// checkPNG asserts a figure is a real picture: 300 dpi dimensions of a few
+// thousand pixels and many distinct colours.
+func checkPNG(t *testing.T, path string) {
+	t.Helper()
+	f, err := os.Open(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	img, err := png.Decode(f)
+	if err != nil {
+		t.Fatalf("%s: %v", path, err)
+	}
+	b := img.Bounds()
+	if b.Dx() < 1500 || b.Dy() < 1000 {
+		t.Errorf("%s: %v too small for 300 dpi", path, b)
+	}
+	colours := map[[4]uint32]bool{}
+	for y := b.Min.Y; y < b.Max.Y; y += 7 {
+		for x := b.Min.X; x < b.Max.X; x += 7 {
+			r, g, bl, a := img.At(x, y).RGBA()
+			colours[[4]uint32{r, g, bl, a}] = true
+		}
+	}
+	if len(colours) < 20 {
+		t.Errorf("%s: only %d colours: a blank figure?", path, len(colours))
+	}
+	_ = image.Point{}
+}
+
+// HTML escaping and CSV formula neutralisation of user text in a report.
+func TestReportEscapesUserText(t *testing.T) {
+	if testing.Short() {
+		t.Skip("report renders figures")
+	}
+	dir := t.TempDir()
+	in := filepath.Join(dir, "x.csv")
+	os.WriteFile(in, []byte("Sample ID,Well ID,Latitude,Longitude,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3)\n"+
+		"<script>alert(1)</script>,=HYPERLINK(\"http://x\"),30.1,-100.1,7.2,15,60,12,20,2,30,40,180\n"+
+		"B,W2,30.11,-100.1,7.1,15,61,12,20,2,30,40,180\n"+
+		"C,W3,30.1,-100.11,7.3,15,59,12,20,2,30,40,180\n"), 0o644)
+	out := filepath.Join(dir, "rep")
+	code, _, errs := gwsat(t, "", "report", "-o", out, "-formats", "png", in)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	html, _ := os.ReadFile(filepath.Join(out, "index.html"))
+	if bytes.Contains(html, []byte("<script>alert")) {
+		t.Error("index.html carries unescaped input")
+	}
+	tbl, _ := os.ReadFile(filepath.Join(out, "samples.csv"))
+	recs := readCSV(t, string(tbl))
+	if w := recs[1][col(t, recs[0], "well_id")]; !strings.HasPrefix(w, "'=") {
+		t.Errorf("formula not neutralised: %q", w)
+	}
+}
