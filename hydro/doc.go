@@ -17,7 +17,10 @@
 // The result is a Batch: which header mapped to which parameter
 // (Batch.Mapping) and one Row per input row (wide) or per sample (long), in
 // input order. Each Row carries a Sample, a Status (ok, warning, rejected)
-// and its Issues, each naming its column. A bad row never stops the others;
+// and its Issues, each naming its column (in the long shape: the value,
+// unit or parameter column, with the parameter in the message and the line
+// in Issue.Line). Lines with no values (blank, or only delimiters) are not
+// rows. A bad row never stops the others;
 // the error return of Read is kept for the file as a whole (a *ReadError
 // wrapping ErrEmpty, ErrNotCSV, ErrNoSampleID, ErrNoAnalyte or ErrRead).
 //
@@ -44,7 +47,8 @@
 // the long shape, or default to mg/L (stated in the mapping). Understood:
 // mg/L, ug/L (µg/L, μg/L), g/L, mol/L, mmol/L, umol/L, meq/L, mol/kgw
 // (mol/kg), mmol/kgw, mg/kg, ug/kg, ppm and ppb (mass fractions of the
-// solution, equal to mg/L and ug/L in dilute water), with a basis "as X":
+// solution, equal to mg/L and ug/L in dilute water; alkalinity in mmol/L is
+// read as mmol H+ per litre, i.e. meq/L), with a basis "as X":
 // alkalinity as CaCO3 (the default for a mass unit) or HCO3, nitrate and
 // ammonium as N, silica as Si, sulfate as S, phosphate as P, TIC as C (the
 // default), CO2 or CaCO3. An unknown unit is a row error naming the column.
@@ -71,8 +75,11 @@
 // pH outside 0-14, temperature outside 0-100 C (the supported range),
 // density outside 0.9-1.5 kg/L, negative TDS or conductance, ragged row,
 // empty row. Warning (used, but look): duplicate sample id (rows kept
-// apart), a non-detect without a limit, a ">x" value, a multi-interval or
-// unreadable screen, an unreadable date, coordinates out of range.
+// apart), one well id at places more than 100 m apart, a non-detect without
+// a limit, a ">x" value, a multi-interval or unreadable screen, an
+// unreadable or ambiguous date (01/02/2024 is read day-first or month-first
+// only when another date in the file settles it), coordinates out of range,
+// an unknown long-shape parameter (kept in Extra).
 //
 // # Chemistry
 //

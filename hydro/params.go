@@ -74,7 +74,7 @@ var fieldDefs = map[string]fieldDef{
 	pID:           {clText, "id"},
 	pWellID:       {clText, "well wellid wellname wellno wellcode borehole boreholeid bore boreid station stationid stationname site siteid sitecode sitename locationid locid monitoringwell mw pointid point"},
 	pRound:        {clText, "round event campaign samplinground samplingevent samplingcampaign survey trip"},
-	pDate:         {clDate, "date sampledate samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp"},
+	pDate:         {clDate, "date sampledate samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp collectiondatetime sampledatetime samplingdatetime datetimecollected"},
 	pTime:         {clText, "time sampletime samplingtime timesampled"},
 	pLat:          {clDegrees, "lat latitude latdd latdeg ylat"},
 	pLon:          {clDegrees, "lon long lng longitude londd londeg xlon"},

@@ -597,13 +597,34 @@ func newSample() Sample {
 	return Sample{Analytes: map[string]Measurement{}, Extra: map[string]string{}}
 }
 
+// ragged says whether a record's length differs from the header's in a way
+// that matters: missing cells under empty headers and extra empty cells (a
+// trailing delimiter on some lines only) are tolerated.
+func (rd *reader) ragged(rec []string) bool {
+	switch {
+	case len(rec) < len(rd.header):
+		for _, h := range rd.header[len(rec):] {
+			if h != "" {
+				return true
+			}
+		}
+	case len(rec) > len(rd.header):
+		for _, c := range rec[len(rd.header):] {
+			if c != "" {
+				return true
+			}
+		}
+	}
+	return false
+}
+
 // readWide reads one Row per record.
 func (rd *reader) readWide(recs [][]string, lines []int) []Row {
 	rows := make([]Row, 0, len(recs))
 	for k, rec := range recs {
 		row := Row{Line: lines[k], Sample: newSample()}
 		s := &row.Sample
-		if len(rec) != len(rd.header) {
+		if rd.ragged(rec) {
 			if len(rec) < len(rd.header) {
 				row.add(Error, row.Line, rd.header[len(rec)], "ragged row: %d fields, the header has %d (missing from column %d, %q, on)", len(rec), len(rd.header), len(rec)+1, rd.header[len(rec)])
 			} else {
@@ -675,7 +696,7 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 			curID = id
 		}
 		s := &row.Sample
-		if len(rec) != len(rd.header) {
+		if rd.ragged(rec) {
 			col := ""
 			if len(rec) < len(rd.header) {
 				col = rd.header[len(rec)]

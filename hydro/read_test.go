@@ -605,3 +605,107 @@ func BenchmarkReadWide20k(b *testing.B) {
 		}
 	}
 }
+
+// Long shape: a bad line is reported against its sample, with the line and
+// the column; the other samples come out.
+func TestLongBadLines(t *testing.T) {
+	in := "Sample,Parameter,Value,Unit\n" +
+		"A,Ca,10,mg/L\n" + // line 2
+		"A,pH,15,\n" + // line 3: pH out of range
+		"A,Temperature,abc,C\n" + // line 4: not a number
+		"A,Cl,5\n" + // line 5: ragged
+		"B,Ca,11,mg/L\n" + // line 6
+		"B,Cl,12,mg/L\n"
+	b := mustRead(t, in, Options{})
+	if len(b.Rows) != 2 {
+		t.Fatalf("%d rows", len(b.Rows))
+	}
+	a := b.Rows[0]
+	tests := []struct {
+		line      int
+		col, frag string
+	}{
+		{3, "Value", "pH: pH 15 outside 0-14"},
+		{4, "Value", "Temperature: not a number"},
+		{5, "Unit", "ragged"},
+	}
+	for _, tt := range tests {
+		found := false
+		for _, is := range a.Issues {
+			found = found || is.Severity == Error && is.Line == tt.line && is.Column == tt.col && strings.Contains(is.Message, tt.frag)
+		}
+		if !found {
+			t.Errorf("no error %q on line %d column %q: %v", tt.frag, tt.line, tt.col, a.Issues)
+		}
+	}
+	if a.Status != StatusRejected || a.Sample.Analytes["Ca"].Value != 10 {
+		t.Errorf("A: %s %+v", a.Status, a.Sample.Analytes)
+	}
+	if r := b.Rows[1]; r.Line != 6 || r.Status != StatusOK || r.Sample.Analytes["Cl"].Value != 12 {
+		t.Errorf("B: line %d %s %v", r.Line, r.Status, r.Issues)
+	}
+	if s := a.Issues[0].String(); !strings.Contains(s, "line 3") || !strings.Contains(s, `column "Value"`) {
+		t.Errorf("issue string %q", s)
+	}
+}
+
+func TestSmallHelpers(t *testing.T) {
+	for in, want := range map[string]NonDetectPolicy{"half-dl": HalfDL, "": HalfDL, "zero": Zero, "DL": DL} {
+		if got, err := ParseNonDetectPolicy(in); err != nil || got != want {
+			t.Errorf("ParseNonDetectPolicy(%q) = %v, %v", in, got, err)
+		}
+	}
+	if _, err := ParseNonDetectPolicy("median"); err == nil {
+		t.Error("no error for an unknown policy")
+	}
+	// IUPAC 2013: Ca 40.078; CaCO3/2 = 100.086/2 for alkalinity.
+	if m, ok := MolarMass("Ca"); !ok || m != 40.078 {
+		t.Errorf("Ca %v", m)
+	}
+	if m, ok := MolarMass("Alk"); !ok || !scalar.EqualWithinRel(m, 50.043, 1e-12) {
+		t.Errorf("Alk %v", m)
+	}
+	if _, ok := MolarMass("Xx"); ok {
+		t.Error("unknown key accepted")
+	}
+}
+
+func TestEmptyIDAndWellPlaces(t *testing.T) {
+	// Same well 0.01 degrees of longitude apart at 6.95 S: 6371 km x
+	// 0.01 x pi/180 x cos(6.95 deg) = 1.10 km (sphere, mean radius).
+	in := "Sample,Well,Lat,Lon,Ca\n,W1,-6.95,110.40,1\nB,W1,-6.95,110.41,1\nC,W1,-6.95,110.4001,1\n"
+	b := mustRead(t, in, Options{})
+	if r := b.Rows[0]; r.Status != StatusWarning || !hasIssue(r, Warning, "Sample", "empty sample id") || !hasIssue(r, Warning, "", "1.1 km away") {
+		t.Errorf("line 2: %v", r.Issues)
+	}
+	if r := b.Rows[1]; !hasIssue(r, Warning, "", "also on line 2, 1.1 km away") {
+		t.Errorf("line 3: %v", r.Issues)
+	}
+	// 0.0001 degrees: 11 m, the same place.
+	if r := b.Rows[2]; r.Status != StatusOK {
+		t.Errorf("line 4: %v", r.Issues)
+	}
+}
+
+// Every key a column map may name is accepted by ReadColumnMap's check.
+func TestMapKeysValid(t *testing.T) {
+	for _, k := range append(FieldKeys(), AnalyteKeys()...) {
+		if !validMapTarget(k) {
+			t.Errorf("%s rejected", k)
+		}
+	}
+}
+
+// A trailing delimiter on the header or on some lines only is not a ragged
+// row.
+func TestTrailingDelimiters(t *testing.T) {
+	for _, in := range []string{
+		"Sample,Ca,Cl,\nA,1,2\nB,3,4,\n",
+		"Sample,Ca,Cl\nA,1,2,\nB,3,4\n",
+	} {
+		b := mustRead(t, in, Options{})
+		if c := b.Counts(); c[StatusOK] != 2 {
+			t.Errorf("%q: %v %v", in, c, b.Rows)
+		}
+	}
+}

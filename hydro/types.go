@@ -91,7 +91,8 @@ func (s Shape) String() string {
 // parameter key ("Ca", "pH", "SampleID", ...) or "" when the column was kept
 // unmapped in Sample.Extra. Unit is the unit taken from the header (or the
 // default, see Note). For a long file the mapping covers the parameter names
-// found in its parameter column too, with Column the index of that column.
+// found in its parameter column too. Column is 1-based (for a long-shape
+// parameter name, the parameter column).
 type HeaderMapping struct {
 	Column int
 	Header string

@@ -10,12 +10,13 @@ import (
 // of the elements 2013 (IUPAC Technical Report)", Pure Appl. Chem. 88(3),
 // 265-291, doi:10.1515/pac-2015-0305. Elements whose standard atomic weight
 // is an interval (H, Li, C, N, O, Mg, Si, S, Cl, Br) use the conventional
-// values of that report's Table 3; the others are the Table 1 values. The
-// 2021 revision (Prohaska et al. 2022, Pure Appl. Chem. 94(5)) changed none
-// of the elements used here except Al and Mn in the 6th-7th significant
-// digit (AME 2016/2020), which is far below analytical precision.
+// values of that report's Table 3; the others are the Table 1 values.
 // Verified in the 2013 report's abstract: F, Mn, P, Al. The others are
-// `from memory` (the long-standing textbook values).
+// `from memory` (the long-standing textbook values). The 2021 revision
+// (Prohaska et al. 2022, "Standard atomic weights of the elements 2021",
+// Pure Appl. Chem. 94(5)) revised Al (named in its abstract) and, from
+// memory, Mn, both in the 7th significant digit or beyond, far below
+// analytical precision; the 2013 values are kept.
 const (
 	awH  = 1.008
 	awLi = 6.94
@@ -228,6 +229,13 @@ var analytes = map[string]*analyte{
 func AnalyteKeys() []string {
 	return []string{"Ca", "Mg", "Na", "K", "Sr", "Ba", "Fe", "Fe3", "Mn", "Li", "NH4", "Al",
 		"Cl", "SO4", "Alk", "HCO3", "CO3", "TIC", "F", "SiO2", "NO3", "NO2", "Br", "PO4"}
+}
+
+// FieldKeys lists the non-analyte parameter keys a column map may use.
+func FieldKeys() []string {
+	return []string{pSampleID, pWellID, pRound, pDate, pTime, pLat, pLon, pEasting, pNorthing, pEPSG,
+		pElev, pDepth, pScreen, pScreenTop, pScreenBottom, pTemp, pPH, pPHField, pPHLab, pSpecCond, pTDS, pDensity,
+		pParameter, pValue, pUnit, pQualifier, pDL}
 }
 
 // MolarMass returns the molar mass (g/mol) used for an analyte key (for

@@ -33,10 +33,10 @@ func (s *Solver) fill(res *Result, w *Water) {
 		sp := &db.Species[si]
 		m := s.m[k]
 		la := s.logm[k] + s.lg[k]
+		g := exp10(s.lg[k])
 		res.Species = append(res.Species, SpeciesResult{
 			Name: sp.Name, Charge: sp.Charge, Molality: m,
-			LogGamma: s.lg[k], Gamma: exp10(s.lg[k]),
-			Activity: m * exp10(s.lg[k]), LogActivity: la,
+			LogGamma: s.lg[k], Gamma: g, Activity: m * g, LogActivity: la,
 		})
 		zsum += sp.Charge * m
 		zabs += math.Abs(sp.Charge) * m

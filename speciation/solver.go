@@ -79,9 +79,12 @@ type Solver struct {
 	warmU                  []float64
 	warmTotal              []float64
 	warmAlk                float64
+	warmT, warmLaH         float64
 
 	// WarmStart starts a solve from the previous solution when the water has the same
-	// kind of constraints (default true). Results agree with a cold start within the
+	// kind of constraints and is close to the previous one (temperature within 0.5 C,
+	// pH within 0.1, totals within -20/+25 %), as in a titration, a mixing series or a
+	// precipitation loop (default true). Results agree with a cold start within the
 	// convergence tolerance.
 	WarmStart bool
 
@@ -557,8 +560,20 @@ func nuOf(terms []Term, ci int) float64 {
 // warmStart starts from the previous solution, with each free activity scaled by the
 // change of its total. It reports false if the previous solution does not fit.
 func (s *Solver) warmStart() bool {
-	if len(s.warmU) != s.n {
+	if len(s.warmU) != s.n || math.Abs(s.lastT-s.warmT) > 0.5 || math.Abs(s.la[s.db.hplus]-s.warmLaH) > 0.1 {
 		return false
+	}
+	for ci := range s.role {
+		if s.role[ci] == roleTotal && s.warmTotal[ci] > 0 {
+			if r := s.total[ci] / s.warmTotal[ci]; r < 0.8 || r > 1.25 {
+				return false
+			}
+		}
+	}
+	if s.warmAlk > 0 {
+		if r := s.alk / s.warmAlk; r < 0.8 || r > 1.25 {
+			return false
+		}
 	}
 	u := s.u[:s.n]
 	copy(u, s.warmU)
@@ -578,6 +593,9 @@ func (s *Solver) warmStart() bool {
 			}
 		}
 	}
+	s.logAw = 0
+	s.gammas(u[s.iCol])
+	s.sweep(u, 1, 0)
 	return true
 }
 
@@ -671,6 +689,13 @@ func (s *Solver) initialGuess(mode int) {
 			sweeps = 3 * s.sweeps
 		}
 	}
+	s.sweep(u, sweeps, mode)
+}
+
+// sweep improves u by continued-fraction passes over the balances at the ionic
+// strength held in s.lg, then sets the ionic strength from the result.
+func (s *Solver) sweep(u []float64, sweeps, mode int) {
+	db := s.db
 	for sweep := 0; sweep < sweeps; sweep++ {
 		s.applyPhaseFixes(u)
 		s.speciesMolalities(u)
@@ -764,8 +789,9 @@ func (s *Solver) initialGuess(mode int) {
 		}
 	}
 	s.applyPhaseFixes(u)
-	s.speciesMolalities(u)
-	I = 0
+	// Ionic strength from the molalities of the last pass (one pass behind u: Newton
+	// corrects it, and it saves a pass).
+	I := 0.0
 	for k := range s.act {
 		I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * s.m[k]
 	}
@@ -957,6 +983,8 @@ func (s *Solver) newton(maxStep float64) error {
 				s.warmU = append(s.warmU[:0], u...)
 				copy(s.warmTotal, s.total)
 				s.warmAlk = s.alk
+				s.warmT = s.lastT
+				s.warmLaH = s.la[s.db.hplus]
 				s.warmValid = true
 				return nil
 			}

@@ -54,8 +54,7 @@ type Precipitation struct {
 
 // PrecipOptions sets Precipitate.
 type PrecipOptions struct {
-	// Minerals that may precipitate; nil: every mineral of the database (not gases)
-	// with a saturation index in the water.
+	// Minerals that may precipitate; nil: ScaleMinerals (those of the database).
 	Minerals []string
 	// KgwPerL is the kg of water per litre of solution, for mg/L (default 1).
 	KgwPerL float64
@@ -83,9 +82,7 @@ func (r *Reactor) Precipitate(sol Solution, opt PrecipOptions) (*Precipitation, 
 	}
 	cands := opt.Minerals
 	if cands == nil {
-		for _, m := range res.Minerals {
-			cands = append(cands, m.Name)
-		}
+		cands = r.KnownMinerals(ScaleMinerals())
 	}
 	p := &Precipitation{Before: before, BeforeResult: res, KgwPerL: kgwL}
 	for _, m := range cands {
@@ -141,6 +138,7 @@ func (r *Reactor) Equilibrate(sol Solution, candidates []string, kgwPerL float64
 			}
 		}
 		if drop >= 0 {
+			debugDrops++
 			excluded[active[drop]] = true
 			active = append(active[:drop:drop], active[drop+1:]...)
 			if res, err = r.solve(&cur, active); err != nil {
@@ -242,3 +240,29 @@ func (r *Reactor) alkalinityOf(sol Solution) (float64, error) {
 	}
 	return res.Alkalinity, nil
 }
+
+// ScaleMinerals returns a default list of candidate minerals for precipitation in
+// injection planning: those that commonly form scale at near-surface to geothermal
+// temperatures on the time scale of an injection (common practice). Left out on purpose:
+// dolomite and magnesite (kinetically inhibited at low temperature), quartz and
+// chalcedony (too slow below roughly 100 C; amorphous silica stands for silica scale),
+// aragonite (calcite stands for CaCO3). Names absent from a database are skipped by
+// the caller (see Reactor.KnownMinerals).
+func ScaleMinerals() []string {
+	return []string{"Calcite", "Siderite", "Rhodochrosite", "Strontianite", "Witherite",
+		"Gypsum", "Anhydrite", "Celestite", "Barite", "Fluorite", "SiO2(am)", "Halite"}
+}
+
+// KnownMinerals returns the names of list that are minerals (not gases) of the
+// reactor's database, in order.
+func (r *Reactor) KnownMinerals(list []string) []string {
+	var out []string
+	for _, n := range list {
+		if m := r.db.Mineral(n); m != nil && !m.Gas {
+			out = append(out, n)
+		}
+	}
+	return out
+}
+
+var debugDrops int
