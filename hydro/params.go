@@ -86,7 +86,7 @@ var fieldDefs = map[string]fieldDef{
 	pScreen:       {clScreen, "screen screens screeninterval screenedinterval screendepth screeninginterval"},
 	pScreenTop:    {clLength, "screentop topofscreen screenfrom screentopdepth topscreen"},
 	pScreenBottom: {clLength, "screenbottom bottomofscreen screento screenbase screenbottomdepth bottomscreen"},
-	pTemp:         {clTemp, "temp temperature watertemp watertemperature t wt tw tempc temperaturec fieldtemp fieldtemperature"},
+	pTemp:         {clTemp, "temp temperature watertemp watertemperature temperaturewater t wt tw tempc temperaturec fieldtemp fieldtemperature"},
 	pPH:           {clPH, "ph"},
 	pPHField:      {clPH, "phfield fieldph phf phinsitu insituph phsite"},
 	pPHLab:        {clPH, "phlab labph phl phlaboratory laboratoryph"},

@@ -230,7 +230,7 @@ func TestDuplicateSampleIDs(t *testing.T) {
 func TestNonDetects(t *testing.T) {
 	in := "Sample,Ca,Ba (ug/L),Ba_qualifier,F,Br\n" +
 		"s1,10,<0.5,,ND,0.2 U\n" +
-		"s2,10,< 0.5,,n.d.,BDL\n" +
+		"s2,10,< 0.5,,n/d,BDL\n" +
 		"s3,10,0.5,<,<DL,0.3\n" +
 		"s4,10,0.5,U,1.2,0.3 J\n"
 	tests := []struct {
@@ -706,6 +706,40 @@ func TestTrailingDelimiters(t *testing.T) {
 		b := mustRead(t, in, Options{})
 		if c := b.Counts(); c[StatusOK] != 2 {
 			t.Errorf("%q: %v %v", in, c, b.Rows)
+		}
+	}
+}
+
+func TestConcCellSpellings(t *testing.T) {
+	tests := []struct {
+		in   string
+		want cell
+		ok   bool
+	}{
+		{"<0.5", cell{nonDetect: true, hasDL: true, value: 0.5}, true},
+		{"< 0.5", cell{nonDetect: true, hasDL: true, value: 0.5}, true},
+		{"<0,5", cell{nonDetect: true, hasDL: true, value: 0.5}, true},
+		{"ND", cell{nonDetect: true}, true},
+		{"n.d.", cell{nonDetect: true}, true},
+		{"n/d", cell{nonDetect: true}, true},
+		{"BDL", cell{nonDetect: true}, true},
+		{"<DL", cell{nonDetect: true}, true},
+		{"not detected", cell{nonDetect: true}, true},
+		{"ND (0.2)", cell{nonDetect: true, hasDL: true, value: 0.2}, true},
+		{"0.5 U", cell{nonDetect: true, hasDL: true, value: 0.5, qualifier: "U"}, true},
+		{"0.5U", cell{nonDetect: true, hasDL: true, value: 0.5, qualifier: "U"}, true},
+		{"1.2 J", cell{value: 1.2, qualifier: "J"}, true},
+		{">10", cell{greater: true, value: 10, qualifier: ">"}, true},
+		{"", cell{missing: true}, true},
+		{"-", cell{missing: true}, true},
+		{"n/a", cell{missing: true}, true},
+		{"abc", cell{}, false},
+		{"1,234", cell{}, false},
+	}
+	for _, tt := range tests {
+		got, err := parseConcCell(tt.in, false)
+		if (err == nil) != tt.ok || got != tt.want {
+			t.Errorf("parseConcCell(%q) = %+v, %v; want %+v", tt.in, got, err, tt.want)
 		}
 	}
 }

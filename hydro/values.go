@@ -107,7 +107,7 @@ type cell struct {
 }
 
 var (
-	reNDWords   = regexp.MustCompile(`^(nd|n\.d\.?|n\.d|bdl|bql|blq|<dl|<lod|<mdl|<rl|<loq|<pql|<ql|notdetected|belowdetection|belowdetectionlimit|<detectionlimit|<)$`)
+	reNDWords   = regexp.MustCompile(`^(nd|n\.d\.?|n\.d|n/d|bdl|bql|blq|<dl|<lod|<mdl|<rl|<loq|<pql|<ql|notdetected|belowdetection|belowdetectionlimit|<detectionlimit|<)$`)
 	reNDWithNum = regexp.MustCompile(`^(?:nd|n\.d\.?|bdl|<)\s*[(<]?\s*([0-9.,eE+-]+)\s*\)?$`)
 	reNumQual   = regexp.MustCompile(`^([0-9.,eE+-]+)\s*([a-zA-Z]{1,2}\*?)$`)
 	missingWord = map[string]bool{"-": true, "--": true, "---": true, "—": true, "n/a": true, "na": true, "nan": true, "nm": true, "ns": true, "notmeasured": true, "notanalysed": true, "notanalyzed": true, "null": true, "none": true, "?": true}
@@ -123,7 +123,7 @@ func parseConcCell(raw string, decComma bool) (cell, error) {
 	if s == "" {
 		return cell{missing: true}, nil
 	}
-	if plainNumber(s) {
+	if plainNumber(s) && strings.ContainsAny(s, "0123456789") {
 		v, err := parseNum(s, decComma)
 		return cell{value: v}, err
 	}

@@ -130,8 +130,12 @@ func (s *Sample) Water() (Water, []Issue) {
 			continue
 		}
 		molal := mm / 1000 / sol.KgWaterPerL
-		if k == "Alk" {
+		switch k {
+		case "Alk":
 			w.AlkalinityEqKgw, w.HasAlkalinity = molal, true
+			continue
+		case "HCO3", "CO3":
+			// Counted as alkalinity below when no alkalinity was reported.
 			continue
 		}
 		w.Molal[comp] = molal

@@ -106,3 +106,20 @@ func TestWaterNoWater(t *testing.T) {
 		t.Errorf("water %+v issues %v", w, issues)
 	}
 }
+
+// Bicarbonate and carbonate reported as ions become alkalinity (HCO3 + 2 CO3
+// in equivalents), never a component of their own: 61.016 mg/L HCO3 and
+// 60.008 mg/L CO3 are 1 mmol each (IUPAC 2013 conventional weights H 1.008, C 12.011, O 15.999), so 3 meq/L.
+func TestWaterBicarbonateIsAlkalinity(t *testing.T) {
+	b := mustRead(t, "Sample,Ca,Cl,HCO3,CO3,Density\nA,40.078,35.453,61.016,60.008,1.0\n", Options{})
+	w, _ := b.Rows[0].Sample.Water()
+	for k := range w.Molal {
+		if k == "" || k == "CO3-2" {
+			t.Errorf("unexpected component %q in %v", k, w.Molal)
+		}
+	}
+	want := 3e-3 / w.KgWaterPerL
+	if !w.HasAlkalinity || math.Abs(w.AlkalinityEqKgw-want) > 1e-6*want {
+		t.Errorf("alkalinity %v eq/kgw, want %v", w.AlkalinityEqKgw, want)
+	}
+}

@@ -106,3 +106,14 @@ func TestModelByName(t *testing.T) {
 		t.Error("pitzer is not implemented yet")
 	}
 }
+
+// pow10 against math.Pow over the range the solver uses (property: relative error
+// below 2e-13).
+func TestPow10(t *testing.T) {
+	for x := -300.0; x <= 300; x += 0.00731 {
+		want := math.Pow(10, x)
+		if got := pow10(x); math.Abs(got-want) > 2e-13*want {
+			t.Fatalf("pow10(%g) = %g, math.Pow %g", x, got, want)
+		}
+	}
+}

@@ -60,6 +60,9 @@ func (f LogKFunc) add(g LogKFunc, nu float64) LogKFunc {
 	return LogKFunc{f.A + nu*g.A, f.B + nu*g.B, f.C + nu*g.C, f.D + nu*g.D, f.E + nu*g.E}
 }
 
+// tempConstant is the TempNote of a log K held constant (no enthalpy in the data).
+const tempConstant = "constant (no enthalpy)"
+
 // gasConstant in J/(mol K) (CODATA 2018, exact value 8.314462618).
 const gasConstant = 8.314462618
 
@@ -174,6 +177,17 @@ func (db *Database) Mineral(name string) *Mineral {
 		return &db.Minerals[i]
 	}
 	return nil
+}
+
+// MineralNames returns the names of the minerals (gases excluded) in data-file order.
+func (db *Database) MineralNames() []string {
+	out := make([]string, 0, len(db.Minerals))
+	for i := range db.Minerals {
+		if !db.Minerals[i].Gas {
+			out = append(out, db.Minerals[i].Name)
+		}
+	}
+	return out
 }
 
 // Names of components with a special role.
@@ -435,7 +449,7 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 		switch {
 		case len(parts) == 1 && parts[0] == "none":
 			fn = LogKFunc{A: logk25}
-			note = "constant (no enthalpy)"
+			note = tempConstant
 		case len(parts) == 2:
 			v, err := strconv.ParseFloat(parts[0], 64)
 			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {

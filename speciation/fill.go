@@ -7,7 +7,7 @@ import (
 // Warnings attached to results (constant strings: no allocation).
 const (
 	WarnIonicStrength = "ionic strength above the activity model's stated limit"
-	WarnNoEnthalpy    = "some log K values have no published enthalpy and are held at their 25 C value"
+	WarnNoEnthalpy    = "temperature away from 25 C and some log K values have no enthalpy in the data: held at their 25 C value"
 )
 
 // fill writes the converged state into res.
@@ -103,6 +103,24 @@ func (s *Solver) fill(res *Result, w *Water) {
 	s.indices(res, w)
 	if I > s.model.MaxIonicStrength() {
 		res.Warnings = append(res.Warnings, WarnIonicStrength)
+	}
+	if math.Abs(w.TempC-25) > 5 {
+		constK := false
+		for _, si := range s.act {
+			if db.Species[si].TempNote == tempConstant {
+				constK = true
+				break
+			}
+		}
+		for i := range res.Minerals {
+			if db.Mineral(res.Minerals[i].Name).TempNote == tempConstant {
+				constK = true
+				break
+			}
+		}
+		if constK {
+			res.Warnings = append(res.Warnings, WarnNoEnthalpy)
+		}
 	}
 }
 

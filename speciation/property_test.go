@@ -25,7 +25,7 @@ func TestJacobianFiniteDifference(t *testing.T) {
 		n := s.n
 		u := append([]float64(nil), s.u[:n]...)
 		u[s.iCol] *= 1.3 // away from the solution
-		s.evaluate(u, false)
+		s.evaluate(u)
 		s.jacobian(u)
 		J := append([]float64(nil), s.J[:n*n]...)
 		rp, rm := make([]float64, n), make([]float64, n)
@@ -36,12 +36,12 @@ func TestJacobianFiniteDifference(t *testing.T) {
 			}
 			up := append([]float64(nil), u...)
 			up[c] += h
-			s.evaluate(up, false)
+			s.evaluate(up)
 			copy(rp, s.R[:n])
 			up[c] -= 2 * h
-			s.evaluate(up, false)
+			s.evaluate(up)
 			copy(rm, s.R[:n])
-			s.evaluate(u, false)
+			s.evaluate(u)
 			for r := 0; r < n; r++ {
 				fd := (rp[r] - rm[r]) / (2 * h)
 				an := J[r*n+c]

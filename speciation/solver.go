@@ -105,7 +105,6 @@ type Solver struct {
 	logAw   float64
 	lastRes float64
 	iters   int
-	debug   bool
 	evals   int
 	// phase rows: for each row (or -1) the phase index and target
 	rowPhase  []int
@@ -343,8 +342,8 @@ func (s *Solver) setup(w *Water) error {
 		if nuOf(db.Minerals[pi].Terms, ci) == 0 {
 			return inputErr("%s does not contain %s", f.Phase, f.Component)
 		}
-		if s.role[ci] == roleCharge || s.role[ci] == roleAlk || (ci == db.hplus && s.role[ci] == roleFixed && !w.PHFromChargeBalance && false) {
-			return inputErr("%s has two constraints", f.Component)
+		if s.role[ci] == roleCharge || s.role[ci] == roleAlk || s.role[ci] == rolePhase {
+			return inputErr("%s has two constraints (charge balance, alkalinity or another phase)", f.Component)
 		}
 		s.role[ci], s.phaseOf[ci], s.target[ci] = rolePhase, pi, f.Target
 	}
@@ -613,7 +612,7 @@ func (s *Solver) speciesMolalities(u []float64) {
 			v = -300
 		}
 		s.logm[k] = v
-		s.m[k] = math.Exp(v * math.Ln10)
+		s.m[k] = pow10(v)
 	}
 }
 
@@ -861,9 +860,9 @@ func (s *Solver) jacobian(u []float64) {
 	}
 }
 
-// evaluate computes residuals, scales and (if jac) the Jacobian at u, and returns the
+// evaluate computes the molalities, residuals and row scales at u, and returns the
 // scaled residual norm (sum of squares) and the largest scaled residual.
-func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
+func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 	n := s.n
 	s.evals++
 	I := u[s.iCol]
@@ -876,29 +875,13 @@ func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
 	}
 	R[s.iCol] = I
 	sc[s.iCol] = I
-	var J []float64
-	if jac {
-		J = s.J[:n*n]
-		clear(J)
-		J[s.iCol*n+s.iCol] = 1
-	}
-	ln10 := math.Ln10
 	for k := range s.act {
 		m := s.m[k]
-		dl := s.dlg[k]
 		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
-			r, w := s.rowIdx[p], s.rowW[p]
-			wm := w * m
+			wm := s.rowW[p] * m
+			r := s.rowIdx[p]
 			R[r] += wm
 			sc[r] += math.Abs(wm)
-			if jac {
-				f := ln10 * wm
-				jr := J[r*n : r*n+n]
-				for q := s.colOff[k]; q < s.colOff[k+1]; q++ {
-					jr[s.colIdx[q]] += f * s.colNu[q]
-				}
-				jr[s.iCol] -= f * dl
-			}
 		}
 	}
 	// equilibrium phases: amounts dissolved add to totals (and alkalinity)
@@ -912,35 +895,19 @@ func (s *Solver) evaluate(u []float64, jac bool) (norm, worst float64) {
 				r := s.row[ci]
 				R[r] -= t.Nu * xi
 				sc[r] += math.Abs(t.Nu * xi)
-				if jac {
-					J[r*n+base+k] -= t.Nu
-				}
 			}
 			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
 				r := s.row[db.carbonate]
 				R[r] -= t.Nu * s.alkComp[ci] * xi
 				sc[r] += math.Abs(t.Nu * s.alkComp[ci] * xi)
-				if jac {
-					J[r*n+base+k] -= t.Nu * s.alkComp[ci]
-				}
 			}
 		}
 	}
 	// phase rows (linear in the columns)
 	for r := 0; r < n; r++ {
-		pi := s.rowPhase[r]
-		if pi < 0 {
-			continue
-		}
-		R[r] = s.phaseLogIAP(pi, u) - s.phLogK[pi] - s.rowTarget[r]
-		sc[r] = 1
-		if jac {
-			jr := J[r*n : r*n+n]
-			for _, t := range db.Minerals[pi].Terms {
-				if c := s.col[t.Index]; c >= 0 {
-					jr[c] += t.Nu
-				}
-			}
+		if pi := s.rowPhase[r]; pi >= 0 {
+			R[r] = s.phaseLogIAP(pi, u) - s.phLogK[pi] - s.rowTarget[r]
+			sc[r] = 1
 		}
 	}
 	for r := 0; r < n; r++ {
@@ -967,7 +934,7 @@ func (s *Solver) newton(maxStep float64) error {
 		maxStep = 1.5
 	}
 	s.evals = 0
-	norm, worst := s.evaluate(u, false)
+	norm, worst := s.evaluate(u)
 	it, stall := 0, 0
 	for ; it < maxIt; it++ {
 		if !finite(norm) {
@@ -988,7 +955,7 @@ func (s *Solver) newton(maxStep float64) error {
 				s.warmValid = true
 				return nil
 			}
-			norm, worst = s.evaluate(u, false)
+			norm, worst = s.evaluate(u)
 			continue
 		}
 		if err := s.checkBounds(u, it); err != nil {
@@ -1016,9 +983,6 @@ func (s *Solver) newton(maxStep float64) error {
 				f = maxStep / a
 			}
 		}
-		if s.debug {
-			fmt.Printf("du %.3g\n", du)
-		}
 		I := u[s.iCol]
 		if dI := du[s.iCol]; I+f*dI < 0.2*I {
 			f = 0.8 * I / -dI
@@ -1033,7 +997,7 @@ func (s *Solver) newton(maxStep float64) error {
 			for c := range try {
 				try[c] = u[c] + f*du[c]
 			}
-			nTry, wTry = s.evaluate(try, false)
+			nTry, wTry = s.evaluate(try)
 			if (finite(nTry) && nTry < norm*(1-1e-4*f)) || h >= 10 || nTry <= 1e-30 {
 				break
 			}
@@ -1047,9 +1011,6 @@ func (s *Solver) newton(maxStep float64) error {
 		copy(u, try)
 		if stall >= 6 {
 			return &SolveError{Reason: s.diagnose(wTry), Iterations: it + 1, Err: ErrNoConvergence}
-		}
-		if s.debug {
-			fmt.Printf("it %d f %.3g norm %.3g worst %.3g I %.4g u %.3f\n", it, f, nTry, wTry, u[s.iCol], u)
 		}
 		norm, worst = nTry, wTry
 	}

@@ -606,3 +606,27 @@ func reverseComponents(t *testing.T) string {
 	}
 	return strings.Join(append(comps, rest...), "\n")
 }
+
+// The native water speciates across the whole supported range 0-100 C; away from 25 C
+// the result says that some log K (e.g. SrSO4(aq), no enthalpy in the data) are held
+// constant.
+func TestTemperatureRangeAndWarnings(t *testing.T) {
+	db := mustDefault(t)
+	s := NewSolver(db, TruesdellJones{})
+	for _, tc := range []float64{0, 25, 60, 100} {
+		w := nativeWater()
+		w.TempC = tc
+		res, err := s.Solve(&w)
+		if err != nil {
+			t.Fatalf("%g C: %v", tc, err)
+		}
+		hasWarn := false
+		for _, wn := range res.Warnings {
+			hasWarn = hasWarn || wn == WarnNoEnthalpy
+		}
+		if hasWarn != (tc != 25) {
+			t.Errorf("%g C: warnings %v", tc, res.Warnings)
+		}
+		checkFinite(t, "native water", res)
+	}
+}

@@ -138,7 +138,6 @@ func (r *Reactor) Equilibrate(sol Solution, candidates []string, kgwPerL float64
 			}
 		}
 		if drop >= 0 {
-			debugDrops++
 			excluded[active[drop]] = true
 			active = append(active[:drop:drop], active[drop+1:]...)
 			if res, err = r.solve(&cur, active); err != nil {
@@ -183,8 +182,13 @@ func (r *Reactor) Equilibrate(sol Solution, candidates []string, kgwPerL float64
 	}
 	eq.After = Solution{TempC: sol.TempC, PH: res.PH, Alkalinity: start.Alkalinity,
 		Totals: append([]speciation.ComponentTotal(nil), res.Totals...)}
-	for k, ph := range res.Phases {
-		eq.After.Alkalinity += ph.Dissolved * r.mineralAlk(active[k])
+	if r.PH == ConserveAlkalinity {
+		// conserved exactly: what the solids carried away
+		for k, ph := range res.Phases {
+			eq.After.Alkalinity += ph.Dissolved * r.mineralAlk(active[k])
+		}
+	} else {
+		eq.After.Alkalinity = res.Alkalinity
 	}
 	return eq, nil
 }
@@ -207,9 +211,10 @@ const CaCO3AlkFactor = 50045
 // eq/L, the equilibrium being calcite saturation reached in a closed system (calcite
 // precipitating, or dissolving when the water is undersaturated: then CCPP < 0).
 // kgwPerL converts eq/kgw to eq/L. ok is false when the water lacks calcium or
-// carbonate or the database has no mineral named Calcite.
+// carbonate, the database has no mineral named Calcite, or r.PH is HoldPH (a held pH
+// is not a closed system).
 func (r *Reactor) CCPP(sol Solution, kgwPerL float64) (ccpp float64, ok bool, err error) {
-	if r.db.Mineral("Calcite") == nil || sol.Total("Ca+2") <= 0 || sol.Total(speciation.NameCarbonate) <= 0 {
+	if r.PH == HoldPH || r.db.Mineral("Calcite") == nil || sol.Total("Ca+2") <= 0 || sol.Total(speciation.NameCarbonate) <= 0 {
 		return 0, false, nil
 	}
 	start, _, err := r.Speciate(sol)
@@ -264,5 +269,3 @@ func (r *Reactor) KnownMinerals(list []string) []string {
 	}
 	return out
 }
-
-var debugDrops int

@@ -240,3 +240,80 @@ func TestCCPPAgreesWithPrecipitate(t *testing.T) {
 		t.Errorf("Langelier %.2f, CCPP %.2f", res.Indices.Langelier, p.CCPP)
 	}
 }
+
+// The drop step of the active set: in an invented Ca-rich, Mg-poor water strongly
+// supersaturated with both, dolomite has the larger SI and enters first; once calcite
+// joins, holding both at SI = 0 would need Mg/Ca near K(dol)/K(cal)^2 (about 0.7 in
+// activity with the data's log K, Nordstrom et al. 1990 [M] and Plummer & Busenberg
+// 1982 [V]), far above the water's, so dolomite's amount turns negative and it must
+// leave. The answer: calcite alone, dolomite not precipitated and at SI <= 0.
+func TestActiveSetDropsDolomite(t *testing.T) {
+	db := defaultDB(t)
+	r := New(db, speciation.TruesdellJones{})
+	w := speciation.Water{TempC: 25, PH: 8.3}
+	w.SetTotal("Ca+2", 4e-3)
+	w.SetTotal("Mg+2", 0.15e-3)
+	w.SetTotal("Na+", 2e-3)
+	w.SetTotal("Cl-", 2e-3)
+	w.SetAlkalinity(8e-3)
+	sol, res, err := r.Prepare(&w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sd, _ := res.SI("Dolomite")
+	sc, _ := res.SI("Calcite")
+	if !(sd > sc && sc > 0) {
+		t.Fatalf("test water: dolomite SI %.2f should exceed calcite SI %.2f > 0", sd, sc)
+	}
+	eq, err := r.Equilibrate(sol, []string{"Calcite", "Dolomite"}, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(eq.Amounts) != 1 || eq.Amounts[0].Mineral != "Calcite" || eq.Amounts[0].MolKgw <= 0 {
+		t.Fatalf("amounts %+v, want calcite only", eq.Amounts)
+	}
+	if si, _ := eq.Result.SI("Dolomite"); si > 1e-6 {
+		t.Errorf("dolomite SI %.3g after the solve", si)
+	}
+	if si, _ := eq.Result.SI("Calcite"); math.Abs(si) > 1e-6 {
+		t.Errorf("calcite SI %.3g after the solve", si)
+	}
+	// the same answer as calcite alone
+	alone, err := r.Equilibrate(sol, []string{"Calcite"}, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !relClose(alone.Amounts[0].MolKgw, eq.Amounts[0].MolKgw, 1e-9) {
+		t.Errorf("calcite %.10g with dolomite dropped, %.10g alone", eq.Amounts[0].MolKgw, alone.Amounts[0].MolKgw)
+	}
+}
+
+// For a charge-balanced water the two closed-system pH rules agree (the alkalinity
+// and the charge balance then carry the same information): mixing, heating and
+// precipitating give the same pH and amounts.
+func TestPHModesAgreeForBalancedWater(t *testing.T) {
+	db := defaultDB(t)
+	var got [2]struct{ ph, x, ccpp float64 }
+	for i, mode := range []PHMode{ConserveAlkalinity, ChargeBalance} {
+		r := New(db, speciation.TruesdellJones{})
+		r.PH = mode
+		a := calciteSaturated(t, r, 10, -1.5)
+		b := calciteSaturated(t, r, 10, -3)
+		m, _, err := r.Mix(a, b, 0.2, 10)
+		if err != nil {
+			t.Fatal(err)
+		}
+		m.TempC = 70 // heated: calcite supersaturated
+		p, err := r.Precipitate(m, PrecipOptions{Minerals: []string{"Calcite"}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(p.Together.Amounts) != 1 || !p.HasCCPP {
+			t.Fatalf("%v: amounts %+v", mode, p.Together.Amounts)
+		}
+		got[i].ph, got[i].x, got[i].ccpp = p.Together.After.PH, p.Together.Amounts[0].MolKgw, p.CCPP
+	}
+	if math.Abs(got[0].ph-got[1].ph) > 1e-8 || !relClose(got[0].x, got[1].x, 1e-7) || !relClose(got[0].ccpp, got[1].ccpp, 1e-7) {
+		t.Errorf("alkalinity rule %+v, charge balance %+v", got[0], got[1])
+	}
+}

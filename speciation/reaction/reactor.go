@@ -104,6 +104,9 @@ func New(db *speciation.Database, model speciation.ActivityModel) *Reactor {
 // Database returns the reactor's database.
 func (r *Reactor) Database() *speciation.Database { return r.db }
 
+// Model returns the reactor's activity model.
+func (r *Reactor) Model() speciation.ActivityModel { return r.s.Model() }
+
 func checkTemp(field string, tempC float64) error {
 	if math.IsNaN(tempC) || tempC < speciation.MinTempC || tempC > speciation.MaxTempC {
 		return &InputError{Field: field, Value: fmt.Sprintf("%g C (supported %g-%g C)", tempC, speciation.MinTempC, speciation.MaxTempC), Err: ErrTemperature}
@@ -144,6 +147,10 @@ func (r *Reactor) Speciate(sol Solution) (Solution, *speciation.Result, error) {
 	}
 	out := sol.Clone()
 	out.PH = res.PH
+	if r.PH != ConserveAlkalinity {
+		// the alkalinity is not a constraint in these modes: report the speciated one
+		out.Alkalinity = res.Alkalinity
+	}
 	return out, res, nil
 }
 

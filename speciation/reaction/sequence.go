@@ -30,7 +30,8 @@ func (g Reagent) Unit() string {
 
 // ParseSalt builds a salt reagent from a formula of components such as
 // "2 Na+ + SO4-2" (terms joined by " + ", each an optional coefficient and a component
-// of db). The salt must be electrically neutral.
+// of db). The salt must be electrically neutral. An acid may be written with H+
+// ("H+ + Cl-"); a base cannot (OH- is not a component).
 func ParseSalt(db *speciation.Database, name, formula string) (Reagent, error) {
 	g := Reagent{Name: name}
 	var charge float64
@@ -64,8 +65,7 @@ func ParseSalt(db *speciation.Database, name, formula string) (Reagent, error) {
 
 // SequenceOptions sets Sequence.
 type SequenceOptions struct {
-	// Minerals that may precipitate; nil: every mineral with an SI in the water with
-	// the largest addition.
+	// Minerals that may precipitate; nil: ScaleMinerals (those of the database).
 	Minerals []string
 	// MaxAmount is the largest addition (mol/kgw of salt, or kg of reagent water per
 	// kg of water). Required, > 0.
@@ -161,13 +161,7 @@ func (r *Reactor) Sequence(sol Solution, g Reagent, opt SequenceOptions) (*Seque
 	}
 	cands := opt.Minerals
 	if cands == nil {
-		_, res, err := r.Speciate(r.added(sol, g, opt.MaxAmount))
-		if err != nil {
-			return nil, err
-		}
-		for _, m := range res.Minerals {
-			cands = append(cands, m.Name)
-		}
+		cands = r.KnownMinerals(ScaleMinerals())
 	}
 	out := &SequenceResult{Reagent: g.Name, Unit: g.Unit(), CleanRemoval: opt.CleanRemoval, Clean: true}
 	var onset []string // minerals that have reached saturation, in order
@@ -294,7 +288,11 @@ func (r *Reactor) added(sol Solution, g Reagent, x float64) Solution {
 	}
 	out := sol.Clone()
 	for _, t := range g.Salt {
-		out.setTotal(t.Component, out.Total(t.Component)+x*t.MolKgw)
+		// An acid (H+ in the formula) has no total of its own: it lowers the alkalinity
+		// (ConserveAlkalinity) or is balanced by its anion (ChargeBalance).
+		if t.Component != speciation.NameHPlus {
+			out.setTotal(t.Component, out.Total(t.Component)+x*t.MolKgw)
+		}
 		out.Alkalinity += x * t.MolKgw * r.db.Components[r.db.ComponentIndex(t.Component)].Alkalinity
 	}
 	return out

@@ -3,6 +3,8 @@ package reaction
 import (
 	"math"
 	"testing"
+
+	"gwsat/speciation"
 )
 
 // Selective precipitation in the ideal limit (activity coefficients 1, no ion pairs;
@@ -122,6 +124,35 @@ func TestParseSalt(t *testing.T) {
 		_, err := ParseSalt(db, "salt", tc.formula)
 		if (err == nil) != tc.ok {
 			t.Errorf("%q: error %v, want ok %v", tc.formula, err, tc.ok)
+		}
+	}
+}
+
+// Adding a salt or an acid to a charge-balanced water: the alkalinity rule (the acid
+// lowers the alkalinity by 1 eq/mol, Na2CO3 raises it by 2) and the charge-balance rule
+// (the added anion or cation is balanced by H+) give the same pH.
+func TestReagentAdditionModesAgree(t *testing.T) {
+	db := defaultDB(t)
+	for _, tc := range []struct{ name, formula string }{
+		{"HCl", "H+ + Cl-"}, {"Na2CO3", "2 Na+ + CO3-2"}, {"CaCl2", "Ca+2 + 2 Cl-"},
+	} {
+		g, err := ParseSalt(db, tc.name, tc.formula)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var ph [2]float64
+		for i, mode := range []PHMode{ConserveAlkalinity, ChargeBalance} {
+			r := New(db, speciation.TruesdellJones{})
+			r.PH = mode
+			sol := calciteSaturated(t, r, 25, -2)
+			_, res, err := r.Speciate(r.added(sol, g, 0.4e-3))
+			if err != nil {
+				t.Fatal(err)
+			}
+			ph[i] = res.PH
+		}
+		if math.Abs(ph[0]-ph[1]) > 1e-8 {
+			t.Errorf("%s: pH %.10f (alkalinity) vs %.10f (charge balance)", tc.name, ph[0], ph[1])
 		}
 	}
 }

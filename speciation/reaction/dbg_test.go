@@ -1,3 +1,0 @@
-package reaction
-import "testing"
-func TestZZDrops(t *testing.T){ t.Logf("drops %d", debugDrops) }
