@@ -161,19 +161,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		tempC = DefaultTempC
 		r.note(hydro.StatusWarning, "warning: no temperature: speciated at %.0f C", DefaultTempC)
 	}
-	sw.Reset()
-	sw.TempC = tempC
-	sw.PH = w.PH
-	for comp, m := range w.Molal {
-		if m > 0 {
-			sw.SetTotal(comp, m)
-		}
-	}
-	if w.HasAlkalinity {
-		if _, hasTIC := w.Molal[speciation.NameCarbonate]; !hasTIC && w.AlkalinityEqKgw > 0 {
-			sw.SetAlkalinity(w.AlkalinityEqKgw)
-		}
-	}
+	SpeciationWater(sw, &w, tempC)
 	if opt.BalanceOn != "" {
 		sw.ChargeBalanceIon = opt.BalanceOn
 	}
@@ -203,4 +191,31 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	if _, ok := w.Molal[speciation.NameCarbonate]; !ok && !w.HasAlkalinity {
 		r.Reasons = append(r.Reasons, "info: no alkalinity or carbonate: carbonate minerals and log pCO2 not computed")
 	}
+}
+
+// SpeciationWater fills dst from a converted lab sample: its temperature
+// (tempC, since a missing one is the caller's choice), pH, component
+// totals, and alkalinity unless total inorganic carbon was measured.
+func SpeciationWater(dst *speciation.Water, w *hydro.Water, tempC float64) {
+	dst.Reset()
+	dst.TempC = tempC
+	dst.PH = w.PH
+	for comp, m := range w.Molal {
+		if m > 0 {
+			dst.SetTotal(comp, m)
+		}
+	}
+	if w.HasAlkalinity {
+		if _, hasTIC := w.Molal[speciation.NameCarbonate]; !hasTIC && w.AlkalinityEqKgw > 0 {
+			dst.SetAlkalinity(w.AlkalinityEqKgw)
+		}
+	}
+}
+
+// TempC returns the temperature a record was speciated at.
+func (r *Record) TempC() float64 {
+	if r.Water.HasTemp {
+		return r.Water.TempC
+	}
+	return DefaultTempC
 }

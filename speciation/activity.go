@@ -54,7 +54,8 @@ func ExtendedDebyeHuckel(z, a, A, B, I float64) float64 {
 }
 
 // ActivityState is what an activity model sees: one entry per species present in the
-// solve (the slices have equal length). The solver fills it; models only read it.
+// solve (all slices have the length of logG in LogGammas). The solver fills it; models
+// only read it.
 type ActivityState struct {
 	TempC float64
 	I     float64 // ionic strength, mol/kgw

@@ -89,3 +89,4 @@ func BenchmarkSolveSurveyWarm(b *testing.B) {
 func BenchmarkSolveSurveyCold(b *testing.B) {
 	benchSolve(b, false, nativeVariants(64))
 }
+

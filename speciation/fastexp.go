@@ -4,12 +4,15 @@ import "math"
 
 const log2of10 = 3.321928094887362347870319429489390175864831393
 
-// pow10 returns 10^x for x in [-300, 300] (callers clamp), with a relative error below
+// pow10 returns 10^x; for x in [-300, 300] it uses a fast path with a relative error below
 // 2e-13 (about 1.5 times faster than math.Exp on amd64, and exact enough for molalities:
 // the balances use the same numbers as the results). 10^x = 2^n e^y with n the nearest
 // integer to x log2(10) and |y| <= ln2/2, e^y by its Taylor series to degree 12
 // (truncation error below 2e-16), 2^n put in the exponent bits.
 func pow10(x float64) float64 {
+	if !(x >= -300 && x <= 300) {
+		return math.Pow(10, x) // outside the fast range, and NaN
+	}
 	n := math.Floor(x*log2of10 + 0.5)
 	// y = x ln10 - n ln2, with ln2 split in a high and a low part (Cody-Waite)
 	y := x*math.Ln10 - n*6.93147180369123816490e-01 - n*1.90821492927058770002e-10

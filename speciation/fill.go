@@ -29,15 +29,19 @@ func (s *Solver) fill(res *Result, w *Water) {
 	res.WaterActivity = exp10(s.logAw)
 	res.PH = -s.la[db.hplus]
 	var zsum, zabs, alk float64
+	na := len(s.act)
+	if cap(res.Species) < na {
+		res.Species = make([]SpeciesResult, na)
+	}
+	res.Species = res.Species[:na]
 	for k, si := range s.act {
 		sp := &db.Species[si]
 		m := s.m[k]
-		la := s.logm[k] + s.lg[k]
-		g := exp10(s.lg[k])
-		res.Species = append(res.Species, SpeciesResult{
-			Name: sp.Name, Charge: sp.Charge, Molality: m,
-			LogGamma: s.lg[k], Gamma: g, Activity: m * g, LogActivity: la,
-		})
+		lg := s.lg[k]
+		g := pow10(lg)
+		r := &res.Species[k]
+		r.Name, r.Charge, r.Molality = sp.Name, sp.Charge, m
+		r.LogGamma, r.Gamma, r.Activity, r.LogActivity = lg, g, m*g, s.logm[k]+lg
 		zsum += sp.Charge * m
 		zabs += math.Abs(sp.Charge) * m
 		alk += s.alkSp[si] * m

@@ -67,6 +67,11 @@ type Solver struct {
 	rowIdx  []int
 	rowW    []float64
 
+	jOff   []int     // per active species: range of its Jacobian entries
+	jPos   []int     // flat index into J
+	jCoef  []float64 // w_row * nu_col
+	jRow   []int     // row of the entry (for the row scale)
+
 	compSp [][]spNu // species containing each component with nu > 0 (db order)
 	spPos  []int    // position of a db species among the active ones, -1 if inactive
 	hSp    int      // species index of H+
@@ -487,6 +492,10 @@ func (s *Solver) buildStructure() {
 
 	// Active species and their sparse structure.
 	s.act = s.act[:0]
+	s.st.Charge = s.st.Charge[:cap(s.st.Charge)]
+	s.st.IonSize = s.st.IonSize[:cap(s.st.IonSize)]
+	s.st.TJB = s.st.TJB[:cap(s.st.TJB)]
+	s.st.Species = s.st.Species[:cap(s.st.Species)]
 	s.colIdx, s.colNu = s.colIdx[:0], s.colNu[:0]
 	s.rowIdx, s.rowW = s.rowIdx[:0], s.rowW[:0]
 	for si := range db.Species {
@@ -540,6 +549,28 @@ func (s *Solver) buildStructure() {
 	}
 	na := len(s.act)
 	s.colOff[na], s.rowOff[na] = len(s.colIdx), len(s.rowIdx)
+	s.st.Charge = s.st.Charge[:na]
+	s.st.IonSize = s.st.IonSize[:na]
+	s.st.TJB = s.st.TJB[:na]
+	s.st.Species = s.st.Species[:na]
+	// flattened Jacobian entries: d(row p)/d(col q) = ln10 w_p nu_q m
+	if cap(s.jOff) < na+1 {
+		s.jOff = make([]int, na+1)
+	}
+	s.jOff = s.jOff[:na+1]
+	s.jPos, s.jCoef, s.jRow = s.jPos[:0], s.jCoef[:0], s.jRow[:0]
+	for k := 0; k < na; k++ {
+		s.jOff[k] = len(s.jPos)
+		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
+			r := s.rowIdx[p]
+			for q := s.colOff[k]; q < s.colOff[k+1]; q++ {
+				s.jPos = append(s.jPos, r*nTot+s.colIdx[q])
+				s.jCoef = append(s.jCoef, s.rowW[p]*s.colNu[q])
+				s.jRow = append(s.jRow, r)
+			}
+		}
+	}
+	s.jOff[na] = len(s.jPos)
 }
 
 type spNu struct {
@@ -619,8 +650,7 @@ func (s *Solver) speciesMolalities(u []float64) {
 func (s *Solver) gammas(I float64) {
 	na := len(s.act)
 	s.st.I = I
-	s.st.Molality = s.st.Molality[:cap(s.st.Molality)]
-	copy(s.st.Molality[:na], s.m[:na])
+	s.st.Molality = s.m[:na]
 	s.logAw = s.model.LogGammas(s.lg[:na], s.dlg[:na], &s.st)
 }
 
@@ -813,24 +843,31 @@ func (s *Solver) applyPhaseFixes(u []float64) {
 	}
 }
 
-// jacobian builds the Jacobian at the point of the last evaluate (it uses s.m, s.dlg).
+// jacobian builds the Jacobian at the point of the last evaluate (it uses s.m, s.dlg
+// and s.scale), each row divided by its scale.
 func (s *Solver) jacobian(u []float64) {
 	n := s.n
 	J := s.J[:n*n]
 	clear(J)
-	J[s.iCol*n+s.iCol] = 1
 	ln10 := math.Ln10
+	inv := s.du[:n] // scratch: 1/scale of each row (du is overwritten by the caller)
+	for r := range inv {
+		inv[r] = 1 / s.scale[r]
+	}
+	J[s.iCol*n+s.iCol] = inv[s.iCol]
+	iCol := s.iCol
+	jPos, jCoef, jRow := s.jPos, s.jCoef, s.jRow
 	for k := range s.act {
 		m := ln10 * s.m[k]
-		dl := s.dlg[k]
-		c0, c1 := s.colOff[k], s.colOff[k+1]
+		for e := s.jOff[k]; e < s.jOff[k+1]; e++ {
+			jr := jRow[e]
+			J[jPos[e]] += jCoef[e] * m * inv[jr]
+		}
+		// ionic-strength column: - ln10 w m dlogg/dI
+		md := m * s.dlg[k]
 		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
-			f := s.rowW[p] * m
-			jr := J[s.rowIdx[p]*n : s.rowIdx[p]*n+n]
-			for q := c0; q < c1; q++ {
-				jr[s.colIdx[q]] += f * s.colNu[q]
-			}
-			jr[s.iCol] -= f * dl
+			r := s.rowIdx[p]
+			J[r*n+iCol] -= s.rowW[p] * md * inv[r]
 		}
 	}
 	base := s.iCol + 1
@@ -839,10 +876,12 @@ func (s *Solver) jacobian(u []float64) {
 		for _, t := range db.Minerals[pi].Terms {
 			ci := t.Index
 			if s.role[ci] == roleTotal {
-				J[s.row[ci]*n+base+k] -= t.Nu
+				r := s.row[ci]
+				J[r*n+base+k] -= t.Nu * inv[r]
 			}
 			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
-				J[s.row[db.carbonate]*n+base+k] -= t.Nu * s.alkComp[ci]
+				r := s.row[db.carbonate]
+				J[r*n+base+k] -= t.Nu * s.alkComp[ci] * inv[r]
 			}
 		}
 	}
@@ -854,7 +893,7 @@ func (s *Solver) jacobian(u []float64) {
 		jr := J[r*n : r*n+n]
 		for _, t := range db.Minerals[pi].Terms {
 			if c := s.col[t.Index]; c >= 0 {
-				jr[c] += t.Nu
+				jr[c] += t.Nu * inv[r]
 			}
 		}
 	}
@@ -962,16 +1001,11 @@ func (s *Solver) newton(maxStep float64) error {
 			return err
 		}
 		s.jacobian(u)
-		// scale rows, solve J du = -R
+		// solve J du = -R (rows scaled)
 		J := s.J[:n*n]
 		du := s.du[:n]
 		for r := 0; r < n; r++ {
-			inv := 1 / s.scale[r]
-			jr := J[r*n : r*n+n]
-			for c := range jr {
-				jr[c] *= inv
-			}
-			du[r] = -s.R[r] * inv
+			du[r] = -s.R[r] / s.scale[r]
 		}
 		if !luSolve(J, s.piv[:n], du, n) {
 			return &SolveError{Reason: fmt.Sprintf("singular Jacobian at iteration %d", it), Iterations: it, Err: ErrSingular}
@@ -1079,6 +1113,8 @@ func (s *Solver) checkBounds(u []float64, it int) error {
 // pivoting on the row-major n x n matrix A (destroyed). It reports false when A is
 // singular to working precision.
 func luSolve(A []float64, piv []int, b []float64, n int) bool {
+	A = A[:n*n]
+	b = b[:n]
 	for k := 0; k < n; k++ {
 		p := k
 		mx := math.Abs(A[k*n+k])
@@ -1100,22 +1136,27 @@ func luSolve(A []float64, piv []int, b []float64, n int) bool {
 		piv[k] = p
 		d := 1 / A[k*n+k]
 		rk := A[k*n+k+1 : k*n+n]
+		bk := b[k]
 		for i := k + 1; i < n; i++ {
 			l := A[i*n+k] * d
 			if l == 0 {
 				continue
 			}
 			ri := A[i*n+k+1 : i*n+n]
+			ri = ri[:len(rk)]
 			for j, v := range rk {
 				ri[j] -= l * v
 			}
-			b[i] -= l * b[k]
+			b[i] -= l * bk
 		}
 	}
 	for k := n - 1; k >= 0; k-- {
 		v := b[k]
-		for j := k + 1; j < n; j++ {
-			v -= A[k*n+j] * b[j]
+		row := A[k*n+k+1 : k*n+n]
+		xs := b[k+1:]
+		xs = xs[:len(row)]
+		for j, a := range row {
+			v -= a * xs[j]
 		}
 		b[k] = v / A[k*n+k]
 		if !finite(b[k]) {

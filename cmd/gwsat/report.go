@@ -45,6 +45,10 @@ func runReport(e *env, args []string) int {
 	if code, ok := parseFlags(fs, args); !ok {
 		return code
 	}
+	if in.demo {
+		mix.inject = defaultID(true, mix.inject, demoInject)
+		mix.native = defaultID(true, mix.native, demoNative)
+	}
 	if *method != "kriging" && *method != "idw" {
 		return failf(e, exitUsage, "report: -method must be kriging or idw")
 	}
