@@ -89,4 +89,3 @@ func BenchmarkSolveSurveyWarm(b *testing.B) {
 func BenchmarkSolveSurveyCold(b *testing.B) {
 	benchSolve(b, false, nativeVariants(64))
 }
-

@@ -67,10 +67,10 @@ type Solver struct {
 	rowIdx  []int
 	rowW    []float64
 
-	jOff   []int     // per active species: range of its Jacobian entries
-	jPos   []int     // flat index into J
-	jCoef  []float64 // w_row * nu_col
-	jRow   []int     // row of the entry (for the row scale)
+	jOff  []int     // per active species: range of its Jacobian entries
+	jPos  []int     // flat index into J
+	jCoef []float64 // w_row * nu_col
+	jRow  []int     // row of the entry (for the row scale)
 
 	compSp [][]spNu // species containing each component with nu > 0 (db order)
 	spPos  []int    // position of a db species among the active ones, -1 if inactive

@@ -153,13 +153,14 @@ func defaultID(demo bool, id, demoID string) string {
 	return id
 }
 
-// usageErr maps input errors of the reaction package to exit code 2.
+// usageErr maps errors to exit codes: a chemistry failure (a solve that did
+// not converge) is 1, anything about the input or arguments is 2.
 func usageErr(e *env, cmd string, err error) int {
-	var ie *reaction.InputError
-	if errors.As(err, &ie) || errors.Is(err, speciation.ErrTemperature) {
-		return failf(e, exitUsage, "%s: %v", cmd, err)
+	var se *reaction.SolveError
+	if errors.As(err, &se) && !errors.Is(err, speciation.ErrTemperature) {
+		return failf(e, exitRejected, "%s: %v", cmd, err)
 	}
-	return failf(e, exitRejected, "%s: %v", cmd, err)
+	return failf(e, exitUsage, "%s: %v", cmd, err)
 }
 
 // plotTo renders a figure to a file whose extension names the format.
