@@ -23,6 +23,9 @@ type ProfileLine struct {
 	Label string
 	Depth []float64
 	SI    []float64
+	// Points draws the values as unconnected markers (e.g. single wells that
+	// are not one nest), not as a line.
+	Points bool
 }
 
 // ProfilePanel is one mineral's panel of a depth profile.
@@ -117,8 +120,9 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 	var legend []legendEntry
 	type panelData struct {
 		title string
-		lines []plotter.XYs
-		idx   []int
+		lines  []plotter.XYs
+		idx    []int
+		points []bool
 	}
 	var pds []panelData
 	y0, y1 := math.Inf(1), math.Inf(-1)
@@ -160,6 +164,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 			}
 			pd.lines = append(pd.lines, xys)
 			pd.idx = append(pd.idx, k)
+			pd.points = append(pd.points, l.Points)
 			any = true
 		}
 		pds = append(pds, pd)
@@ -214,7 +219,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 		zero.LineStyle = draw.LineStyle{Color: inkColor, Width: 0.9}
 		p.Add(zero)
 		for j, l := range pd.lines {
-			p.Add(&seriesPlotter{xys: l, st: styleFor(pd.idx[j]), glyphs: true})
+			p.Add(&seriesPlotter{xys: l, st: styleFor(pd.idx[j]), glyphs: true, noLine: pd.points[j]})
 		}
 		p.X.Min, p.X.Max = x0-xp, x1+xp
 		p.Y.Min, p.Y.Max = y0, y1
@@ -260,6 +265,7 @@ type seriesPlotter struct {
 	xys    plotter.XYs
 	st     seriesStyle
 	glyphs bool
+	noLine bool // markers only (unconnected points)
 }
 
 func (s *seriesPlotter) Plot(c draw.Canvas, p *plot.Plot) {
@@ -268,7 +274,9 @@ func (s *seriesPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 	for i, q := range s.xys {
 		pts[i] = vg.Point{X: tx(q.X), Y: ty(q.Y)}
 	}
-	c.StrokeLines(s.st.line, c.ClipLinesXY(pts)...)
+	if !s.noLine {
+		c.StrokeLines(s.st.line, c.ClipLinesXY(pts)...)
+	}
 	if s.glyphs {
 		for _, pt := range pts {
 			if c.Contains(pt) {

@@ -430,6 +430,10 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 		var panels []maps.ProfilePanel
 		for _, m := range minerals {
 			pp := maps.ProfilePanel{Mineral: m}
+			// Wells standing alone (not in a nest) share one series of
+			// unconnected markers: a line between different wells would
+			// suggest a profile that was never sampled.
+			singles := maps.ProfileLine{Label: "single wells", Points: true}
 			for _, n := range nests {
 				line := maps.ProfileLine{Label: n.label}
 				sort.Slice(n.members, func(i, j int) bool { return n.members[i].depth < n.members[j].depth })
@@ -439,9 +443,16 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 						line.SI = append(line.SI, si)
 					}
 				}
-				if len(line.Depth) > 0 {
+				switch {
+				case len(n.members) == 1:
+					singles.Depth = append(singles.Depth, line.Depth...)
+					singles.SI = append(singles.SI, line.SI...)
+				case len(line.Depth) > 0:
 					pp.Lines = append(pp.Lines, line)
 				}
+			}
+			if len(singles.Depth) > 0 {
+				pp.Lines = append(pp.Lines, singles)
 			}
 			panels = append(panels, pp)
 		}
@@ -449,14 +460,17 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 		if name == "" {
 			name = "site"
 		}
-		title := fmt.Sprintf("Cluster %s, round %s", name, round)
+		title := "Cluster " + name
 		if c == "" {
-			title = fmt.Sprintf("All wells, round %s", round)
+			title = "All wells"
+		}
+		if round != "" {
+			title += ", round " + round
 		}
 		figs = append(figs, Fig{
 			Stem:  "profile_" + slug(name),
 			Title: title,
-			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
+			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest (wells within 10 m of each other), single wells as unconnected markers; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
 				maps.DefaultBand, opt.Model),
 			Figure: maps.DepthProfile{Title: title, Panels: panels},
 			W:      vg.Length(len(panels))*5*vg.Centimeter + 3*vg.Centimeter, H: 11 * vg.Centimeter,

@@ -117,3 +117,12 @@ func TestPow10(t *testing.T) {
 		}
 	}
 }
+
+// roughLog10 is only a starting-guess helper; property: within 1e-5 of math.Log10.
+func TestRoughLog10(t *testing.T) {
+	for x := 1e-300; x < 1e300; x *= 1.37 {
+		if d := math.Abs(roughLog10(x) - math.Log10(x)); d > 1e-5 {
+			t.Fatalf("roughLog10(%g) off by %g", x, d)
+		}
+	}
+}

@@ -23,3 +23,19 @@ func pow10(x float64) float64 {
 			y4*((1.0/40320+y*(1.0/362880))+y2*(1.0/3628800+y*(1.0/39916800))+y4*(1.0/479001600)))
 	return math.Float64frombits(math.Float64bits(p) + uint64(int64(n))<<52)
 }
+
+// roughLog10 returns log10(x) for finite x > 0 within about 1e-5; it is used only for
+// starting guesses, which Newton refines. Non-positive or non-finite x fall back to
+// math.Log10.
+func roughLog10(x float64) float64 {
+	if !(x > 2.3e-308 && x < 1.7e308) {
+		return math.Log10(x)
+	}
+	b := math.Float64bits(x)
+	e := float64(int64(b>>52&0x7ff) - 1023)
+	m := math.Float64frombits(b&^(0x7ff<<52) | 1023<<52) // mantissa in [1, 2)
+	t := (m - 1) / (m + 1)
+	t2 := t * t
+	ln := 2 * t * (1 + t2*(1.0/3+t2*(1.0/5+t2*(1.0/7+t2*(1.0/9)))))
+	return e*math.Log10(2) + ln*math.Log10E
+}

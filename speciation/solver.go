@@ -72,6 +72,8 @@ type Solver struct {
 	jCoef []float64 // w_row * nu_col
 	jRow  []int     // row of the entry (for the row scale)
 
+	nameCache []ComponentTotal // component name and its index (as float) by position in Water.totals
+
 	compSp [][]spNu // species containing each component with nu > 0 (db order)
 	spPos  []int    // position of a db species among the active ones, -1 if inactive
 	hSp    int      // species index of H+
@@ -271,8 +273,18 @@ func (s *Solver) setup(w *Water) error {
 		s.role[i], s.total[i], s.phaseOf[i], s.target[i] = roleAbsent, 0, -1, 0
 		s.active[i] = false
 	}
-	for _, t := range w.totals {
-		ci := db.ComponentIndex(t.Component)
+	if len(s.nameCache) < len(w.totals) {
+		s.nameCache = append(s.nameCache, make([]ComponentTotal, len(w.totals)-len(s.nameCache))...)
+	}
+	for i, t := range w.totals {
+		// positional cache of name -> index (the same kind of water usually comes again)
+		var ci int
+		if c := &s.nameCache[i]; c.Component == t.Component && c.Component != "" {
+			ci = int(c.MolKgw)
+		} else {
+			ci = db.ComponentIndex(t.Component)
+			c.Component, c.MolKgw = t.Component, float64(ci)
+		}
 		if ci < 0 {
 			return inputErr("unknown component %q", t.Component)
 		}
@@ -573,6 +585,13 @@ func (s *Solver) buildStructure() {
 	s.jOff[na] = len(s.jPos)
 }
 
+// Starting-guess modes of initialGuess and sweep.
+const (
+	modeCharge = 0 // H+ by charge balance moved by the closed-form estimate
+	modeGentle = 1 // H+ moved by half the log ratio of the charge sums
+	modeWarm   = 2 // from the previous solution (exact logarithms)
+)
+
 type spNu struct {
 	sp int
 	nu float64
@@ -625,7 +644,7 @@ func (s *Solver) warmStart() bool {
 	}
 	s.logAw = 0
 	s.gammas(u[s.iCol])
-	s.sweep(u, 1, 0)
+	s.sweep(u, 1, modeWarm)
 	return true
 }
 
@@ -696,14 +715,14 @@ func (s *Solver) initialGuess(mode int) {
 		}
 		switch s.role[ci] {
 		case roleTotal:
-			u[c] = math.Log10(s.total[ci])
+			u[c] = roughLog10(s.total[ci])
 		case roleAlk:
-			u[c] = math.Log10(s.alk) - 3
+			u[c] = roughLog10(s.alk) - 3
 		case roleCharge:
 			if ci == db.hplus {
 				u[c] = -7
 			} else {
-				u[c] = math.Log10(s.total[ci])
+				u[c] = roughLog10(s.total[ci])
 			}
 		case rolePhase:
 			u[c] = -5
@@ -725,6 +744,10 @@ func (s *Solver) initialGuess(mode int) {
 // strength held in s.lg, then sets the ionic strength from the result.
 func (s *Solver) sweep(u []float64, sweeps, mode int) {
 	db := s.db
+	log10 := roughLog10 // a starting guess needs no more
+	if mode == modeWarm {
+		log10 = math.Log10 // near the solution: exact
+	}
 	for sweep := 0; sweep < sweeps; sweep++ {
 		s.applyPhaseFixes(u)
 		s.speciesMolalities(u)
@@ -753,15 +776,15 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 			switch s.role[ci] {
 			case roleTotal:
 				if s.R[c] > 0 {
-					d = math.Log10(s.total[ci] / s.R[c])
+					d = log10(s.total[ci] / s.R[c])
 				}
 			case roleAlk:
 				if s.R[c] > 0 {
-					d = math.Log10(s.alk / s.R[c])
+					d = log10(s.alk / s.R[c])
 				}
 			case roleCharge:
 				Z := s.R[c] // sum z m
-				if ci == db.hplus && mode == 0 {
+				if ci == db.hplus && mode != modeGentle {
 					// Solve m(H+) - m(OH-) + D = 0 with m(H+) m(OH-) held at its current value.
 					mh, moh := 0.0, 0.0
 					if k := s.spPos[s.hSp]; k >= 0 {
@@ -781,7 +804,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 						mNew = (-D + math.Sqrt(D*D+4*kw)) / 2
 					}
 					if mh > 0 && mNew > 0 {
-						d = math.Log10(mNew / mh)
+						d = log10(mNew / mh)
 					}
 				} else if ci == db.hplus {
 					// gentle: move toward balance by half the log ratio of the charges
@@ -794,7 +817,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 						}
 					}
 					if pos > 0 && neg > 0 {
-						d = 0.5 * math.Log10(neg/pos)
+						d = 0.5 * log10(neg/pos)
 					}
 				} else {
 					sum := 0.0
@@ -805,7 +828,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 					}
 					newT := math.Max(sum-Z/db.Components[ci].Charge, 1e-3*sum)
 					if sum > 0 {
-						d = math.Log10(newT / sum)
+						d = log10(newT / sum)
 					}
 				}
 			}
