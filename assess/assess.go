@@ -113,7 +113,8 @@ func worse(a, b hydro.Status) hydro.Status {
 	return a
 }
 
-func (r *Record) note(st hydro.Status, format string, a ...any) {
+// Note adds a reason and raises the status to at least st.
+func (r *Record) Note(st hydro.Status, format string, a ...any) {
 	r.Status = worse(r.Status, st)
 	r.Reasons = append(r.Reasons, fmt.Sprintf(format, a...))
 }
@@ -130,9 +131,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		// Info only: many files carry a partial analysis on purpose.
 		r.Reasons = append(r.Reasons, fmt.Sprintf("info: charge balance incomplete (missing %v)", r.Balance.Missing))
 	case r.Balance.Status == hydro.BalanceFail:
-		r.note(hydro.StatusWarning, "warning: charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	case r.Balance.Status == hydro.BalanceWarn:
-		r.note(hydro.StatusWarning, "warning: charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	}
 	if r.Status == hydro.StatusRejected {
 		return
@@ -142,9 +143,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	for _, is := range issues {
 		switch is.Severity {
 		case hydro.Error:
-			r.note(hydro.StatusRejected, "%s", is)
+			r.Note(hydro.StatusRejected, "%s", is)
 		case hydro.Warning:
-			r.note(hydro.StatusWarning, "%s", is)
+			r.Note(hydro.StatusWarning, "%s", is)
 		default:
 			r.Reasons = append(r.Reasons, is.String())
 		}
@@ -153,13 +154,13 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		return
 	}
 	if !w.HasPH {
-		r.note(hydro.StatusWarning, "warning: no pH: speciation skipped")
+		r.Note(hydro.StatusWarning, "warning: no pH: speciation skipped")
 		return
 	}
 	tempC := w.TempC
 	if !w.HasTemp {
 		tempC = DefaultTempC
-		r.note(hydro.StatusWarning, "warning: no temperature: speciated at %.0f C", DefaultTempC)
+		r.Note(hydro.StatusWarning, "warning: no temperature: speciated at %.0f C", DefaultTempC)
 	}
 	SpeciationWater(sw, &w, tempC)
 	if opt.BalanceOn != "" {
@@ -173,7 +174,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 			reason = se.Reason
 		}
 		r.SolveError = reason
-		r.note(hydro.StatusWarning, "warning: speciation failed: %s", reason)
+		r.Note(hydro.StatusWarning, "warning: speciation failed: %s", reason)
 		return
 	}
 	r.Result = res
@@ -183,7 +184,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	}
 	for _, wmsg := range res.Warnings {
 		if wmsg == speciation.WarnIonicStrength {
-			r.note(hydro.StatusWarning, "warning: ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
+			r.Note(hydro.StatusWarning, "warning: ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
 			continue
 		}
 		r.Reasons = append(r.Reasons, "info: "+wmsg)

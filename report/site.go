@@ -554,3 +554,19 @@ func colourLimit(panels []maps.Figure) float64 {
 	}
 	return math.Max(0.5, math.Ceil(m/0.5)*0.5)
 }
+
+// FlagPositions adds a warning to every record whose coordinates were
+// reported but cannot be placed (out of range, the (0, 0) of blank cells,
+// easting/northing without an EPSG code): such rows stay in every table and
+// are left off maps. Rows with no coordinates at all are not flagged.
+func FlagPositions(recs []assess.Record) {
+	for i := range recs {
+		s := recs[i].Sample()
+		if !(s.Lat.OK || s.Lon.OK || s.Easting.OK || s.Northing.OK) {
+			continue
+		}
+		if _, err := Position(s); err != nil {
+			recs[i].Note(hydro.StatusWarning, "warning: position not usable (%v): left off maps", err)
+		}
+	}
+}

@@ -1003,9 +1003,11 @@ func (s *Solver) newton(maxStep float64) error {
 			return &SolveError{Reason: "non-finite residual", Iterations: it, Err: ErrNoConvergence}
 		}
 		if worst <= Tolerance {
-			// check the lagged water activity
+			// check the lagged water activity (models that do not model it return 0)
 			aw := s.logAw
-			s.gammas(u[s.iCol])
+			if aw != 0 {
+				s.gammas(u[s.iCol])
+			}
 			if math.Abs(s.logAw-aw) <= 1e-12 {
 				s.lastRes = worst
 				s.iters = it

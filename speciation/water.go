@@ -85,7 +85,8 @@ func (w *Water) SetAlkalinity(eqKgw float64) {
 func (w *Water) Alkalinity() (float64, bool) { return w.alk, w.hasAlk }
 
 // FixByPhase fixes a component by equilibrium with a mineral (target SI) or a gas
-// (target log10 partial pressure, atm), replacing its mass balance.
+// (target log10 partial pressure, atm), replacing its mass balance: a total set for the
+// component is ignored, and the resulting total is reported in Result.Totals.
 func (w *Water) FixByPhase(component, phase string, target float64) {
 	for i := range w.fixes {
 		if w.fixes[i].Component == component {

@@ -12,6 +12,7 @@ import (
 	"gwsat/data"
 	"gwsat/hydro"
 	"gwsat/internal/progress"
+	"gwsat/report"
 	"gwsat/speciation"
 )
 
@@ -137,6 +138,7 @@ func (f *inputFlags) assessAll(e *env, args []string) ([]*hydro.Batch, []assess.
 	bar := progress.New(stderrFile(e), "speciating", n)
 	recs, err := assess.Run(e.ctx, db, batches, assess.Options{Model: model, BalanceOn: bal, Progress: func() { bar.Add(1) }})
 	bar.Done()
+	report.FlagPositions(recs)
 	return batches, recs, db, err
 }
 
