@@ -187,6 +187,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 			r.Note(hydro.StatusWarning, "warning: ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
 			continue
 		}
+		if wmsg == speciation.WarnNoEnthalpy {
+			continue // a property of the data set, stated in the README, not of the sample
+		}
 		r.Reasons = append(r.Reasons, "info: "+wmsg)
 	}
 	if _, ok := w.Molal[speciation.NameCarbonate]; !ok && !w.HasAlkalinity {

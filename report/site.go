@@ -58,6 +58,9 @@ type SiteOptions struct {
 	ProfileRound string
 	// Model names the activity model for captions.
 	Model string
+	// ClusterColumn names the input column that groups wells into clusters
+	// for depth profiles; "" means "Cluster".
+	ClusterColumn string
 }
 
 // MaxAutoMinerals caps the minerals chosen automatically.
@@ -393,11 +396,15 @@ func slug(s string) string {
 	return strings.TrimPrefix(ColumnName(s), "si_")
 }
 
-// clusterOf returns the well cluster of a sample: a "Cluster" column when
-// the file has one, else "" (one cluster for the whole site).
-func clusterOf(s *hydro.Sample) string {
+// clusterOf returns the well cluster of a sample: the value of the named
+// column (default "Cluster") when the file has one, else "" (one cluster
+// for the whole site).
+func clusterOf(s *hydro.Sample, column string) string {
+	if column == "" {
+		column = "cluster"
+	}
 	for k, v := range s.Extra {
-		if strings.EqualFold(strings.TrimSpace(k), "cluster") {
+		if strings.EqualFold(strings.TrimSpace(k), column) {
 			return strings.TrimSpace(v)
 		}
 	}
@@ -417,7 +424,7 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 		if !p.hasD || p.rec.Sample().Round != round {
 			continue
 		}
-		c := clusterOf(p.rec.Sample())
+		c := clusterOf(p.rec.Sample(), opt.ClusterColumn)
 		if _, ok := byCluster[c]; !ok {
 			order = append(order, c)
 		}

@@ -931,9 +931,13 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 	s.gammas(I)
 	s.speciesMolalities(u)
 	R, sc := s.R[:n], s.scale[:n]
+	// The scale of a balance is the sum of the magnitudes of its species terms, plus a
+	// small part (1e-5) of its given total and of the mineral amounts: so that a
+	// component almost entirely precipitated still has its dissolved amount resolved to
+	// a relative 1e-10, while the rounding of total minus amount cannot stall the solve.
 	for r := 0; r < n; r++ {
 		R[r] = -s.rconst[r]
-		sc[r] = math.Abs(s.rconst[r])
+		sc[r] = 1e-5 * math.Abs(s.rconst[r])
 	}
 	R[s.iCol] = I
 	sc[s.iCol] = I
@@ -956,12 +960,12 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 			if s.role[ci] == roleTotal {
 				r := s.row[ci]
 				R[r] -= t.Nu * xi
-				sc[r] += math.Abs(t.Nu * xi)
+				sc[r] += 1e-5 * math.Abs(t.Nu*xi)
 			}
 			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
 				r := s.row[db.carbonate]
 				R[r] -= t.Nu * s.alkComp[ci] * xi
-				sc[r] += math.Abs(t.Nu * s.alkComp[ci] * xi)
+				sc[r] += 1e-5 * math.Abs(t.Nu*s.alkComp[ci]*xi)
 			}
 		}
 	}

@@ -39,6 +39,7 @@ func runReport(e *env, args []string) int {
 	method := fs.String("method", "kriging", "interpolation: kriging (ordinary kriging, fitted variogram) or idw")
 	zones := fs.String("zones", "", "depth-zone edges in m below ground, e.g. 0,55,90,200 (default: found from gaps in the depths)")
 	profileRound := fs.String("profile-round", "", "sampling round shown in depth profiles (default: the last)")
+	cluster := fs.String("cluster", "Cluster", "input column grouping wells into clusters, one depth-profile figure each")
 	formats := fs.String("formats", "png,svg,pdf", "figure formats to write")
 	var mix mixFlags
 	mix.registerReport(fs)
@@ -100,7 +101,7 @@ func runReport(e *env, args []string) int {
 		return failf(e, exitRejected, "report: %v", err)
 	}
 	model, _ := in.activityModel()
-	st, err := report.BuildSite(recs, all, report.SiteOptions{Minerals: chosen, Method: *method, Features: feats, BandEdges: edges, ProfileRound: *profileRound, Model: model.Name()})
+	st, err := report.BuildSite(recs, all, report.SiteOptions{Minerals: chosen, Method: *method, Features: feats, BandEdges: edges, ProfileRound: *profileRound, Model: model.Name(), ClusterColumn: *cluster})
 	if err != nil {
 		fmt.Fprintf(e.stderr, "gwsat report: %v\n", err)
 	}
