@@ -119,7 +119,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 	styles := map[string]int{}
 	var legend []legendEntry
 	type panelData struct {
-		title string
+		title  string
 		lines  []plotter.XYs
 		idx    []int
 		points []bool
