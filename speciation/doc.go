@@ -27,9 +27,10 @@
 // uses the analytic Jacobian, d m_s / d log a_j = ln10 nu_sj m_s, with the dependence of
 // the activity coefficients on the ionic strength included through the ionic-strength
 // unknown, a dense LU on the present components only, steps limited in log units and a
-// backtracking line search. A few continued-fraction sweeps give the starting point (or the
-// previous solution, when the water is close to it); failing starts are retried from other
-// guesses. Converged means every balance within a relative 1e-10 (Tolerance). A water
+// backtracking line search. Continued-fraction sweeps over the balances (Gauss-Seidel,
+// with the activity coefficients following the ionic strength, when pH, totals and
+// alkalinity fix the water) give the starting point, or the previous solution when the
+// water is close to it; failing starts are retried from other guesses. Converged means every balance within a relative 1e-10 (Tolerance). A water
 // that cannot be solved, often because its constraints contradict each other (an
 // alkalinity below the non-carbonate alkalinity at the given pH, a charge balance the chosen
 // ion cannot close), returns a *SolveError with the reason; no result field is NaN or Inf.

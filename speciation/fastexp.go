@@ -13,7 +13,9 @@ func pow10(x float64) float64 {
 	if !(x >= -300 && x <= 300) {
 		return math.Pow(10, x) // outside the fast range, and NaN
 	}
-	n := math.Floor(x*log2of10 + 0.5)
+	// n = round(x log2(10)) by the add-and-subtract trick (exact for |t| < 2^51)
+	const shift = 6755399441055744.0 // 1.5 * 2^52
+	n := (x*log2of10 + shift) - shift
 	// y = x ln10 - n ln2, with ln2 split in a high and a low part (Cody-Waite)
 	y := x*math.Ln10 - n*6.93147180369123816490e-01 - n*1.90821492927058770002e-10
 	y2 := y * y
@@ -37,5 +39,6 @@ func roughLog10(x float64) float64 {
 	t := (m - 1) / (m + 1)
 	t2 := t * t
 	ln := 2 * t * (1 + t2*(1.0/3+t2*(1.0/5+t2*(1.0/7+t2*(1.0/9)))))
-	return e*math.Log10(2) + ln*math.Log10E
+	const log10of2 = 0.301029995663981195213738894724493026768189881462108541310
+	return e*log10of2 + ln*math.Log10E
 }

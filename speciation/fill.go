@@ -62,7 +62,17 @@ func (s *Solver) fill(res *Result, w *Water) {
 			}
 		}
 		name := db.Components[ci].Name
-		res.Totals = append(res.Totals, ComponentTotal{name, tot})
+		reported := tot
+		if s.role[ci] == roleTotal {
+			// the given total, changed by the equilibrated minerals: exact, so that
+			// differences of totals give amounts precisely (the species sum agrees
+			// within the convergence tolerance)
+			reported = s.total[ci]
+			for k, pi := range s.eqPhase {
+				reported += nuOf(db.Minerals[pi].Terms, ci) * u[s.iCol+1+k]
+			}
+		}
+		res.Totals = append(res.Totals, ComponentTotal{name, reported})
 		if s.role[ci] == roleCharge {
 			res.Adjusted, res.AdjustedTotal = name, tot
 		}

@@ -27,7 +27,7 @@ func TestJacobianFiniteDifference(t *testing.T) {
 		u[s.iCol] *= 1.3 // away from the solution
 		s.evaluate(u)
 		s.jacobian(u)
-		J := append([]float64(nil), s.J[:n*n]...)
+		J := append([]float64(nil), s.jac[:n*n]...)
 		rp, rm := make([]float64, n), make([]float64, n)
 		for c := 0; c < n; c++ {
 			h := 1e-6
@@ -37,10 +37,10 @@ func TestJacobianFiniteDifference(t *testing.T) {
 			up := append([]float64(nil), u...)
 			up[c] += h
 			s.evaluate(up)
-			copy(rp, s.R[:n])
+			copy(rp, s.resid[:n])
 			up[c] -= 2 * h
 			s.evaluate(up)
-			copy(rm, s.R[:n])
+			copy(rm, s.resid[:n])
 			s.evaluate(u)
 			for r := 0; r < n; r++ {
 				fd := (rp[r] - rm[r]) / (2 * h)
@@ -144,13 +144,20 @@ func TestRandomWatersConvergeOrError(t *testing.T) {
 			if tt.MolKgw == 0 || tt.Component == w.ChargeBalanceIon {
 				continue
 			}
-			got, _ := res.Total(tt.Component)
+			ci := db.ComponentIndex(tt.Component)
+			got := 0.0 // sum over species of nu m
+			for _, sp := range res.Species {
+				got += nuOf(db.Species[db.SpeciesIndex(sp.Name)].Terms, ci) * sp.Molality
+			}
 			want := tt.MolKgw
 			for _, p := range res.Phases {
 				want += p.Dissolved * nuOf(db.Mineral(p.Name).Terms, db.ComponentIndex(tt.Component))
 			}
 			if math.Abs(got-want) > 1e-9*want {
-				t.Errorf("water %d: %s total %.12g, want %.12g", i, tt.Component, got, want)
+				t.Errorf("water %d: %s species sum %.12g, want %.12g", i, tt.Component, got, want)
+			}
+			if rep, _ := res.Total(tt.Component); math.Abs(rep-want) > 1e-12*want {
+				t.Errorf("water %d: %s reported total %.15g, want %.15g", i, tt.Component, rep, want)
 			}
 		}
 	}
@@ -222,6 +229,34 @@ func TestWarmStartAgrees(t *testing.T) {
 	for i := range a.Species {
 		if math.Abs(a.Species[i].Molality-b.Species[i].Molality) > 1e-9*b.Species[i].Molality {
 			t.Errorf("%s warm %.12g cold %.12g", a.Species[i].Name, a.Species[i].Molality, b.Species[i].Molality)
+		}
+	}
+}
+
+// A Database is shared read-only by solvers in several goroutines (run with -race).
+func TestConcurrentSolvers(t *testing.T) {
+	db := mustDefault(t)
+	waters := nativeVariants(16)
+	done := make(chan float64)
+	for g := 0; g < 4; g++ {
+		go func() {
+			s := NewSolver(db, TruesdellJones{})
+			sum := 0.0
+			for i := range waters {
+				res, err := s.Solve(&waters[i])
+				if err != nil {
+					t.Error(err)
+					break
+				}
+				sum += res.IonicStrength
+			}
+			done <- sum
+		}()
+	}
+	first := <-done
+	for g := 1; g < 4; g++ {
+		if v := <-done; math.Abs(v-first) > 1e-9*first {
+			t.Errorf("goroutines disagree: %g vs %g", v, first)
 		}
 	}
 }

@@ -89,11 +89,14 @@ type Result struct {
 	// ChargeBalance is 100 (sum z m) / (sum |z| m) over all species, percent.
 	ChargeBalance float64
 
-	Species      []SpeciesResult
-	Totals       []ComponentTotal // component totals after the solve (computed ones included)
-	Distribution []Share          // grouped by component, in component order
-	Minerals     []MineralSI      // minerals whose components are all present
-	Phases       []PhaseAmount    // for Water.Equilibrate targets
+	Species []SpeciesResult
+	// Totals are the component totals after the solve: the given total (plus the
+	// equilibrated mineral amounts) for a mass balance, else the sum over species
+	// (alkalinity, charge balance, phase-fixed components).
+	Totals       []ComponentTotal
+	Distribution []Share       // grouped by component, in component order
+	Minerals     []MineralSI   // minerals whose components are all present
+	Phases       []PhaseAmount // for Water.Equilibrate targets
 
 	LogPCO2    float64 // log10 pCO2 in atm; valid when HasLogPCO2
 	HasLogPCO2 bool

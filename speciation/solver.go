@@ -30,8 +30,10 @@ type Solver struct {
 	// MaxStep limits a Newton step in log10 units (default 1.5).
 	MaxStep float64
 
-	nc, ns, nm int
-	sweeps     int
+	nc, ns   int
+	sweeps   int
+	gsSweeps int // Gauss-Seidel sweeps for simple waters (0: Jacobi sweeps)
+	lgOld    []float64
 
 	// per component
 	role    []int
@@ -72,7 +74,7 @@ type Solver struct {
 	jCoef []float64 // w_row * nu_col
 	jRow  []int     // row of the entry (for the row scale)
 
-	nameCache []ComponentTotal // component name and its index (as float) by position in Water.totals
+	nameCache []nameIndex // component name and index by position in Water.totals
 
 	compSp [][]spNu // species containing each component with nu > 0 (db order)
 	spPos  []int    // position of a db species among the active ones, -1 if inactive
@@ -100,19 +102,19 @@ type Solver struct {
 	eqTarget []float64
 
 	// linear system
-	n       int
-	iCol    int
-	u, du   []float64
-	uTry    []float64
-	R       []float64
-	scale   []float64
-	rconst  []float64
-	J       []float64
-	piv     []int
-	logAw   float64
-	lastRes float64
-	iters   int
-	evals   int
+	n      int
+	iCol   int
+	u, du  []float64
+	uTry   []float64
+	resid  []float64
+	scale  []float64
+	ext    []float64
+	rconst []float64
+	jac    []float64
+	piv    []int
+	logAw  float64
+	iters  int
+	evals  int
 	// phase rows: for each row (or -1) the phase index and target
 	rowPhase  []int
 	rowTarget []float64
@@ -125,7 +127,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 		panic("speciation: NewSolver needs a database and a model")
 	}
 	nc, ns, nm := len(db.Components), len(db.Species), len(db.Minerals)
-	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, WarmStart: true, nc: nc, ns: ns, nm: nm}
+	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, gsSweeps: 3, WarmStart: true, nc: nc, ns: ns}
 	s.role = make([]int, nc)
 	s.total = make([]float64, nc)
 	s.phaseOf = make([]int, nc)
@@ -155,6 +157,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	}
 	s.lg = make([]float64, ns)
 	s.dlg = make([]float64, ns)
+	s.lgOld = make([]float64, ns)
 	s.logm = make([]float64, ns)
 	s.m = make([]float64, ns)
 	s.cst = make([]float64, ns)
@@ -190,10 +193,11 @@ func (s *Solver) grow(n int) {
 	s.u = make([]float64, n)
 	s.du = make([]float64, n)
 	s.uTry = make([]float64, n)
-	s.R = make([]float64, n)
+	s.resid = make([]float64, n)
 	s.scale = make([]float64, n)
+	s.ext = make([]float64, n)
 	s.rconst = make([]float64, n)
-	s.J = make([]float64, n*n)
+	s.jac = make([]float64, n*n)
 	s.piv = make([]int, n)
 	s.rowPhase = make([]int, n)
 	s.rowTarget = make([]float64, n)
@@ -274,16 +278,16 @@ func (s *Solver) setup(w *Water) error {
 		s.active[i] = false
 	}
 	if len(s.nameCache) < len(w.totals) {
-		s.nameCache = append(s.nameCache, make([]ComponentTotal, len(w.totals)-len(s.nameCache))...)
+		s.nameCache = append(s.nameCache, make([]nameIndex, len(w.totals)-len(s.nameCache))...)
 	}
 	for i, t := range w.totals {
 		// positional cache of name -> index (the same kind of water usually comes again)
 		var ci int
-		if c := &s.nameCache[i]; c.Component == t.Component && c.Component != "" {
-			ci = int(c.MolKgw)
+		if c := &s.nameCache[i]; c.name == t.Component && c.name != "" {
+			ci = c.index
 		} else {
 			ci = db.ComponentIndex(t.Component)
-			c.Component, c.MolKgw = t.Component, float64(ci)
+			c.name, c.index = t.Component, ci
 		}
 		if ci < 0 {
 			return inputErr("unknown component %q", t.Component)
@@ -592,6 +596,11 @@ const (
 	modeWarm   = 2 // from the previous solution (exact logarithms)
 )
 
+type nameIndex struct {
+	name  string
+	index int
+}
+
 type spNu struct {
 	sp int
 	nu float64
@@ -732,12 +741,121 @@ func (s *Solver) initialGuess(mode int) {
 		u[s.iCol+1+k] = 0
 	}
 	sweeps := s.sweeps
+	simple := len(s.eqPhase) == 0
 	for ci := range s.role {
 		if s.role[ci] == roleCharge || s.role[ci] == rolePhase {
 			sweeps = 3 * s.sweeps
+			simple = false
 		}
 	}
+	if simple && s.gsSweeps > 0 {
+		s.gaussSeidel(u, s.gsSweeps)
+		return
+	}
 	s.sweep(u, sweeps, mode)
+}
+
+// gaussSeidel improves u for waters whose components all close by mass or alkalinity
+// balances (pH fixed): one component at a time, its log activity moves by
+// log10(total / current sum) and the molalities of its species follow at once
+// (multiplicatively, so a sweep costs one power of ten per component); between sweeps
+// the activity coefficients follow the ionic strength. The ionic strength is then set
+// from the molalities. Three sweeps leave Newton two iterations on typical waters.
+func (s *Solver) gaussSeidel(u []float64, sweeps int) {
+	db := s.db
+	s.speciesMolalities(u)
+	m := s.m
+	for sweep := 0; sweep < sweeps; sweep++ {
+		for ci := range s.role {
+			c := s.col[ci]
+			if c < 0 {
+				continue
+			}
+			var sum, target float64
+			switch s.role[ci] {
+			case roleTotal:
+				for _, p := range s.compSp[ci] {
+					if k := s.spPos[p.sp]; k >= 0 {
+						sum += p.nu * m[k]
+					}
+				}
+				target = s.total[ci]
+			case roleAlk:
+				for k, si := range s.act {
+					sum += s.alkSp[si] * m[k]
+				}
+				target = s.alk
+			default:
+				continue
+			}
+			if !(sum > 0) {
+				continue
+			}
+			d := roughLog10(target / sum)
+			if d > 4 {
+				d = 4
+			} else if d < -4 {
+				d = -4
+			}
+			if ci == db.carbonate && s.role[ci] == roleAlk {
+				// the alkalinity is not proportional to the carbonate activity (OH-,
+				// H3SiO4- ...): move by the carbonate part only
+				carb := 0.0
+				for _, p := range s.compSp[ci] {
+					if k := s.spPos[p.sp]; k >= 0 {
+						carb += s.alkSp[p.sp] * m[k]
+					}
+				}
+				if carb > 0 && target-(sum-carb) > 0 {
+					d = roughLog10((target - (sum - carb)) / carb)
+				}
+				if d > 4 {
+					d = 4
+				} else if d < -4 {
+					d = -4
+				}
+			}
+			u[c] += d
+			f := pow10(d)
+			for _, p := range s.compSp[ci] {
+				k := s.spPos[p.sp]
+				if k < 0 {
+					continue
+				}
+				switch p.nu {
+				case 1:
+					m[k] *= f
+				case 2:
+					m[k] *= f * f
+				default:
+					m[k] *= pow10(p.nu * d)
+				}
+				s.logm[k] += p.nu * d
+			}
+		}
+		if sweep < sweeps-1 {
+			// new activity coefficients at the ionic strength of these molalities; the
+			// molalities follow by m *= 10^-(change of log gamma), to third order
+			// (the changes are small, and this is only a starting guess)
+			I := 0.0
+			for k := range s.act {
+				I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * m[k]
+			}
+			na := len(s.act)
+			old := s.lgOld[:na]
+			copy(old, s.lg[:na])
+			s.gammas(I)
+			for k := 0; k < na; k++ {
+				x := -math.Ln10 * (s.lg[k] - old[k])
+				m[k] *= 1 + x*(1+x*(0.5+x*(1.0/6)))
+			}
+		}
+	}
+	I := 0.0
+	for k := range s.act {
+		I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * m[k]
+	}
+	u[s.iCol] = math.Max(I, 1e-9)
 }
 
 // sweep improves u by continued-fraction passes over the balances at the ionic
@@ -754,7 +872,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 		// accumulate sums per row
 		for ci := range s.role {
 			if r := s.row[ci]; r >= 0 {
-				s.R[r], s.scale[r] = 0, 0
+				s.resid[r], s.scale[r] = 0, 0
 			}
 		}
 		for k := range s.act {
@@ -764,7 +882,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 				if r == s.iCol {
 					continue
 				}
-				s.R[r] += s.rowW[p] * m
+				s.resid[r] += s.rowW[p] * m
 			}
 		}
 		for ci := range s.role {
@@ -775,15 +893,15 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 			var d float64
 			switch s.role[ci] {
 			case roleTotal:
-				if s.R[c] > 0 {
-					d = log10(s.total[ci] / s.R[c])
+				if s.resid[c] > 0 {
+					d = log10(s.total[ci] / s.resid[c])
 				}
 			case roleAlk:
-				if s.R[c] > 0 {
-					d = log10(s.alk / s.R[c])
+				if s.resid[c] > 0 {
+					d = log10(s.alk / s.resid[c])
 				}
 			case roleCharge:
-				Z := s.R[c] // sum z m
+				Z := s.resid[c] // sum z m
 				if ci == db.hplus && mode != modeGentle {
 					// Solve m(H+) - m(OH-) + D = 0 with m(H+) m(OH-) held at its current value.
 					mh, moh := 0.0, 0.0
@@ -870,7 +988,7 @@ func (s *Solver) applyPhaseFixes(u []float64) {
 // and s.scale), each row divided by its scale.
 func (s *Solver) jacobian(u []float64) {
 	n := s.n
-	J := s.J[:n*n]
+	J := s.jac[:n*n]
 	clear(J)
 	ln10 := math.Ln10
 	inv := s.du[:n] // scratch: 1/scale of each row (du is overwritten by the caller)
@@ -929,18 +1047,22 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 	s.evals++
 	I := u[s.iCol]
 	s.gammas(I)
-	s.speciesMolalities(u)
-	R, sc := s.R[:n], s.scale[:n]
-	// The scale of a balance is the sum of the magnitudes of its species terms, plus a
-	// small part (1e-5) of its given total and of the mineral amounts: so that a
-	// component almost entirely precipitated still has its dissolved amount resolved to
-	// a relative 1e-10, while the rounding of total minus amount cannot stall the solve.
+	R, sc := s.resid[:n], s.scale[:n]
+	// The scale of a balance (for the Newton norm) is the sum of the magnitudes of all its
+	// terms; ext holds the part from the given total and the mineral amounts. The
+	// convergence test uses the species terms plus only 1e-5 of ext, so that a component
+	// almost entirely precipitated still has its dissolved amount resolved to a relative
+	// 1e-10, while the rounding of total minus amount cannot stall the solve.
+	ext := s.ext[:n]
 	for r := 0; r < n; r++ {
 		R[r] = -s.rconst[r]
-		sc[r] = 1e-5 * math.Abs(s.rconst[r])
+		ext[r] = math.Abs(s.rconst[r])
+		sc[r] = ext[r]
 	}
 	R[s.iCol] = I
 	sc[s.iCol] = I
+	ext[s.iCol] = 0
+	s.speciesMolalities(u)
 	for k := range s.act {
 		m := s.m[k]
 		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
@@ -960,12 +1082,14 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 			if s.role[ci] == roleTotal {
 				r := s.row[ci]
 				R[r] -= t.Nu * xi
-				sc[r] += 1e-5 * math.Abs(t.Nu*xi)
+				sc[r] += math.Abs(t.Nu * xi)
+				ext[r] += math.Abs(t.Nu * xi)
 			}
 			if db.carbonate >= 0 && s.role[db.carbonate] == roleAlk && s.alkComp[ci] != 0 {
 				r := s.row[db.carbonate]
 				R[r] -= t.Nu * s.alkComp[ci] * xi
-				sc[r] += 1e-5 * math.Abs(t.Nu*s.alkComp[ci]*xi)
+				sc[r] += math.Abs(t.Nu * s.alkComp[ci] * xi)
+				ext[r] += math.Abs(t.Nu * s.alkComp[ci] * xi)
 			}
 		}
 	}
@@ -977,12 +1101,19 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 		}
 	}
 	for r := 0; r < n; r++ {
+		if pi := s.rowPhase[r]; pi >= 0 {
+			ext[r] = 0
+		}
 		if sc[r] == 0 {
 			sc[r] = 1
 		}
 		e := R[r] / sc[r]
 		norm += e * e
-		if a := math.Abs(e); a > worst || a != a {
+		strict := sc[r] - ext[r] + 1e-5*ext[r]
+		if strict <= 0 {
+			strict = sc[r]
+		}
+		if a := math.Abs(R[r] / strict); a > worst || a != a {
 			worst = a
 		}
 	}
@@ -1013,7 +1144,6 @@ func (s *Solver) newton(maxStep float64) error {
 				s.gammas(u[s.iCol])
 			}
 			if math.Abs(s.logAw-aw) <= 1e-12 {
-				s.lastRes = worst
 				s.iters = it
 				s.warmU = append(s.warmU[:0], u...)
 				copy(s.warmTotal, s.total)
@@ -1031,10 +1161,10 @@ func (s *Solver) newton(maxStep float64) error {
 		}
 		s.jacobian(u)
 		// solve J du = -R (rows scaled)
-		J := s.J[:n*n]
+		J := s.jac[:n*n]
 		du := s.du[:n]
 		for r := 0; r < n; r++ {
-			du[r] = -s.R[r] / s.scale[r]
+			du[r] = -s.resid[r] / s.scale[r]
 		}
 		if !luSolve(J, s.piv[:n], du, n) {
 			return &SolveError{Reason: fmt.Sprintf("singular Jacobian at iteration %d", it), Iterations: it, Err: ErrSingular}
@@ -1080,19 +1210,28 @@ func (s *Solver) newton(maxStep float64) error {
 	return &SolveError{Reason: fmt.Sprintf("no convergence after %d iterations (largest relative balance error %.3g)", it, worst), Iterations: it, Err: ErrNoConvergence}
 }
 
+// nonCarbonateAlkalinity is the alkalinity carried by species without carbonate at the
+// current state.
+func (s *Solver) nonCarbonateAlkalinity() float64 {
+	db := s.db
+	v := 0.0
+	for k, si := range s.act {
+		if nuOf(db.Species[si].Terms, db.carbonate) == 0 {
+			v += s.alkSp[si] * s.m[k]
+		}
+	}
+	return v
+}
+
+func (s *Solver) alkalinityReason() string {
+	return fmt.Sprintf("the alkalinity %.4g eq/kgw is not above the non-carbonate alkalinity %.4g eq/kgw (OH-, H3SiO4-, HF, HSO4-, hydroxide pairs) at this pH: no carbonate can satisfy it", s.alk, s.nonCarbonateAlkalinity())
+}
+
 // diagnose explains a stalled solve: usually constraints that no composition can meet.
 func (s *Solver) diagnose(worst float64) string {
 	db := s.db
-	if c := db.carbonate; c >= 0 && s.role[c] == roleAlk {
-		nonCarb := 0.0
-		for k, si := range s.act {
-			if s.spPos[si] >= 0 && nuOf(db.Species[si].Terms, c) == 0 {
-				nonCarb += s.alkSp[si] * s.m[k]
-			}
-		}
-		if nonCarb >= s.alk {
-			return fmt.Sprintf("the alkalinity %.4g eq/kgw is not above the non-carbonate alkalinity %.4g eq/kgw (OH-, H3SiO4-, HF, HSO4-, hydroxide pairs) at this pH: no carbonate can satisfy it", s.alk, nonCarb)
-		}
+	if c := db.carbonate; c >= 0 && s.role[c] == roleAlk && s.nonCarbonateAlkalinity() >= s.alk {
+		return s.alkalinityReason()
 	}
 	for ci := range s.role {
 		if s.role[ci] != roleCharge {
@@ -1120,7 +1259,7 @@ func (s *Solver) diagnose(worst float64) string {
 func (s *Solver) checkBounds(u []float64, it int) error {
 	db := s.db
 	if c := db.carbonate; c >= 0 && s.role[c] == roleAlk && u[s.col[c]] < -20 {
-		return &SolveError{Reason: "the given alkalinity is below the non-carbonate alkalinity (OH-, H3SiO4-, ion pairs...) at this pH: no carbonate can satisfy it", Iterations: it, Err: ErrNoConvergence}
+		return &SolveError{Reason: s.alkalinityReason(), Iterations: it, Err: ErrNoConvergence}
 	}
 	for ci := range s.role {
 		if s.role[ci] != roleCharge {
