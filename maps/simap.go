@@ -623,52 +623,39 @@ func zeroContour(g *Grid) [][][2]float64 {
 		}
 		return -1
 	}
+	// walk follows the chain from segment cur through its crossing on edge,
+	// collecting the far point of each segment it joins.
+	walk := func(edge, cur int) [][2]float64 {
+		var pts [][2]float64
+		for {
+			m := next(edge, cur)
+			if m < 0 {
+				return pts
+			}
+			used[m] = true
+			if segs[m].e[0] == edge {
+				pts = append(pts, segs[m].p[1])
+				edge = segs[m].e[1]
+			} else {
+				pts = append(pts, segs[m].p[0])
+				edge = segs[m].e[0]
+			}
+			cur = m
+		}
+	}
 	var lines [][][2]float64
 	for n := range segs {
 		if used[n] {
 			continue
 		}
 		used[n] = true
-		line := [][2]float64{segs[n].p[0], segs[n].p[1]}
-		// forward from end 1
-		edge, cur := segs[n].e[1], n
-		for {
-			m := next(edge, cur)
-			if m < 0 {
-				break
-			}
-			used[m] = true
-			if segs[m].e[0] == edge {
-				line = append(line, segs[m].p[1])
-				edge = segs[m].e[1]
-			} else {
-				line = append(line, segs[m].p[0])
-				edge = segs[m].e[0]
-			}
-			cur = m
-		}
-		// backward from end 0
-		edge, cur = segs[n].e[0], n
-		var back [][2]float64
-		for {
-			m := next(edge, cur)
-			if m < 0 {
-				break
-			}
-			used[m] = true
-			if segs[m].e[0] == edge {
-				back = append(back, segs[m].p[1])
-				edge = segs[m].e[1]
-			} else {
-				back = append(back, segs[m].p[0])
-				edge = segs[m].e[0]
-			}
-			cur = m
-		}
+		forward := walk(segs[n].e[1], n)
+		back := walk(segs[n].e[0], n)
 		for a, b := 0, len(back)-1; a < b; a, b = a+1, b-1 {
 			back[a], back[b] = back[b], back[a]
 		}
-		lines = append(lines, append(back, line...))
+		line := append(back, segs[n].p[0], segs[n].p[1])
+		lines = append(lines, append(line, forward...))
 	}
 	return lines
 }
