@@ -5,10 +5,11 @@ import (
 	"context"
 	"encoding/csv"
 	"encoding/json"
-	"image"
 	"image/png"
+	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -59,7 +60,7 @@ func TestCheckDemoAccountsForEveryRow(t *testing.T) {
 	sic := col(t, h, "si_calcite")
 	want := map[string]string{"C1-D-R2": "rejected", "C3-I-R3": "rejected", "B2-S-R2": "warning"}
 	for i, r := range recs[1:] {
-		if r[line] != itoa(i+2) {
+		if r[line] != strconv.Itoa(i+2) {
 			t.Fatalf("row %d has line %s: order lost", i, r[line])
 		}
 		if w, ok := want[r[id]]; ok && r[st] != w {
@@ -80,20 +81,6 @@ func TestCheckDemoAccountsForEveryRow(t *testing.T) {
 	if !strings.Contains(errs, "2 rejected") || !strings.Contains(errs, "licensed professionals") {
 		t.Errorf("summary lacks counts or caution:\n%s", errs)
 	}
-}
-
-func itoa(i int) string { return strings.TrimSpace(strings.Repeat(" ", 0) + fmtInt(i)) }
-
-func fmtInt(i int) string {
-	b := []byte{}
-	if i == 0 {
-		return "0"
-	}
-	for i > 0 {
-		b = append([]byte{byte('0' + i%10)}, b...)
-		i /= 10
-	}
-	return string(b)
 }
 
 // Bad input: a fatal file problem exits 2 naming the file; a bad row is
@@ -242,7 +229,6 @@ func checkPNG(t *testing.T, path string) {
 	if len(colours) < 20 {
 		t.Errorf("%s: only %d colours: a blank figure?", path, len(colours))
 	}
-	_ = image.Point{}
 }
 
 // HTML escaping and CSV formula neutralisation of user text in a report.
@@ -269,5 +255,28 @@ func TestReportEscapesUserText(t *testing.T) {
 	recs := readCSV(t, string(tbl))
 	if w := recs[1][col(t, recs[0], "well_id")]; !strings.HasPrefix(w, "'=") {
 		t.Errorf("formula not neutralised: %q", w)
+	}
+}
+
+// -balance-on adjusts one ion so the speciated water is neutral: the
+// speciated balance column becomes ~0 and the reasons say what was changed.
+func TestCheckBalanceOn(t *testing.T) {
+	in := "Sample,pH,Temp,Ca,Mg,Na,K,Cl,SO4,Alkalinity as CaCO3\nS,7.2,15,60,12,20,2,30,40,180\n"
+	code, out, errs := gwsat(t, in, "check", "-balance-on", "Cl", "-")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	recs := readCSV(t, out)
+	h := recs[0]
+	cb, _ := strconv.ParseFloat(recs[1][col(t, h, "charge_balance_speciated_pct")], 64)
+	if math.Abs(cb) > 0.01 {
+		t.Errorf("speciated balance %g %%, want 0 after adjusting Cl", cb)
+	}
+	if !strings.Contains(recs[1][col(t, h, "reasons")], "Cl- total adjusted") {
+		t.Errorf("reasons %q do not report the adjustment", recs[1][col(t, h, "reasons")])
+	}
+	code, _, errs = gwsat(t, in, "check", "-balance-on", "Xx", "-")
+	if code != exitUsage || !strings.Contains(errs, "Xx") {
+		t.Errorf("unknown ion: exit %d, %q", code, errs)
 	}
 }
