@@ -162,7 +162,7 @@ func runReport(e *env, args []string) int {
 	for i := range recs {
 		r := &recs[i]
 		if r.Status != hydro.StatusOK {
-			ix.QA = append(ix.QA, fmt.Sprintf("%s line %d, sample %s: %s: %s", r.File, r.Row.Line, r.Sample().ID, r.Status, firstProblem(r)))
+			ix.QA = append(ix.QA, fmt.Sprintf("%s line %d, sample %s (%s): %s", r.File, r.Row.Line, r.Sample().ID, r.Status, firstProblem(r)))
 		}
 	}
 	for _, f := range []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv"} {
