@@ -66,3 +66,113 @@ func TestZZDebug(t *testing.T) {
 		}
 	}
 }
+
+func zzSetup(b testing.TB) *Solver {
+	db, _ := Default()
+	s := NewSolver(db, TruesdellJones{})
+	s.WarmStart = false
+	ws := demoWaters(b)
+	var w Water
+	for _, x := range ws {
+		if x.TempC == 23.1 && x.PH == 7.06 {
+			w = x
+		}
+	}
+	var res Result
+	if err := s.SolveInto(&res, &w); err != nil {
+		b.Fatal(err)
+	}
+	return s
+}
+
+func BenchmarkZZGS1(b *testing.B) {
+	s := zzSetup(b)
+	u := s.u[:s.n]
+	for i := 0; i < b.N; i++ {
+		s.gaussSeidel(u, 1)
+	}
+}
+func BenchmarkZZGS4(b *testing.B) {
+	s := zzSetup(b)
+	u := s.u[:s.n]
+	for i := 0; i < b.N; i++ {
+		s.gaussSeidel(u, 4)
+	}
+}
+func BenchmarkZZEval(b *testing.B) {
+	s := zzSetup(b)
+	u := s.u[:s.n]
+	for i := 0; i < b.N; i++ {
+		s.evaluate(u)
+	}
+}
+func BenchmarkZZJac(b *testing.B) {
+	s := zzSetup(b)
+	u := s.u[:s.n]
+	for i := 0; i < b.N; i++ {
+		s.jacobian(u)
+	}
+}
+func BenchmarkZZLU(b *testing.B) {
+	s := zzSetup(b)
+	u := s.u[:s.n]
+	s.evaluate(u)
+	s.jacobian(u)
+	J0 := append([]float64(nil), s.jac[:s.n*s.n]...)
+	b0 := append([]float64(nil), s.resid[:s.n]...)
+	for i := 0; i < b.N; i++ {
+		copy(s.jac, J0)
+		copy(s.du, b0)
+		luSolve(s.jac, s.piv, s.du, s.n)
+	}
+}
+func BenchmarkZZFill(b *testing.B) {
+	s := zzSetup(b)
+	var res Result
+	w := Water{TempC: 23.1}
+	for i := 0; i < b.N; i++ {
+		s.fill(&res, &w)
+	}
+}
+func BenchmarkZZSetup(b *testing.B) {
+	s := zzSetup(b)
+	ws := demoWaters(b)
+	var w Water
+	for _, x := range ws {
+		if x.TempC == 23.1 && x.PH == 7.06 {
+			w = x
+		}
+	}
+	for i := 0; i < b.N; i++ {
+		s.setup(&w)
+	}
+}
+
+func TestZZStruct(t *testing.T) {
+	s := zzSetup(t)
+	u := s.u[:s.n]
+	s.evaluate(u)
+	s.jacobian(u)
+	n := s.n
+	for ci := range s.role {
+		if s.col[ci] >= 0 {
+			t.Log(s.col[ci], s.db.Components[ci].Name, s.role[ci])
+		}
+	}
+	for r := 0; r < n; r++ {
+		line := ""
+		for c := 0; c < n; c++ {
+			v := s.jac[r*n+c]
+			if v == 0 {
+				line += " ."
+			} else {
+				line += " X"
+			}
+		}
+		t.Log(line)
+	}
+	na := len(s.act)
+	for k := 0; k < na; k++ {
+		t.Log(s.db.Species[s.act[k]].Name, s.colOff[k+1]-s.colOff[k], s.rowOff[k+1]-s.rowOff[k], s.jOff[k+1]-s.jOff[k])
+	}
+}
