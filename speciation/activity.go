@@ -143,6 +143,12 @@ func (TruesdellJones) LogGammas(logG, dLogG []float64, st *ActivityState) float6
 	a := st.IonSize[:n]
 	b := st.TJB[:n]
 	dLogG = dLogG[:n]
+	// one division per ion: with q = 1/(1 + B a sqrt(I)), log gamma = -A z^2 sqrt(I) q + b I
+	// and d(log gamma)/dI = -A z^2 q^2 / (2 sqrt(I)) + b
+	var h float64 // 1/(2 sqrt(I)), 0 at I = 0 (where the derivative's first term is dropped)
+	if s > 0 {
+		h = 0.5 / s
+	}
 	for i := range logG {
 		zz := z[i] * z[i]
 		if zz == 0 {
@@ -150,13 +156,10 @@ func (TruesdellJones) LogGammas(logG, dLogG []float64, st *ActivityState) float6
 			dLogG[i] = NeutralSetschenow
 			continue
 		}
-		den := 1 + B*a[i]*s
-		logG[i] = -A*zz*s/den + b[i]*I
-		if s > 0 {
-			dLogG[i] = -A*zz/(2*s*den*den) + b[i]
-		} else {
-			dLogG[i] = b[i]
-		}
+		q := 1 / (1 + B*a[i]*s)
+		Az := A * zz * q
+		logG[i] = -Az*s + b[i]*I
+		dLogG[i] = -Az*q*h + b[i]
 	}
 	return 0
 }

@@ -2,6 +2,7 @@ package speciation
 
 import (
 	"math"
+	"slices"
 )
 
 // Warnings attached to results (constant strings: no allocation).
@@ -34,12 +35,15 @@ func (s *Solver) fill(res *Result, w *Water) {
 		res.Species = make([]SpeciesResult, na)
 	}
 	res.Species = res.Species[:na]
+	species := res.Species
+	gam := s.lgOld[:na] // scratch: the activity coefficients
+	pow10s(gam, s.lg[:na])
 	for k, si := range s.act {
 		sp := &db.Species[si]
 		m := s.m[k]
 		lg := s.lg[k]
-		g := pow10(lg)
-		r := &res.Species[k]
+		g := gam[k]
+		r := &species[k]
 		r.Name, r.Charge, r.Molality = sp.Name, sp.Charge, m
 		r.LogGamma, r.Gamma, r.Activity, r.LogActivity = lg, g, m*g, s.logm[k]+lg
 		zsum += sp.Charge * m
@@ -50,16 +54,16 @@ func (s *Solver) fill(res *Result, w *Water) {
 		res.ChargeBalance = 100 * zsum / zabs
 	}
 	res.Alkalinity = alk
-	// totals and distribution
+	// totals and distribution (appended to local slices, stored back once)
+	totals, dist := res.Totals, res.Distribution
 	for ci := range db.Components {
 		if ci == db.water || ci == db.hplus || !s.active[ci] {
 			continue
 		}
 		tot := 0.0
-		for _, p := range s.compSp[ci] {
-			if k := s.spPos[p.sp]; k >= 0 {
-				tot += p.nu * s.m[k]
-			}
+		ents := s.cAct[s.cActOff[ci]:s.cActOff[ci+1]]
+		for _, p := range ents {
+			tot += p.nu * s.m[p.k]
 		}
 		name := db.Components[ci].Name
 		reported := tot
@@ -72,23 +76,25 @@ func (s *Solver) fill(res *Result, w *Water) {
 				reported += nuOf(db.Minerals[pi].Terms, ci) * u[s.iCol+1+k]
 			}
 		}
-		res.Totals = append(res.Totals, ComponentTotal{name, reported})
+		totals = append(totals, ComponentTotal{name, reported})
 		if s.role[ci] == roleCharge {
 			res.Adjusted, res.AdjustedTotal = name, tot
 		}
 		if tot <= 0 {
 			continue
 		}
-		for _, p := range s.compSp[ci] {
-			if k := s.spPos[p.sp]; k >= 0 {
-				res.Distribution = append(res.Distribution, Share{
-					Component: name, Species: db.Species[p.sp].Name, Molality: s.m[k],
-					Percent: 100 * p.nu * s.m[k] / tot,
-				})
-			}
+		start := len(dist)
+		dist = slices.Grow(dist, len(ents))[:start+len(ents)]
+		for q, p := range ents {
+			m := s.m[p.k]
+			sh := &dist[start+q]
+			sh.Component, sh.Species = name, db.Species[s.act[p.k]].Name
+			sh.Molality, sh.Percent = m, 100*p.nu*m/tot
 		}
 	}
+	res.Totals, res.Distribution = totals, dist
 	// saturation indices
+	minerals := res.Minerals
 	for pi := range db.Minerals {
 		mn := &db.Minerals[pi]
 		ok := true
@@ -109,8 +115,9 @@ func (s *Solver) fill(res *Result, w *Water) {
 			}
 			continue
 		}
-		res.Minerals = append(res.Minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk})
+		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk})
 	}
+	res.Minerals = minerals
 	for k, pi := range s.eqPhase {
 		res.Phases = append(res.Phases, PhaseAmount{Name: db.Minerals[pi].Name, Dissolved: u[s.iCol+1+k], SI: s.eqTarget[k]})
 	}
@@ -147,10 +154,8 @@ func (s *Solver) indices(res *Result, w *Water) {
 	}
 	// Larson-Skold: (Cl + 2 SO4) / carbonate alkalinity, equivalents.
 	var carbAlk float64
-	for _, p := range s.compSp[db.carbonate] {
-		if k := s.spPos[p.sp]; k >= 0 {
-			carbAlk += s.alkSp[p.sp] * s.m[k]
-		}
+	for _, p := range s.carbAct {
+		carbAlk += p.nu * s.m[p.k]
 	}
 	num := 0.0
 	if t, ok := res.Total("Cl-"); ok {

@@ -1,8 +1,10 @@
 package speciation
 
 import (
+	"cmp"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // Constraint kinds of a component.
@@ -34,6 +36,7 @@ type Solver struct {
 	sweeps   int
 	gsSweeps int // Gauss-Seidel sweeps for simple waters (0: Jacobi sweeps)
 	lgOld    []float64
+	gsFac    []float64 // scratch of gaussSeidel
 
 	// per component
 	role    []int
@@ -69,10 +72,27 @@ type Solver struct {
 	rowIdx  []int
 	rowW    []float64
 
-	jOff  []int     // per active species: range of its Jacobian entries
-	jPos  []int     // flat index into J
-	jCoef []float64 // w_row * nu_col
-	jRow  []int     // row of the entry (for the row scale)
+	// active species by component (position k among the active species, nu > 0):
+	// component ci's in cAct[cActOff[ci]:cActOff[ci+1]]; the active species with an
+	// alkalinity (weight: equivalents) and the carbonate species (same weight); the
+	// charged species (weight z^2/2)
+	cAct    []kNu
+	cActOff []int32
+	alkAct  []kNu
+	carbAct []kNu
+	ionAct  []kNu
+	// the species terms of the balances by row: row r's in rEnt[rEntOff[r]:rEntOff[r+1]]
+	rEnt    []rEntry
+	rEntOff []int32
+	// the species terms of the Jacobian by position (see jEntry): the distinct
+	// positions jPos (row-major), row r's in jPos[jRowOff[r]:jRowOff[r+1]], the terms
+	// of position u in jEnt[jPosOff[u]:jPosOff[u+1]]; they multiply
+	// jVal[k] = ln10 m_k, jVal[na+k] = ln10 m_k dlog(gamma_k)/dI and jVal[2 na] = 1
+	jEnt    []jEntry
+	jPos    []int32
+	jPosOff []int32
+	jRowOff []int32
+	jVal    []float64
 
 	nameCache []nameIndex // component name and index by position in Water.totals
 
@@ -111,7 +131,7 @@ type Solver struct {
 	ext    []float64
 	rconst []float64
 	jac    []float64
-	piv    []int
+	lu     luWork
 	logAw  float64
 	iters  int
 	evals  int
@@ -127,7 +147,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 		panic("speciation: NewSolver needs a database and a model")
 	}
 	nc, ns, nm := len(db.Components), len(db.Species), len(db.Minerals)
-	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, gsSweeps: 3, WarmStart: true, nc: nc, ns: ns}
+	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, gsSweeps: 4, WarmStart: true, nc: nc, ns: ns}
 	s.role = make([]int, nc)
 	s.total = make([]float64, nc)
 	s.phaseOf = make([]int, nc)
@@ -198,9 +218,10 @@ func (s *Solver) grow(n int) {
 	s.ext = make([]float64, n)
 	s.rconst = make([]float64, n)
 	s.jac = make([]float64, n*n)
-	s.piv = make([]int, n)
+	s.lu = newLUWork(n)
 	s.rowPhase = make([]int, n)
 	s.rowTarget = make([]float64, n)
+	s.gsFac = make([]float64, n)
 }
 
 func inputErr(format string, args ...any) error {
@@ -569,24 +590,85 @@ func (s *Solver) buildStructure() {
 	s.st.IonSize = s.st.IonSize[:na]
 	s.st.TJB = s.st.TJB[:na]
 	s.st.Species = s.st.Species[:na]
-	// flattened Jacobian entries: d(row p)/d(col q) = ln10 w_p nu_q m
-	if cap(s.jOff) < na+1 {
-		s.jOff = make([]int, na+1)
+	// Active species by component, alkalinity and charge.
+	s.cAct, s.alkAct, s.carbAct, s.ionAct = s.cAct[:0], s.alkAct[:0], s.carbAct[:0], s.ionAct[:0]
+	s.cActOff = append(s.cActOff[:0], 0)
+	for ci := range db.Components {
+		for _, p := range s.compSp[ci] {
+			if k := s.spPos[p.sp]; k >= 0 {
+				s.cAct = append(s.cAct, kNu{int32(k), p.nu})
+				if ci == db.carbonate && s.alkSp[p.sp] != 0 {
+					s.carbAct = append(s.carbAct, kNu{int32(k), s.alkSp[p.sp]})
+				}
+			}
+		}
+		s.cActOff = append(s.cActOff, int32(len(s.cAct)))
 	}
-	s.jOff = s.jOff[:na+1]
-	s.jPos, s.jCoef, s.jRow = s.jPos[:0], s.jCoef[:0], s.jRow[:0]
+	for k, si := range s.act {
+		if s.alkSp[si] != 0 {
+			s.alkAct = append(s.alkAct, kNu{int32(k), s.alkSp[si]})
+		}
+		if z := s.st.Charge[k]; z != 0 {
+			s.ionAct = append(s.ionAct, kNu{int32(k), 0.5 * z * z})
+		}
+	}
+	// The species terms of the balances, grouped by row (species order kept within a
+	// row, so each sum is formed in the same order as species by species).
+	s.rEnt = s.rEnt[:0]
 	for k := 0; k < na; k++ {
-		s.jOff[k] = len(s.jPos)
+		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
+			s.rEnt = append(s.rEnt, rEntry{row: int32(s.rowIdx[p]), src: int32(k), w: s.rowW[p]})
+		}
+	}
+	slices.SortStableFunc(s.rEnt, func(a, b rEntry) int { return cmp.Compare(a.row, b.row) })
+	s.rEntOff = append(s.rEntOff[:0], 0)
+	for r, e := 0, 0; r < nTot; r++ {
+		for e < len(s.rEnt) && int(s.rEnt[e].row) == r {
+			e++
+		}
+		s.rEntOff = append(s.rEntOff, int32(e))
+	}
+	// The species terms of the Jacobian, d(row p)/d(col q) = ln10 w_p nu_q m and
+	// d(row p)/dI = -ln10 w_p m dlog(gamma)/dI, grouped by position (row-major; species
+	// order within a position). The diagonal of the I row starts with 1 (the term
+	// jVal[2 na] = 1).
+	s.jEnt = append(s.jEnt[:0], jEntry{pos: int32(s.iCol*nTot + s.iCol), src: int32(2 * na), coef: 1})
+	for k := 0; k < na; k++ {
 		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
 			r := s.rowIdx[p]
 			for q := s.colOff[k]; q < s.colOff[k+1]; q++ {
-				s.jPos = append(s.jPos, r*nTot+s.colIdx[q])
-				s.jCoef = append(s.jCoef, s.rowW[p]*s.colNu[q])
-				s.jRow = append(s.jRow, r)
+				s.jEnt = append(s.jEnt, jEntry{pos: int32(r*nTot + s.colIdx[q]), src: int32(k), coef: s.rowW[p] * s.colNu[q]})
 			}
+			s.jEnt = append(s.jEnt, jEntry{pos: int32(r*nTot + s.iCol), src: int32(na + k), coef: -s.rowW[p]})
 		}
 	}
-	s.jOff[na] = len(s.jPos)
+	slices.SortStableFunc(s.jEnt, func(a, b jEntry) int { return cmp.Compare(a.pos, b.pos) })
+	s.jPos, s.jPosOff = s.jPos[:0], s.jPosOff[:0]
+	s.jRowOff = append(s.jRowOff[:0], 0)
+	for e := 0; e < len(s.jEnt); e++ {
+		if e == 0 || s.jEnt[e].pos != s.jEnt[e-1].pos {
+			s.jPos = append(s.jPos, s.jEnt[e].pos)
+			s.jPosOff = append(s.jPosOff, int32(e))
+		}
+	}
+	s.jPosOff = append(s.jPosOff, int32(len(s.jEnt)))
+	for r, u := 0, 0; r < nTot; r++ {
+		for u < len(s.jPos) && int(s.jPos[u])/nTot == r {
+			u++
+		}
+		s.jRowOff = append(s.jRowOff, int32(u))
+	}
+	if cap(s.jVal) < 2*na+1 {
+		s.jVal = make([]float64, 2*na+1)
+	}
+	s.jVal = s.jVal[:2*na+1]
+	s.jVal[2*na] = 1
+	// The Jacobian's non-zero pattern is that of the species terms unless minerals or
+	// gases add columns or rows (then luSolve searches every row).
+	s.lu.pattern = false
+	if len(s.eqPhase) == 0 && !slices.ContainsFunc(s.rowPhase[:nTot], func(pi int) bool { return pi >= 0 }) {
+		s.lu.setPattern(nTot, s.jPos)
+	}
 }
 
 // Starting-guess modes of initialGuess and sweep.
@@ -603,6 +685,12 @@ type nameIndex struct {
 
 type spNu struct {
 	sp int
+	nu float64
+}
+
+// kNu is an active species (its position k) with a weight.
+type kNu struct {
+	k  int32
 	nu float64
 }
 
@@ -671,8 +759,9 @@ func (s *Solver) speciesMolalities(u []float64) {
 			v = -300
 		}
 		s.logm[k] = v
-		s.m[k] = pow10(v)
 	}
+	na := len(s.act)
+	pow10s(s.m[:na], s.logm[:na])
 }
 
 func (s *Solver) gammas(I float64) {
@@ -756,15 +845,21 @@ func (s *Solver) initialGuess(mode int) {
 }
 
 // gaussSeidel improves u for waters whose components all close by mass or alkalinity
-// balances (pH fixed): one component at a time, its log activity moves by
-// log10(total / current sum) and the molalities of its species follow at once
-// (multiplicatively, so a sweep costs one power of ten per component); between sweeps
-// the activity coefficients follow the ionic strength. The ionic strength is then set
-// from the molalities. Three sweeps leave Newton two iterations on typical waters.
+// balances (pH fixed): one component at a time, its activity is multiplied by
+// total / current sum and the molalities of its species follow at once (so a sweep
+// needs no power of ten; the log activities move once at the end, by the logarithm of
+// the product of each one's factors); between sweeps the activity coefficients follow
+// the ionic strength. The ionic strength is then set from the molalities. Four sweeps
+// (a sweep costs about a quarter of a Newton iteration) leave Newton two iterations on
+// typical waters, where three sweeps often left three.
 func (s *Solver) gaussSeidel(u []float64, sweeps int) {
 	db := s.db
 	s.speciesMolalities(u)
 	m := s.m
+	fac := s.gsFac[:s.n] // product of the factors of each column's activity
+	for c := range fac {
+		fac[c] = 1
+	}
 	for sweep := 0; sweep < sweeps; sweep++ {
 		for ci := range s.role {
 			c := s.col[ci]
@@ -774,15 +869,13 @@ func (s *Solver) gaussSeidel(u []float64, sweeps int) {
 			var sum, target float64
 			switch s.role[ci] {
 			case roleTotal:
-				for _, p := range s.compSp[ci] {
-					if k := s.spPos[p.sp]; k >= 0 {
-						sum += p.nu * m[k]
-					}
+				for _, p := range s.cAct[s.cActOff[ci]:s.cActOff[ci+1]] {
+					sum += p.nu * m[p.k]
 				}
 				target = s.total[ci]
 			case roleAlk:
-				for k, si := range s.act {
-					sum += s.alkSp[si] * m[k]
+				for _, p := range s.alkAct {
+					sum += p.nu * m[p.k]
 				}
 				target = s.alk
 			default:
@@ -791,46 +884,38 @@ func (s *Solver) gaussSeidel(u []float64, sweeps int) {
 			if !(sum > 0) {
 				continue
 			}
-			d := roughLog10(target / sum)
-			if d > 4 {
-				d = 4
-			} else if d < -4 {
-				d = -4
-			}
+			// the balance closes when the activity (and every molality of the component's
+			// species) is multiplied by ratio (at most 1e4 in a step); u moves by the
+			// logarithm of the product of the steps, once at the end (a starting guess
+			// needs only a rough one)
+			ratio := target / sum
 			if ci == db.carbonate && s.role[ci] == roleAlk {
 				// the alkalinity is not proportional to the carbonate activity (OH-,
 				// H3SiO4- ...): move by the carbonate part only
 				carb := 0.0
-				for _, p := range s.compSp[ci] {
-					if k := s.spPos[p.sp]; k >= 0 {
-						carb += s.alkSp[p.sp] * m[k]
-					}
+				for _, p := range s.carbAct {
+					carb += p.nu * m[p.k]
 				}
 				if carb > 0 && target-(sum-carb) > 0 {
-					d = roughLog10((target - (sum - carb)) / carb)
-				}
-				if d > 4 {
-					d = 4
-				} else if d < -4 {
-					d = -4
+					ratio = (target - (sum - carb)) / carb
 				}
 			}
-			u[c] += d
-			f := pow10(d)
-			for _, p := range s.compSp[ci] {
-				k := s.spPos[p.sp]
-				if k < 0 {
-					continue
-				}
+			f := ratio
+			if f > 1e4 {
+				f = 1e4
+			} else if f < 1e-4 {
+				f = 1e-4
+			}
+			fac[c] *= f
+			for _, p := range s.cAct[s.cActOff[ci]:s.cActOff[ci+1]] {
 				switch p.nu {
 				case 1:
-					m[k] *= f
+					m[p.k] *= f
 				case 2:
-					m[k] *= f * f
+					m[p.k] *= f * f
 				default:
-					m[k] *= pow10(p.nu * d)
+					m[p.k] *= math.Pow(f, p.nu)
 				}
-				s.logm[k] += p.nu * d
 			}
 		}
 		if sweep < sweeps-1 {
@@ -838,8 +923,8 @@ func (s *Solver) gaussSeidel(u []float64, sweeps int) {
 			// molalities follow by m *= 10^-(change of log gamma), to third order
 			// (the changes are small, and this is only a starting guess)
 			I := 0.0
-			for k := range s.act {
-				I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * m[k]
+			for _, p := range s.ionAct {
+				I += p.nu * m[p.k]
 			}
 			na := len(s.act)
 			old := s.lgOld[:na]
@@ -852,8 +937,13 @@ func (s *Solver) gaussSeidel(u []float64, sweeps int) {
 		}
 	}
 	I := 0.0
-	for k := range s.act {
-		I += 0.5 * s.st.Charge[k] * s.st.Charge[k] * m[k]
+	for _, p := range s.ionAct {
+		I += p.nu * m[p.k]
+	}
+	for c, f := range fac {
+		if f != 1 {
+			u[c] += roughLog10(f)
+		}
 	}
 	u[s.iCol] = math.Max(I, 1e-9)
 }
@@ -984,31 +1074,47 @@ func (s *Solver) applyPhaseFixes(u []float64) {
 	}
 }
 
+// jEntry is one species term of the Jacobian: J[pos] += coef * jVal[src] (before the
+// row scaling).
+type jEntry struct {
+	pos, src int32
+	coef     float64
+}
+
+// rEntry is one species term of a balance: R[row] += w m[src].
+type rEntry struct {
+	row, src int32
+	w        float64
+}
+
 // jacobian builds the Jacobian at the point of the last evaluate (it uses s.m, s.dlg
-// and s.scale), each row divided by its scale.
+// and s.scale), each row divided by its scale. Each non-zero position of the species
+// terms is summed in a register from its list of terms (built with the structure) and
+// scaled once.
 func (s *Solver) jacobian(u []float64) {
 	n := s.n
 	J := s.jac[:n*n]
 	clear(J)
-	ln10 := math.Ln10
-	inv := s.du[:n] // scratch: 1/scale of each row (du is overwritten by the caller)
-	for r := range inv {
-		inv[r] = 1 / s.scale[r]
+	na := len(s.act)
+	val := s.jVal[:2*na+1]
+	mv, dv := val[:na], val[na:2*na]
+	dlg := s.dlg[:na]
+	for k, m := range s.m[:na] {
+		lm := math.Ln10 * m
+		mv[k] = lm
+		dv[k] = lm * dlg[k]
 	}
-	J[s.iCol*n+s.iCol] = inv[s.iCol]
-	iCol := s.iCol
-	jPos, jCoef, jRow := s.jPos, s.jCoef, s.jRow
-	for k := range s.act {
-		m := ln10 * s.m[k]
-		for e := s.jOff[k]; e < s.jOff[k+1]; e++ {
-			jr := jRow[e]
-			J[jPos[e]] += jCoef[e] * m * inv[jr]
-		}
-		// ionic-strength column: - ln10 w m dlogg/dI
-		md := m * s.dlg[k]
-		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
-			r := s.rowIdx[p]
-			J[r*n+iCol] -= s.rowW[p] * md * inv[r]
+	inv := s.du[:n] // scratch: 1/scale of each row (du is overwritten by the caller)
+	ent, pos, posOff := s.jEnt, s.jPos, s.jPosOff
+	for r := range inv {
+		v := 1 / s.scale[r]
+		inv[r] = v
+		for q := s.jRowOff[r]; q < s.jRowOff[r+1]; q++ {
+			acc := 0.0
+			for _, e := range ent[posOff[q]:posOff[q+1]] {
+				acc += e.coef * val[e.src]
+			}
+			J[pos[q]] = acc * v
 		}
 	}
 	base := s.iCol + 1
@@ -1063,14 +1169,15 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 	sc[s.iCol] = I
 	ext[s.iCol] = 0
 	s.speciesMolalities(u)
-	for k := range s.act {
-		m := s.m[k]
-		for p := s.rowOff[k]; p < s.rowOff[k+1]; p++ {
-			wm := s.rowW[p] * m
-			r := s.rowIdx[p]
-			R[r] += wm
-			sc[r] += math.Abs(wm)
+	m := s.m[:len(s.act)]
+	for r := range R {
+		sum, abs := R[r], sc[r]
+		for _, e := range s.rEnt[s.rEntOff[r]:s.rEntOff[r+1]] {
+			wm := e.w * m[e.src]
+			sum += wm
+			abs += math.Abs(wm)
 		}
+		R[r], sc[r] = sum, abs
 	}
 	// equilibrium phases: amounts dissolved add to totals (and alkalinity)
 	base := s.iCol + 1
@@ -1166,7 +1273,7 @@ func (s *Solver) newton(maxStep float64) error {
 		for r := 0; r < n; r++ {
 			du[r] = -s.resid[r] / s.scale[r]
 		}
-		if !luSolve(J, s.piv[:n], du, n) {
+		if !luSolve(J, du, n, &s.lu) {
 			return &SolveError{Reason: fmt.Sprintf("singular Jacobian at iteration %d", it), Iterations: it, Err: ErrSingular}
 		}
 		// step limiting in log units; keep I positive
@@ -1279,16 +1386,38 @@ func (s *Solver) checkBounds(u []float64, it int) error {
 
 // luSolve solves A x = b in place (b becomes x) by Gaussian elimination with partial
 // pivoting on the row-major n x n matrix A (destroyed). It reports false when A is
-// singular to working precision.
-func luSolve(A []float64, piv []int, b []float64, n int) bool {
+// singular to working precision. The Jacobians of speciation are sparse (a cation's
+// balance involves its own activity, a few anions and the ionic strength), so each
+// elimination step records the columns where the pivot row is non-zero and updates only
+// those, in the elimination and in the back substitution: the same arithmetic as the
+// dense loops without the terms that add l*0 (except that the back substitution
+// multiplies by the reciprocal pivot, computed once). ws is the workspace (see luWork).
+func luSolve(A []float64, b []float64, n int, ws *luWork) bool {
 	A = A[:n*n]
 	b = b[:n]
+	idx := ws.idx[:n*n]
+	off := ws.off[:n+1]
+	rdiag := ws.rdiag[:n]
+	off[0] = 0
+	// With a pattern (ws.pattern) and as long as no rows are exchanged, the rows below
+	// the pivot that can be non-zero in column k are known: the pivot search and the
+	// elimination visit only those (the others hold exact zeros, which neither win the
+	// search nor change a row). The first exchange ends the use of the pattern.
+	sym := ws.pattern && ws.patternN == n
 	for k := 0; k < n; k++ {
 		p := k
 		mx := math.Abs(A[k*n+k])
-		for i := k + 1; i < n; i++ {
-			if v := math.Abs(A[i*n+k]); v > mx {
-				mx, p = v, i
+		if sym {
+			for _, i := range ws.below[ws.belowOff[k]:ws.belowOff[k+1]] {
+				if v := math.Abs(A[int(i)*n+k]); v > mx {
+					mx, p = v, int(i)
+				}
+			}
+		} else {
+			for i := k + 1; i < n; i++ {
+				if v := math.Abs(A[i*n+k]); v > mx {
+					mx, p = v, i
+				}
 			}
 		}
 		if mx < 1e-250 || mx != mx {
@@ -1300,36 +1429,116 @@ func luSolve(A []float64, piv []int, b []float64, n int) bool {
 				rk[j], rp[j] = rp[j], rk[j]
 			}
 			b[k], b[p] = b[p], b[k]
+			sym = false
 		}
-		piv[k] = p
 		d := 1 / A[k*n+k]
-		rk := A[k*n+k+1 : k*n+n]
+		rdiag[k] = d
+		// non-zero columns of the pivot row right of the pivot
+		rk := A[k*n : k*n+n]
+		cnt := off[k]
+		for j := k + 1; j < n; j++ {
+			if rk[j] != 0 {
+				idx[cnt] = j
+				cnt++
+			}
+		}
+		off[k+1] = cnt
+		cols := idx[off[k]:cnt]
 		bk := b[k]
+		if sym {
+			for _, i := range ws.below[ws.belowOff[k]:ws.belowOff[k+1]] {
+				ri := A[int(i)*n : int(i)*n+n]
+				l := ri[k] * d
+				if l == 0 {
+					continue
+				}
+				for _, j := range cols {
+					ri[j] -= l * rk[j]
+				}
+				b[i] -= l * bk
+			}
+			continue
+		}
 		for i := k + 1; i < n; i++ {
-			l := A[i*n+k] * d
+			ri := A[i*n : i*n+n]
+			l := ri[k] * d
 			if l == 0 {
 				continue
 			}
-			ri := A[i*n+k+1 : i*n+n]
-			ri = ri[:len(rk)]
-			for j, v := range rk {
-				ri[j] -= l * v
+			for _, j := range cols {
+				ri[j] -= l * rk[j]
 			}
 			b[i] -= l * bk
 		}
 	}
 	for k := n - 1; k >= 0; k-- {
 		v := b[k]
-		row := A[k*n+k+1 : k*n+n]
-		xs := b[k+1:]
-		xs = xs[:len(row)]
-		for j, a := range row {
-			v -= a * xs[j]
+		rk := A[k*n : k*n+n]
+		for _, j := range idx[off[k]:off[k+1]] {
+			v -= rk[j] * b[j]
 		}
-		b[k] = v / A[k*n+k]
-		if !finite(b[k]) {
+		b[k] = v * rdiag[k]
+	}
+	for _, v := range b {
+		if !finite(v) {
 			return false
 		}
 	}
 	return true
+}
+
+// luWork is the scratch of luSolve for systems up to its size: the non-zero columns of
+// each pivot row (idx, row k in idx[off[k]:off[k+1]]) and the reciprocal pivots. If
+// pattern is set, the matrices of size patternN are known to be zero outside a pattern,
+// and below[belowOff[k]:belowOff[k+1]] lists the rows i > k that can be non-zero in
+// column k during the elimination without row exchanges (the pattern with its fill-in,
+// see setPattern).
+type luWork struct {
+	idx   []int
+	off   []int
+	rdiag []float64
+
+	pattern  bool
+	patternN int
+	below    []int32
+	belowOff []int32
+	fill     []bool
+}
+
+// setPattern records the non-zero pattern of the n x n matrices to come (nz: row-major
+// positions; the diagonal is always included) and works out its fill-in under
+// elimination in the natural order.
+func (ws *luWork) setPattern(n int, nz []int32) {
+	if cap(ws.fill) < n*n {
+		ws.fill = make([]bool, n*n)
+	}
+	P := ws.fill[:n*n]
+	clear(P)
+	for _, pos := range nz {
+		P[pos] = true
+	}
+	for k := 0; k < n; k++ {
+		P[k*n+k] = true
+	}
+	ws.below = ws.below[:0]
+	ws.belowOff = append(ws.belowOff[:0], 0)
+	for k := 0; k < n; k++ {
+		for i := k + 1; i < n; i++ {
+			if !P[i*n+k] {
+				continue
+			}
+			ws.below = append(ws.below, int32(i))
+			for j := k + 1; j < n; j++ {
+				if P[k*n+j] {
+					P[i*n+j] = true
+				}
+			}
+		}
+		ws.belowOff = append(ws.belowOff, int32(len(ws.below)))
+	}
+	ws.pattern, ws.patternN = true, n
+}
+
+func newLUWork(n int) luWork {
+	return luWork{idx: make([]int, n*n), off: make([]int, n+1), rdiag: make([]float64, n)}
 }
