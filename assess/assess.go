@@ -29,6 +29,11 @@ type Options struct {
 	// Progress, when not nil, is called after each record is done (from one
 	// goroutine at a time).
 	Progress func()
+	// Detail keeps every species and the distribution of each component in
+	// the results (for JSON output and the species view). Without it only
+	// the summary quantities are kept (ionic strength, SIs, indices...),
+	// which keeps memory small on large files.
+	Detail bool
 }
 
 // Record is one input row with everything computed for it.
@@ -176,6 +181,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.SolveError = reason
 		r.Note(hydro.StatusWarning, "warning: speciation failed: %s", reason)
 		return
+	}
+	if !opt.Detail {
+		res.Species, res.Distribution = nil, nil
 	}
 	r.Result = res
 	if res.Adjusted != "" {

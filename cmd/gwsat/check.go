@@ -26,7 +26,7 @@ func runCheck(e *env, args []string) int {
 	if code, ok := parseFlags(fs, args); !ok {
 		return code
 	}
-	batches, recs, db, err := in.assessAll(e, fs.Args())
+	batches, recs, db, err := in.assess(e, fs.Args(), *jsonOut != "")
 	if err != nil {
 		return failf(e, exitUsage, "%v", err)
 	}

@@ -115,6 +115,12 @@ func balanceComponent(db *speciation.Database, name string) (string, error) {
 
 // assessAll reads, converts and speciates; it shows progress on a terminal.
 func (f *inputFlags) assessAll(e *env, args []string) ([]*hydro.Batch, []assess.Record, *speciation.Database, error) {
+	return f.assess(e, args, true)
+}
+
+// assess reads and speciates; detail keeps every species of every result
+// (needed for JSON and the species view, costly on large files).
+func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch, []assess.Record, *speciation.Database, error) {
 	batches, err := f.readInputs(e, args)
 	if err != nil {
 		return nil, nil, nil, err
@@ -136,7 +142,7 @@ func (f *inputFlags) assessAll(e *env, args []string) ([]*hydro.Batch, []assess.
 		n += len(b.Rows)
 	}
 	bar := progress.New(stderrFile(e), "speciating", n)
-	recs, err := assess.Run(e.ctx, db, batches, assess.Options{Model: model, BalanceOn: bal, Progress: func() { bar.Add(1) }})
+	recs, err := assess.Run(e.ctx, db, batches, assess.Options{Model: model, BalanceOn: bal, Progress: func() { bar.Add(1) }, Detail: detail})
 	bar.Done()
 	report.FlagPositions(recs)
 	return batches, recs, db, err
