@@ -200,6 +200,15 @@ func TestReportDemo(t *testing.T) {
 	if err := json.Unmarshal(raw, &js); err != nil || len(js) != 96 {
 		t.Fatalf("samples.json: %v, %d records", err, len(js))
 	}
+
+	// A second report into the same folder leaves no figure of the first.
+	code, _, errs = gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png", "-minerals", "Barite")
+	if code != exitRejected {
+		t.Fatalf("second report: exit %d: %s", code, errs)
+	}
+	if old, _ := filepath.Glob(filepath.Join(dir, "figures", "map_calcite_*")); len(old) > 0 {
+		t.Errorf("stale figures kept: %v", old)
+	}
 }
 
 // checkPNG asserts a figure is a real picture: 300 dpi dimensions of a few

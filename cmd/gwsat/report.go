@@ -100,6 +100,7 @@ func runReport(e *env, args []string) int {
 	if err := os.MkdirAll(filepath.Join(*out, "figures"), 0o755); err != nil {
 		return failf(e, exitRejected, "report: %v", err)
 	}
+	removeOldFigures(filepath.Join(*out, "figures"))
 	model, _ := in.activityModel()
 	st, err := report.BuildSite(recs, all, report.SiteOptions{Minerals: chosen, Method: *method, Features: feats, BandEdges: edges, ProfileRound: *profileRound, Model: model.Name(), ClusterColumn: *cluster})
 	if err != nil {
@@ -368,4 +369,18 @@ func writeGeoJSON(w io.Writer, recs []assess.Record, minerals []string) error {
 		pts = append(pts, geo.PointFeature{ID: fmt.Sprintf("%s:%d", r.File, r.Row.Line), Point: p, Props: props})
 	}
 	return geo.WriteSamples(w, pts)
+}
+
+// removeOldFigures deletes the figures an earlier report left in dir, so
+// that a figure no longer drawn (another mineral, zone or cluster) does not
+// linger beside the new ones. Only gwsat's own file names are touched.
+func removeOldFigures(dir string) {
+	for _, prefix := range []string{"map_", "profile_", "mix_"} {
+		for _, ext := range []string{"png", "svg", "pdf"} {
+			old, _ := filepath.Glob(filepath.Join(dir, prefix+"*."+ext))
+			for _, f := range old {
+				os.Remove(f)
+			}
+		}
+	}
 }
