@@ -1,6 +1,7 @@
 package main
 
 import (
+	"encoding/csv"
 	"fmt"
 	"io"
 	"sort"
@@ -8,6 +9,7 @@ import (
 
 	"gwsat/assess"
 	"gwsat/hydro"
+	"gwsat/internal/progress"
 	"gwsat/report"
 )
 
@@ -26,23 +28,93 @@ func runCheck(e *env, args []string) int {
 	if code, ok := parseFlags(fs, args); !ok {
 		return code
 	}
-	batches, recs, db, err := in.assess(e, fs.Args(), *jsonOut != "")
+	if *jsonOut != "" {
+		return checkInMemory(e, &in, fs.Args(), *out, *jsonOut, *showMap, *quiet)
+	}
+	return checkStreaming(e, &in, fs.Args(), *out, *showMap, *quiet)
+}
+
+// checkChunk is how many rows are speciated and written at a time: the
+// results of a chunk are dropped once its rows are written, so memory does
+// not grow with the results of a large file.
+const checkChunk = 2048
+
+// checkStreaming speciates and writes the table chunk by chunk.
+func checkStreaming(e *env, in *inputFlags, args []string, out string, showMap, quiet bool) int {
+	batches, err := in.readInputs(e, args)
+	if err != nil {
+		return failf(e, exitUsage, "%v", err)
+	}
+	sp, err := in.speciator()
+	if err != nil {
+		return failf(e, exitUsage, "%v", err)
+	}
+	minerals := report.SolidMinerals(sp.db)
+	sum := newSummary(batches)
+	total := 0
+	for _, b := range batches {
+		total += len(b.Rows)
+	}
+	bar := progress.New(stderrFile(e), "speciating", total)
+	err = e.writeFile(out, func(w io.Writer) error {
+		cw := csv.NewWriter(w)
+		if err := cw.Write(report.SampleTable(nil, minerals).Header); err != nil {
+			return err
+		}
+		for _, b := range batches {
+			for lo := 0; lo < len(b.Rows); lo += checkChunk {
+				hi := min(lo+checkChunk, len(b.Rows))
+				part := *b
+				part.Rows = b.Rows[lo:hi]
+				recs, err := assess.Run(e.ctx, sp.db, []*hydro.Batch{&part}, sp.options(func() { bar.Add(1) }, false))
+				if err != nil {
+					return err
+				}
+				report.FlagPositions(recs)
+				if err := cw.WriteAll(report.SampleTable(recs, minerals).Rows); err != nil {
+					return err
+				}
+				for i := range recs {
+					sum.add(&recs[i])
+				}
+			}
+		}
+		cw.Flush()
+		return cw.Error()
+	})
+	bar.Done()
+	if err != nil {
+		return failf(e, exitRejected, "writing %s: %v", out, err)
+	}
+	if showMap {
+		printMapping(e.stderr, batches)
+	}
+	if !quiet {
+		sum.print(e.stderr)
+	}
+	if sum.counts[hydro.StatusRejected] > 0 {
+		return exitRejected
+	}
+	return exitOK
+}
+
+// checkInMemory keeps every result for the full JSON output.
+func checkInMemory(e *env, in *inputFlags, args []string, out, jsonOut string, showMap, quiet bool) int {
+	batches, recs, db, err := in.assess(e, args, true)
 	if err != nil {
 		return failf(e, exitUsage, "%v", err)
 	}
 	tbl := report.SampleTable(recs, report.SolidMinerals(db))
-	if err := e.writeFile(*out, tbl.WriteCSV); err != nil {
-		return failf(e, exitRejected, "writing %s: %v", *out, err)
+	if err := e.writeFile(out, tbl.WriteCSV); err != nil {
+		return failf(e, exitRejected, "writing %s: %v", out, err)
 	}
-	if *jsonOut != "" {
-		if err := e.writeFile(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, recs) }); err != nil {
-			return failf(e, exitRejected, "writing %s: %v", *jsonOut, err)
-		}
+	if err := e.writeFile(jsonOut, func(w io.Writer) error { return report.WriteJSON(w, recs) }); err != nil {
+		return failf(e, exitRejected, "writing %s: %v", jsonOut, err)
 	}
-	if *showMap {
+	if showMap {
 		printMapping(e.stderr, batches)
 	}
-	if !*quiet {
+	if !quiet {
 		printSummary(e.stderr, batches, recs)
 	}
 	return exitCode(recs)
@@ -78,44 +150,67 @@ func printMapping(w io.Writer, batches []*hydro.Batch) {
 	}
 }
 
-// printSummary writes the short terminal summary: counts per status, the
-// charge-balance verdicts, the rows that need a look, and the minerals most
-// often supersaturated.
-func printSummary(w io.Writer, batches []*hydro.Batch, recs []assess.Record) {
-	counts := map[hydro.Status]int{}
-	bal := map[hydro.BalanceStatus]int{}
-	solved := 0
-	super := map[string]int{}
-	for i := range recs {
-		r := &recs[i]
-		counts[r.Status]++
-		if r.Balance.Status != "" && (r.Balance.CationsMeqL > 0 || r.Balance.AnionsMeqL > 0) {
-			bal[r.Balance.Status]++
-		}
-		if r.Result != nil {
-			solved++
-			for _, m := range r.Result.Minerals {
-				if m.SI > NearEquilibriumBand {
-					super[m.Name]++
-				}
+// summary gathers, row by row, what the short terminal summary shows:
+// counts per status, the charge-balance verdicts, how many samples were
+// speciated, the minerals most often supersaturated and the first rows
+// that need a look.
+type summary struct {
+	files    []string
+	rows     int
+	counts   map[hydro.Status]int
+	bal      map[hydro.BalanceStatus]int
+	solved   int
+	super    map[string]int
+	problems []string
+	more     bool
+}
+
+func newSummary(batches []*hydro.Batch) *summary {
+	s := &summary{counts: map[hydro.Status]int{}, bal: map[hydro.BalanceStatus]int{}, super: map[string]int{}}
+	for _, b := range batches {
+		s.files = append(s.files, b.File)
+	}
+	return s
+}
+
+// maxProblems is how many rows needing a look the summary lists.
+const maxProblems = 12
+
+func (s *summary) add(r *assess.Record) {
+	s.rows++
+	s.counts[r.Status]++
+	if r.Balance.Status != "" && (r.Balance.CationsMeqL > 0 || r.Balance.AnionsMeqL > 0) {
+		s.bal[r.Balance.Status]++
+	}
+	if r.Result != nil {
+		s.solved++
+		for _, m := range r.Result.Minerals {
+			if m.SI > NearEquilibriumBand {
+				s.super[m.Name]++
 			}
 		}
 	}
-	files := make([]string, len(batches))
-	for i, b := range batches {
-		files[i] = b.File
+	if r.Status != hydro.StatusOK {
+		if len(s.problems) == maxProblems {
+			s.more = true
+			return
+		}
+		s.problems = append(s.problems, fmt.Sprintf("  %-8s %s line %d (%s): %s", r.Status, r.File, r.Row.Line, r.Sample().ID, firstProblem(r)))
 	}
-	fmt.Fprintf(w, "gwsat check: %d rows from %s\n", len(recs), strings.Join(files, ", "))
-	fmt.Fprintf(w, "  status: %d ok, %d warning, %d rejected\n", counts[hydro.StatusOK], counts[hydro.StatusWarning], counts[hydro.StatusRejected])
-	fmt.Fprintf(w, "  charge balance (Standard Methods 1030 E): %d pass, %d warn, %d fail\n", bal[hydro.BalancePass], bal[hydro.BalanceWarn], bal[hydro.BalanceFail])
-	fmt.Fprintf(w, "  speciated: %d of %d\n", solved, len(recs))
-	if len(super) > 0 {
+}
+
+func (s *summary) print(w io.Writer) {
+	fmt.Fprintf(w, "gwsat: %d rows from %s\n", s.rows, strings.Join(s.files, ", "))
+	fmt.Fprintf(w, "  status: %d ok, %d warning, %d rejected\n", s.counts[hydro.StatusOK], s.counts[hydro.StatusWarning], s.counts[hydro.StatusRejected])
+	fmt.Fprintf(w, "  charge balance (Standard Methods 1030 E): %d pass, %d warn, %d fail\n", s.bal[hydro.BalancePass], s.bal[hydro.BalanceWarn], s.bal[hydro.BalanceFail])
+	fmt.Fprintf(w, "  speciated: %d of %d\n", s.solved, s.rows)
+	if len(s.super) > 0 {
 		type kv struct {
 			k string
 			v int
 		}
 		var l []kv
-		for k, v := range super {
+		for k, v := range s.super {
 			l = append(l, kv{k, v})
 		}
 		sort.Slice(l, func(i, j int) bool { return l[i].v > l[j].v || l[i].v == l[j].v && l[i].k < l[j].k })
@@ -125,20 +220,22 @@ func printSummary(w io.Writer, batches []*hydro.Batch, recs []assess.Record) {
 		}
 		fmt.Fprintf(w, "  supersaturated (SI > %.1f), samples per mineral: %s\n", NearEquilibriumBand, strings.Join(parts, ", "))
 	}
-	shown := 0
-	for i := range recs {
-		r := &recs[i]
-		if r.Status == hydro.StatusOK {
-			continue
-		}
-		if shown == 12 {
-			fmt.Fprintf(w, "  ... and more: see the status and reasons columns\n")
-			break
-		}
-		shown++
-		fmt.Fprintf(w, "  %-8s %s line %d (%s): %s\n", r.Status, r.File, r.Row.Line, r.Sample().ID, firstProblem(r))
+	for _, p := range s.problems {
+		fmt.Fprintln(w, p)
+	}
+	if s.more {
+		fmt.Fprintln(w, "  ... and more: see the status and reasons columns")
 	}
 	fmt.Fprintln(w, "  Screening results, not a design: defer to local codes and licensed professionals.")
+}
+
+// printSummary writes the summary of a run held in memory.
+func printSummary(w io.Writer, batches []*hydro.Batch, recs []assess.Record) {
+	s := newSummary(batches)
+	for i := range recs {
+		s.add(&recs[i])
+	}
+	s.print(w)
 }
 
 // NearEquilibriumBand is the half-width of the band around SI = 0 within

@@ -118,6 +118,33 @@ func (f *inputFlags) assessAll(e *env, args []string) ([]*hydro.Batch, []assess.
 	return f.assess(e, args, true)
 }
 
+// speciator is what assess.Run needs, set from the flags.
+type speciator struct {
+	db    *speciation.Database
+	model speciation.ActivityModel
+	bal   string
+}
+
+func (f *inputFlags) speciator() (*speciator, error) {
+	model, err := f.activityModel()
+	if err != nil {
+		return nil, err
+	}
+	db, err := speciation.Default()
+	if err != nil {
+		return nil, err
+	}
+	bal, err := balanceComponent(db, f.balanceOn)
+	if err != nil {
+		return nil, err
+	}
+	return &speciator{db: db, model: model, bal: bal}, nil
+}
+
+func (sp *speciator) options(progress func(), detail bool) assess.Options {
+	return assess.Options{Model: sp.model, BalanceOn: sp.bal, Progress: progress, Detail: detail}
+}
+
 // assess reads and speciates; detail keeps every species of every result
 // (needed for JSON and the species view, costly on large files).
 func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch, []assess.Record, *speciation.Database, error) {
@@ -125,15 +152,7 @@ func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch,
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	model, err := f.activityModel()
-	if err != nil {
-		return nil, nil, nil, err
-	}
-	db, err := speciation.Default()
-	if err != nil {
-		return nil, nil, nil, err
-	}
-	bal, err := balanceComponent(db, f.balanceOn)
+	sp, err := f.speciator()
 	if err != nil {
 		return nil, nil, nil, err
 	}
@@ -142,10 +161,10 @@ func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch,
 		n += len(b.Rows)
 	}
 	bar := progress.New(stderrFile(e), "speciating", n)
-	recs, err := assess.Run(e.ctx, db, batches, assess.Options{Model: model, BalanceOn: bal, Progress: func() { bar.Add(1) }, Detail: detail})
+	recs, err := assess.Run(e.ctx, sp.db, batches, sp.options(func() { bar.Add(1) }, detail))
 	bar.Done()
 	report.FlagPositions(recs)
-	return batches, recs, db, err
+	return batches, recs, sp.db, err
 }
 
 // stderrFile returns the process's stderr when the command writes there, so
