@@ -81,6 +81,9 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 		if err != nil {
 			return nil, err
 		}
+		if len(b.Rows) == 0 {
+			return nil, fmt.Errorf("%s: no data rows below the header line", b.File)
+		}
 		out = append(out, b)
 	}
 	return out, nil

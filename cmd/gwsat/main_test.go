@@ -118,6 +118,12 @@ func TestCheckBadInput(t *testing.T) {
 	if _, err := os.Stat(filepath.Join(dir, "never.csv")); !os.IsNotExist(err) {
 		t.Errorf("a failed run left an output file")
 	}
+	hdr := filepath.Join(dir, "header-only.csv")
+	os.WriteFile(hdr, []byte("Sample,Ca,pH\n"), 0o644)
+	code, _, errs = gwsat(t, "", "check", hdr)
+	if code != exitUsage || !strings.Contains(errs, "header-only.csv") || !strings.Contains(errs, "no data rows") {
+		t.Errorf("header-only file: exit %d, stderr %q", code, errs)
+	}
 	code, _, errs = gwsat(t, "", "check", "-model", "nonsense", p)
 	if code != exitUsage || !strings.Contains(errs, "nonsense") {
 		t.Errorf("bad model: exit %d, %q", code, errs)
