@@ -4,10 +4,12 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"image"
 	"image/color"
 	"math"
 	"strings"
 
+	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
@@ -71,7 +73,7 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 	case "pdf":
 		pc := vgpdf.New(width, height)
 		pc.EmbedFonts(true)
-		cw = pc
+		cw = pdfCanvas{pc}
 	default:
 		return nil, fmt.Errorf("%w: %q (want png, svg or pdf)", ErrFormat, format)
 	}
@@ -122,4 +124,35 @@ func (ps panels) Draw(c draw.Canvas) error {
 		}
 	}
 	return nil
+}
+
+// pdfCanvas works around two limits of the PDF backend of gonum/plot
+// v0.17, seen by rendering the same figure to PNG and PDF: its DrawImage
+// places images upside down (the surface and colour bar of a map came out
+// flipped north-south), and its fonts are encoded in code page 1252, which
+// has no true minus sign or "almost equal" sign. Images are therefore
+// flipped before drawing, and those two characters are written as "-" and
+// "~".
+type pdfCanvas struct{ *vgpdf.Canvas }
+
+func (c pdfCanvas) DrawImage(rect vg.Rectangle, img image.Image) {
+	c.Canvas.DrawImage(rect, flipVertical(img))
+}
+
+func (c pdfCanvas) FillString(f font.Face, pt vg.Point, text string) {
+	c.Canvas.FillString(f, pt, pdfText.Replace(text))
+}
+
+var pdfText = strings.NewReplacer("\u2212", "-", "\u2248", "~")
+
+// flipVertical returns img mirrored top to bottom.
+func flipVertical(img image.Image) image.Image {
+	b := img.Bounds()
+	out := image.NewNRGBA(image.Rect(0, 0, b.Dx(), b.Dy()))
+	for y := 0; y < b.Dy(); y++ {
+		for x := 0; x < b.Dx(); x++ {
+			out.Set(x, b.Dy()-1-y, img.At(b.Min.X+x, b.Min.Y+y))
+		}
+	}
+	return out
 }

@@ -1,0 +1,35 @@
+package maps
+
+import (
+	"image"
+	"image/color"
+	"testing"
+)
+
+// The PDF backend draws images upside down; flipVertical undoes it. A
+// two-row image must come back with its rows swapped and nothing else
+// changed.
+func TestFlipVertical(t *testing.T) {
+	img := image.NewNRGBA(image.Rect(0, 0, 3, 2))
+	top, bottom := color.NRGBA{R: 255, A: 255}, color.NRGBA{B: 255, A: 255}
+	for x := 0; x < 3; x++ {
+		img.SetNRGBA(x, 0, top)
+		img.SetNRGBA(x, 1, bottom)
+	}
+	f := flipVertical(img)
+	if f.Bounds().Dx() != 3 || f.Bounds().Dy() != 2 {
+		t.Fatalf("bounds %v", f.Bounds())
+	}
+	for x := 0; x < 3; x++ {
+		if color.NRGBAModel.Convert(f.At(x, 0)) != bottom || color.NRGBAModel.Convert(f.At(x, 1)) != top {
+			t.Fatalf("column %d not flipped: %v %v", x, f.At(x, 0), f.At(x, 1))
+		}
+	}
+}
+
+// Characters outside code page 1252 (the PDF fonts' encoding) are replaced.
+func TestPDFText(t *testing.T) {
+	if got := pdfText.Replace("\u22120.5 \u2248 1 km, \u00b10.5"); got != "-0.5 ~ 1 km, \u00b10.5" {
+		t.Errorf("got %q", got)
+	}
+}
