@@ -27,9 +27,14 @@ func TestFlipVertical(t *testing.T) {
 	}
 }
 
-// Characters outside code page 1252 (the PDF fonts' encoding) are replaced.
+// Text for the PDF fonts is code page 1252: "±" is the single byte 0xB1
+// and "°" 0xB0 (as in Latin-1), the en dash 0x96 (Microsoft's cp1252
+// table), and the minus and "almost equal" signs, which cp1252 lacks,
+// become "-" and "~".
 func TestPDFText(t *testing.T) {
-	if got := pdfText.Replace("\u22120.5 \u2248 1 km, \u00b10.5"); got != "-0.5 ~ 1 km, \u00b10.5" {
-		t.Errorf("got %q", got)
+	got := pdfText("\u22120.5 \u2248 1 km, \u00b10.5 \u00b0C \u2013 x \u4e00")
+	want := "-0.5 ~ 1 km, \xb10.5 \xb0C \x96 x ?"
+	if got != want {
+		t.Errorf("got %q, want %q", got, want)
 	}
 }

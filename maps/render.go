@@ -127,12 +127,12 @@ func (ps panels) Draw(c draw.Canvas) error {
 }
 
 // pdfCanvas works around two limits of the PDF backend of gonum/plot
-// v0.17, seen by rendering the same figure to PNG and PDF: its DrawImage
-// places images upside down (the surface and colour bar of a map came out
-// flipped north-south), and its fonts are encoded in code page 1252, which
-// has no true minus sign or "almost equal" sign. Images are therefore
-// flipped before drawing, and those two characters are written as "-" and
-// "~".
+// v0.17, seen by rendering the same figure to PNG and PDF and reading the
+// PDF back: its DrawImage places images upside down (the surface and colour
+// bar of a map came out flipped north-south), and it embeds fonts encoded in
+// code page 1252 but writes strings as UTF-8 bytes, so "±" came out as
+// "Â±". Images are therefore flipped before drawing, and text is converted
+// to code page 1252 (pdfText).
 type pdfCanvas struct{ *vgpdf.Canvas }
 
 func (c pdfCanvas) DrawImage(rect vg.Rectangle, img image.Image) {
@@ -140,10 +140,34 @@ func (c pdfCanvas) DrawImage(rect vg.Rectangle, img image.Image) {
 }
 
 func (c pdfCanvas) FillString(f font.Face, pt vg.Point, text string) {
-	c.Canvas.FillString(f, pt, pdfText.Replace(text))
+	c.Canvas.FillString(f, pt, pdfText(text))
 }
 
-var pdfText = strings.NewReplacer("\u2212", "-", "\u2248", "~")
+// cp1252 maps the characters our figures use outside Latin-1 to code page
+// 1252 (Microsoft's published table); the minus and "almost equal" signs,
+// which it lacks, become "-" and "~".
+var cp1252 = map[rune]byte{
+	'\u2212': '-', '\u2248': '~', '\u2013': 0x96, '\u2014': 0x97, '\u2026': 0x85,
+	'\u2018': 0x91, '\u2019': 0x92, '\u201c': 0x93, '\u201d': 0x94, '\u2022': 0x95, '\u20ac': 0x80,
+}
+
+// pdfText converts UTF-8 text to code page 1252 bytes: ASCII and Latin-1
+// (U+00A0-U+00FF, identical in both) as they are, the characters of cp1252
+// by table, anything else as "?".
+func pdfText(s string) string {
+	b := make([]byte, 0, len(s))
+	for _, r := range s {
+		switch {
+		case r < 0x80 || (r >= 0xa0 && r <= 0xff):
+			b = append(b, byte(r))
+		case cp1252[r] != 0:
+			b = append(b, cp1252[r])
+		default:
+			b = append(b, '?')
+		}
+	}
+	return string(b)
+}
 
 // flipVertical returns img mirrored top to bottom.
 func flipVertical(img image.Image) image.Image {
