@@ -177,6 +177,9 @@ func TestReportDemo(t *testing.T) {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	figs, _ := filepath.Glob(filepath.Join(dir, "figures", "*.png"))
+	if _, err := os.Stat(filepath.Join(dir, "figures", "piper.png")); err != nil {
+		t.Errorf("no Piper diagram: %v", err)
+	}
 	if len(figs) < 4 {
 		t.Fatalf("%d PNG figures, want maps and profiles", len(figs))
 	}

@@ -106,6 +106,9 @@ func runReport(e *env, args []string) int {
 	if err != nil {
 		fmt.Fprintf(e.stderr, "gwsat report: %v\n", err)
 	}
+	if pf, ok := report.PiperFigure(recs, *cluster); ok {
+		st.Figures = append(st.Figures, pf)
+	}
 	figs := st.Figures
 	var sections []report.Section
 	if sec, mfigs, err := mix.section(e, recs, db, model); err != nil {
@@ -375,7 +378,7 @@ func writeGeoJSON(w io.Writer, recs []assess.Record, minerals []string) error {
 // that a figure no longer drawn (another mineral, zone or cluster) does not
 // linger beside the new ones. Only gwsat's own file names are touched.
 func removeOldFigures(dir string) {
-	for _, prefix := range []string{"map_", "profile_", "mix_"} {
+	for _, prefix := range []string{"map_", "profile_", "mix_", "piper"} {
 		for _, ext := range []string{"png", "svg", "pdf"} {
 			old, _ := filepath.Glob(filepath.Join(dir, prefix+"*."+ext))
 			for _, f := range old {

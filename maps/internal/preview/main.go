@@ -38,9 +38,14 @@ func main() {
 		"temperature":  DemoTemperature(),
 		"bars":         DemoBars(),
 		"panels":       maps.Panels([]maps.Figure{DemoMap(), DemoWellsOnly()}, 2),
+		"piper":        DemoPiper(),
 	}
 	for name, f := range figs {
 		for _, format := range []string{"png", "svg", "pdf"} {
+			w, h := w, h
+			if name == "piper" {
+				h = 14 * vg.Centimeter // the diagram is nearly as tall as wide
+			}
 			b, err := maps.Render(f, format, w, h)
 			if err != nil {
 				fmt.Fprintf(os.Stderr, "%s.%s: %v\n", name, format, err)
@@ -237,4 +242,46 @@ func DemoProfileElevation() maps.DepthProfile {
 		}
 	}
 	return d
+}
+
+// DemoPiper is an invented injection scenario: a fresh Ca-HCO3 injectate,
+// a brackish Na-Cl-SO4 native water (both end members charge balanced, in
+// meq/L) with scatter around each, and monitoring samples that are exact
+// mixtures of the two mean waters, so that they fall on straight lines in
+// all three fields of the diagram.
+func DemoPiper() maps.Piper {
+	fresh := maps.PiperPoint{Ca: 2.5, Mg: 0.8, Na: 0.5, K: 0.05, HCO3: 3.0, SO4: 0.4, Cl: 0.45}
+	brack := maps.PiperPoint{Ca: 2, Mg: 2.5, Na: 10, K: 0.3, Cl: 10, SO4: 3.8, HCO3: 1}
+	r := rand.New(rand.NewPCG(3, 4))
+	jitter := func(p maps.PiperPoint, rel float64) maps.PiperPoint {
+		for _, v := range []*float64{&p.Ca, &p.Mg, &p.Na, &p.K, &p.Cl, &p.SO4, &p.HCO3} {
+			*v *= math.Exp(r.NormFloat64() * rel)
+		}
+		return p
+	}
+	var pts []maps.PiperPoint
+	for i := 0; i < 10; i++ {
+		p := jitter(fresh, 0.12)
+		p.Label, p.Group = fmt.Sprintf("INJ-%02d", i+1), "injectate"
+		pts = append(pts, p)
+	}
+	for i := 0; i < 10; i++ {
+		p := jitter(brack, 0.12)
+		p.Label, p.Group = fmt.Sprintf("NW-%02d", i+1), "native"
+		pts = append(pts, p)
+	}
+	for i := 1; i <= 19; i++ {
+		f := float64(i) / 20 // fraction of injectate
+		mix := func(a, b float64) float64 { return f*a + (1-f)*b }
+		pts = append(pts, maps.PiperPoint{
+			Label: fmt.Sprintf("MW-%02d", i), Group: "monitoring (mixture)",
+			Ca: mix(fresh.Ca, brack.Ca), Mg: mix(fresh.Mg, brack.Mg), Na: mix(fresh.Na, brack.Na), K: mix(fresh.K, brack.K),
+			Cl: mix(fresh.Cl, brack.Cl), SO4: mix(fresh.SO4, brack.SO4), HCO3: mix(fresh.HCO3, brack.HCO3),
+		})
+	}
+	return maps.Piper{
+		Title:   "Piper diagram, injectate, native water and monitoring wells (invented data)",
+		Caption: "Invented demo data: monitoring samples are mixtures of the two end members in steps of 5 %. Screening results, not a design; defer to local codes and licensed professionals.",
+		Points:  pts,
+	}
 }
