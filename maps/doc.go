@@ -1,6 +1,6 @@
 // Package maps draws the figures of gwsat: saturation-index maps, depth
-// profiles, mixing and temperature curves and bar charts, on
-// gonum.org/v1/plot.
+// profiles, mixing and temperature curves, bar charts and Piper diagrams,
+// on gonum.org/v1/plot.
 //
 // The package draws what it is given and imports none of gwsat's other
 // packages. Each kind of figure is a plain input type: [SIMap] (an
@@ -8,8 +8,9 @@
 // site [Feature]s, the SI = 0 equilibrium contour, a colour bar, a scale bar
 // and a north arrow), [DepthProfile] (SI against depth, one [ProfilePanel]
 // per mineral), [Curves] (SI against mixing fraction or temperature, one
-// [Series] per mineral) and [Bars] (for example precipitation potential per
-// mineral). Every one of them is a [Figure]; [Panels] tiles several figures
+// [Series] per mineral), [Bars] (for example precipitation potential per
+// mineral) and [Piper] (the trilinear major-ion diagram of Piper 1944, one
+// [PiperPoint] per sample). Every one of them is a [Figure]; [Panels] tiles several figures
 // on one page, and [Render] draws a figure into PNG (300 dpi), SVG (fonts
 // embedded) or PDF bytes, turning drawing panics into errors. Callers write
 // the bytes to files themselves, atomically.
