@@ -34,6 +34,31 @@ func WriteWith(path string, fill func(w io.Writer) error) (err error) {
 		_, err := os.Stdout.Write(buf.Bytes())
 		return err
 	}
+	// A symbolic link is followed, so the file it points to is replaced and
+	// the link kept. A device or a named pipe (/dev/null, /dev/stdout, a
+	// FIFO) is written to directly: renaming over it would replace the
+	// device itself. Those writes cannot be atomic, and need not be.
+	if real, err := filepath.EvalSymlinks(path); err == nil {
+		path = real
+	}
+	if fi, err := os.Stat(path); err == nil && !fi.Mode().IsRegular() {
+		if fi.IsDir() {
+			return fmt.Errorf("atomicfile: %s is a directory", path)
+		}
+		var buf bytes.Buffer
+		if err := fill(&buf); err != nil {
+			return err
+		}
+		f, err := os.OpenFile(path, os.O_WRONLY, 0)
+		if err != nil {
+			return fmt.Errorf("atomicfile: %w", err)
+		}
+		if _, err := f.Write(buf.Bytes()); err != nil {
+			f.Close()
+			return fmt.Errorf("atomicfile: %w", err)
+		}
+		return f.Close()
+	}
 	dir := filepath.Dir(path)
 	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
 	if err != nil {

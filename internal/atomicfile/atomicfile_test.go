@@ -53,3 +53,52 @@ func TestWriteWithFailureLeavesNoHalfFile(t *testing.T) {
 		t.Fatalf("failed write created %s", q)
 	}
 }
+
+// A link is followed (its target replaced, the link kept); a named pipe or
+// a device is written into, never replaced.
+func TestWriteFileLinkAndPipe(t *testing.T) {
+	dir := t.TempDir()
+	target := filepath.Join(dir, "target.csv")
+	link := filepath.Join(dir, "link.csv")
+	if err := os.WriteFile(target, []byte("old"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Symlink(target, link); err != nil {
+		t.Skip("no symlinks here:", err)
+	}
+	if err := WriteFile(link, []byte("new")); err != nil {
+		t.Fatal(err)
+	}
+	if fi, err := os.Lstat(link); err != nil || fi.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("the link was replaced by a file")
+	}
+	if got, _ := os.ReadFile(target); string(got) != "new" {
+		t.Errorf("target holds %q", got)
+	}
+
+	if err := WriteFile(os.DevNull, []byte("discarded")); err != nil {
+		t.Fatalf("writing %s: %v", os.DevNull, err)
+	}
+	if fi, err := os.Stat(os.DevNull); err != nil || fi.Mode().IsRegular() {
+		t.Fatalf("%s is no longer a device", os.DevNull)
+	}
+
+	fifo := filepath.Join(dir, "pipe")
+	if err := mkfifo(fifo); err != nil {
+		t.Skip("no named pipes here:", err)
+	}
+	got := make(chan string)
+	go func() {
+		b, _ := os.ReadFile(fifo)
+		got <- string(b)
+	}()
+	if err := WriteFile(fifo, []byte("through the pipe")); err != nil {
+		t.Fatal(err)
+	}
+	if s := <-got; s != "through the pipe" {
+		t.Errorf("pipe read %q", s)
+	}
+	if fi, _ := os.Lstat(fifo); fi.Mode()&os.ModeNamedPipe == 0 {
+		t.Errorf("the pipe was replaced")
+	}
+}
