@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"math"
 	"runtime"
 	"sync"
 
@@ -15,6 +16,15 @@ import (
 // (25 C, the reference temperature of the data; common practice). The row
 // gets a warning when it is used.
 const DefaultTempC = 25.0
+
+// IncompleteBalanceLimitPct and SpeciatedBalanceLimitPct are the charge
+// balances beyond which a row is marked warning when Standard Methods 1030 E
+// cannot judge it: an analysis with ions missing, and the balance after
+// speciation, which also counts H+ and OH- (10 %, common practice).
+const (
+	IncompleteBalanceLimitPct = 10.0
+	SpeciatedBalanceLimitPct  = 10.0
+)
 
 // Options control Run.
 type Options struct {
@@ -132,6 +142,8 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	s := &r.Row.Sample
 	r.Balance = hydro.ChargeBalance(s)
 	switch {
+	case !r.Balance.Complete && math.Abs(r.Balance.ErrorPct) > IncompleteBalanceLimitPct:
+		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% with ions missing (%v): the analysis is incomplete or wrong", r.Balance.ErrorPct, r.Balance.Missing)
 	case !r.Balance.Complete:
 		// Info only: many files carry a partial analysis on purpose.
 		r.Reasons = append(r.Reasons, fmt.Sprintf("info: charge balance incomplete (missing %v)", r.Balance.Missing))
@@ -139,6 +151,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	case r.Balance.Status == hydro.BalanceWarn:
 		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+	}
+	if r.Balance.HasTDSRatio && !r.Balance.TDSRatioOK {
+		r.Note(hydro.StatusWarning, "warning: measured/calculated TDS %.2f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
 	}
 	if r.Status == hydro.StatusRejected {
 		return
@@ -161,6 +176,9 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	if !w.HasPH {
 		r.Note(hydro.StatusWarning, "warning: no pH: speciation skipped")
 		return
+	}
+	if w.PHSource == "lab" {
+		r.Reasons = append(r.Reasons, "info: lab pH used (no field pH): it may differ from the pH in the aquifer by CO2 loss")
 	}
 	tempC := w.TempC
 	if !w.HasTemp {
@@ -200,8 +218,18 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		}
 		r.Reasons = append(r.Reasons, "info: "+wmsg)
 	}
-	if _, ok := w.Molal[speciation.NameCarbonate]; !ok && !w.HasAlkalinity {
+	_, hasTIC := w.Molal[speciation.NameCarbonate]
+	switch {
+	case !hasTIC && !w.HasAlkalinity:
 		r.Reasons = append(r.Reasons, "info: no alkalinity or carbonate: carbonate minerals and log pCO2 not computed")
+	case !hasTIC && w.AlkalinityEqKgw <= 0:
+		r.Reasons = append(r.Reasons, "info: alkalinity not above 0 (an acid water): carbonate minerals and log pCO2 not computed")
+	}
+	if math.Abs(res.ChargeBalance) > SpeciatedBalanceLimitPct {
+		r.Note(hydro.StatusWarning, "warning: charge balance after speciation %.1f %%: saturation indices are doubtful", res.ChargeBalance)
+	}
+	if ix := res.Indices; ix.HasLangelier && (res.PH < 6.5 || res.PH > 9.5 || res.IonicStrength > 0.5) {
+		r.Reasons = append(r.Reasons, "info: Langelier and Ryznar indices outside their range (pH 6.5-9.5, ionic strength up to 0.5 mol/kgw)")
 	}
 }
 

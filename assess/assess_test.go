@@ -64,7 +64,8 @@ func TestRunStatuses(t *testing.T) {
 		"good,7.2,15,67.5,12,20,2,30,40,180\n"+
 		"neg,7.2,15,-60,12,20,2,30,40,180\n"+
 		"nopH,,15,67.5,12,20,2,30,40,180\n"+
-		"unbalanced,7.2,15,160,12,20,2,30,40,180\n")
+		"unbalanced,7.2,15,160,12,20,2,30,40,180\n"+
+		"missingions,7.2,15,,,5,,500,,\n")
 	db, _ := speciation.Default()
 	recs, err := Run(context.Background(), db, []*hydro.Batch{b}, Options{})
 	if err != nil {
@@ -79,11 +80,31 @@ func TestRunStatuses(t *testing.T) {
 		{hydro.StatusRejected, false, "negative"},
 		{hydro.StatusWarning, false, "no pH"},
 		{hydro.StatusWarning, true, "charge balance"},
+		// Na 5 mg/L against Cl 500 mg/L: -91 % with most ions missing.
+		{hydro.StatusWarning, true, "ions missing"},
 	}
 	for i, w := range want {
 		r := recs[i]
 		if r.Status != w.st || (r.Result != nil) != w.result || !strings.Contains(strings.Join(r.Reasons, ";"), w.reason) {
 			t.Errorf("%s: status %s, result %v, reasons %v; want %s, %v, %q", r.Sample().ID, r.Status, r.Result != nil, r.Reasons, w.st, w.result, w.reason)
 		}
+	}
+}
+
+// Standard Methods 1030 E: measured TDS over TDS calculated from the ions
+// must lie between 1.0 and 1.2 (calculated here 0.6 x 180 + 67.5 + 12 + 20
+// + 2 + 30 + 40 = 279.5 mg/L): 300 mg/L passes, 10 000 mg/L is a warning.
+func TestRunTDSRatio(t *testing.T) {
+	b := read(t, "Sample,pH,Temp,TDS,Ca,Mg,Na,K,Cl,SO4,Alkalinity as CaCO3\n"+
+		"plausible,7.2,15,300,67.5,12,20,2,30,40,180\n"+
+		"implausible,7.2,15,10000,67.5,12,20,2,30,40,180\n")
+	db, _ := speciation.Default()
+	recs, err := Run(context.Background(), db, []*hydro.Batch{b}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	has := func(r Record) bool { return strings.Contains(strings.Join(r.Reasons, ";"), "measured/calculated TDS") }
+	if has(recs[0]) || !has(recs[1]) || recs[1].Status != hydro.StatusWarning {
+		t.Errorf("TDS check: %v / %v", recs[0].Reasons, recs[1].Reasons)
 	}
 }

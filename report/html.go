@@ -49,7 +49,17 @@ func dataURI(png []byte) template.URL {
 	return template.URL("data:image/png;base64," + base64.StdEncoding.EncodeToString(png))
 }
 
-var indexTmpl = template.Must(template.New("index").Funcs(template.FuncMap{"png": dataURI}).Parse(`<!DOCTYPE html>
+// cellClass marks the status cells of a table so that warnings and
+// rejections stand out.
+func cellClass(cell string) string {
+	switch cell {
+	case "warning", "rejected", "fail", "warn":
+		return cell
+	}
+	return ""
+}
+
+var indexTmpl = template.Must(template.New("index").Funcs(template.FuncMap{"png": dataURI, "cls": cellClass}).Parse(`<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>{{.Title}}</title>
@@ -59,7 +69,7 @@ h1{font-size:1.6em}h2{font-size:1.25em;border-bottom:1px solid #ccc;padding-bott
 .caution{border:2px solid #b45309;background:#fff7ed;padding:.8em 1em;font-weight:600}
 table{border-collapse:collapse;font-size:.8em;display:block;overflow-x:auto;max-height:40em}
 th,td{border:1px solid #ddd;padding:.2em .4em;white-space:nowrap}th{background:#f3f4f6;position:sticky;top:0}
-td.warning{background:#fef9c3}td.rejected{background:#fee2e2}
+td.warning,td.warn{background:#fef9c3}td.rejected,td.fail{background:#fee2e2}
 figure{margin:1.5em 0}figure img{max-width:100%;border:1px solid #eee}figcaption{font-size:.9em;color:#444}
 .small{font-size:.85em;color:#555}
 </style></head><body>
@@ -73,12 +83,12 @@ figure{margin:1.5em 0}figure img{max-width:100%;border:1px solid #eee}figcaption
 {{if .Table}}<h2>Saturation indices and checks per sample</h2>
 <p class="small">SI &gt; 0: supersaturated (the water may deposit the mineral); SI &lt; 0: undersaturated (it may dissolve it); within about &plusmn;0.5 of zero: near equilibrium. Every input row is listed, in input order.</p>
 <table><thead><tr>{{range .Table.Header}}<th>{{.}}</th>{{end}}</tr></thead><tbody>
-{{range .Table.Rows}}<tr>{{range .}}<td>{{.}}</td>{{end}}</tr>
+{{range .Table.Rows}}<tr>{{range .}}<td{{with cls .}} class="{{.}}"{{end}}>{{.}}</td>{{end}}</tr>
 {{end}}</tbody></table>{{end}}
 {{if .Figures}}<h2>Figures</h2>{{range .Figures}}{{template "fig" .}}{{end}}{{end}}
 {{range .Sections}}<h2>{{.Title}}</h2>{{range .Paragraphs}}<p>{{.}}</p>{{end}}
 {{if .Table}}<table><thead><tr>{{range .Table.Header}}<th>{{.}}</th>{{end}}</tr></thead><tbody>
-{{range .Table.Rows}}<tr>{{range .}}<td>{{.}}</td>{{end}}</tr>
+{{range .Table.Rows}}<tr>{{range .}}<td{{with cls .}} class="{{.}}"{{end}}>{{.}}</td>{{end}}</tr>
 {{end}}</tbody></table>{{end}}{{range .Figures}}{{template "fig" .}}{{end}}{{end}}
 {{if .Files}}<h2>Files in this folder</h2><ul>{{range .Files}}<li><a href="{{.Href}}">{{.Label}}</a></li>{{end}}</ul>{{end}}
 <p class="caution">{{.Caution}}</p>

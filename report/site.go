@@ -569,7 +569,9 @@ func colourLimit(panels []maps.Figure) float64 {
 func FlagPositions(recs []assess.Record) {
 	for i := range recs {
 		s := recs[i].Sample()
-		if !(s.Lat.OK || s.Lon.OK || s.Easting.OK || s.Northing.OK) {
+		// Only a complete pair is judged here: a half pair means the reader
+		// already dropped (and warned about) the other coordinate.
+		if !(s.Lat.OK && s.Lon.OK || s.Easting.OK && s.Northing.OK) {
 			continue
 		}
 		if _, err := Position(s); err != nil {

@@ -210,6 +210,25 @@ func TestReportDemo(t *testing.T) {
 		t.Fatalf("samples.json: %v, %d records", err, len(js))
 	}
 
+	// columns.csv numbers columns from 1: "Sample ID" is the demo's first.
+	cols, _ := os.ReadFile(filepath.Join(dir, "columns.csv"))
+	crecs := readCSV(t, string(cols))
+	if crecs[1][col(t, crecs[0], "header")] != "Sample ID" || crecs[1][col(t, crecs[0], "column")] != "1" {
+		t.Errorf("columns.csv first row %v", crecs[1])
+	}
+
+	// Bad arguments are refused before anything in the folder changes.
+	before, _ := filepath.Glob(filepath.Join(dir, "figures", "*"))
+	for _, bad := range [][]string{{"-porosity", "2"}, {"-aquifer-temp", "150"}, {"-minerals", "CO2(g)"}} {
+		code, _, errs = gwsat(t, "", append([]string{"report", "-demo", "-o", dir}, bad...)...)
+		if code != exitUsage {
+			t.Errorf("%v: exit %d (%s), want 2", bad, code, errs)
+		}
+	}
+	if after, _ := filepath.Glob(filepath.Join(dir, "figures", "*")); len(after) != len(before) {
+		t.Errorf("a refused report changed the folder: %d files before, %d after", len(before), len(after))
+	}
+
 	// A second report into the same folder leaves no figure of the first.
 	code, _, errs = gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png", "-minerals", "Barite")
 	if code != exitRejected {

@@ -3,6 +3,7 @@ package main
 import (
 	"flag"
 	"fmt"
+	"math"
 	"strings"
 
 	"gonum.org/v1/plot/vg"
@@ -24,10 +25,26 @@ type mixFlags struct {
 func (m *mixFlags) registerReport(fs *flag.FlagSet) {
 	fs.StringVar(&m.inject, "inject", "", "sample id of the injectate (default: the first row whose sample type is injectate; demo: "+demoInject+")")
 	fs.StringVar(&m.native, "native", "", "sample id of the native groundwater (default: the first row whose sample type is native; demo: "+demoNative+")")
-	fs.Float64Var(&m.aquiferTemp, "aquifer-temp", -1, "aquifer temperature for the mixtures, C (default: the native water's)")
+	fs.Float64Var(&m.aquiferTemp, "aquifer-temp", math.NaN(), "aquifer temperature for the mixtures, C (default: the native water's)")
 	fs.Float64Var(&m.rate, "rate", 500, "injection rate for the clogging screen, m3/day")
 	fs.Float64Var(&m.screen, "screen", 90, "screen length for the clogging screen, m")
 	fs.Float64Var(&m.porosity, "porosity", 0.2, "aquifer porosity for the clogging screen")
+}
+
+// validate checks the numbers of the section before anything is computed
+// or written.
+func (m *mixFlags) validate() error {
+	switch {
+	case !math.IsNaN(m.aquiferTemp) && (m.aquiferTemp < speciation.MinTempC || m.aquiferTemp > speciation.MaxTempC):
+		return fmt.Errorf("-aquifer-temp %g C outside the supported %g-%g C", m.aquiferTemp, speciation.MinTempC, speciation.MaxTempC)
+	case !(m.rate >= 0) || math.IsInf(m.rate, 0):
+		return fmt.Errorf("-rate %g must be a number not below 0", m.rate)
+	case !(m.screen > 0) || math.IsInf(m.screen, 0):
+		return fmt.Errorf("-screen %g must be positive", m.screen)
+	case !(m.porosity > 0 && m.porosity < 1):
+		return fmt.Errorf("-porosity %g must lie in (0, 1)", m.porosity)
+	}
+	return nil
 }
 
 // byType finds the first usable row whose sample-type column (e.g. "Sample
@@ -73,7 +90,7 @@ func (m *mixFlags) section(e *env, recs []assess.Record, db *speciation.Database
 		return nil, nil, err
 	}
 	t := m.aquiferTemp
-	if t < 0 {
+	if math.IsNaN(t) {
 		t = rn.TempC()
 	}
 	opt := reaction.SweepOptions{TempC: t, FixedTemp: true}

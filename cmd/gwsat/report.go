@@ -53,6 +53,9 @@ func runReport(e *env, args []string) int {
 	if *method != "kriging" && *method != "idw" {
 		return failf(e, exitUsage, "report: -method must be kriging or idw")
 	}
+	if err := mix.validate(); err != nil {
+		return failf(e, exitUsage, "report: %v", err)
+	}
 	fmts, err := parseFormats(*formats)
 	if err != nil {
 		return failf(e, exitUsage, "report: %v", err)
@@ -91,16 +94,12 @@ func runReport(e *env, args []string) int {
 	if *minerals != "" {
 		for _, m := range strings.Split(*minerals, ",") {
 			m = strings.TrimSpace(m)
-			if db.Mineral(m) == nil {
+			if mm := db.Mineral(m); mm == nil || mm.Gas {
 				return failf(e, exitUsage, "report: unknown mineral %q (known: %s)", m, strings.Join(all, ", "))
 			}
 			chosen = append(chosen, db.Mineral(m).Name)
 		}
 	}
-	if err := os.MkdirAll(filepath.Join(*out, "figures"), 0o755); err != nil {
-		return failf(e, exitRejected, "report: %v", err)
-	}
-	removeOldFigures(filepath.Join(*out, "figures"))
 	model, _ := in.activityModel()
 	st, err := report.BuildSite(recs, all, report.SiteOptions{Minerals: chosen, Method: *method, Features: feats, BandEdges: edges, ProfileRound: *profileRound, Model: model.Name(), ClusterColumn: *cluster})
 	if err != nil {
@@ -118,6 +117,12 @@ func runReport(e *env, args []string) int {
 		sections = append(sections, *sec)
 	}
 
+	// Everything is computed: now the folder is written.
+	if err := os.MkdirAll(filepath.Join(*out, "figures"), 0o755); err != nil {
+		return failf(e, exitRejected, "report: %v", err)
+	}
+	uniqueStems(figs)
+
 	// Tables and GeoJSON.
 	tbl := report.SampleTable(recs, all)
 	write := func(name string, fill func(w io.Writer) error) error {
@@ -134,10 +139,8 @@ func runReport(e *env, args []string) int {
 	}
 
 	// Figures, rendered in parallel.
-	rendered, err := renderFigures(e, *out, figs, fmts)
-	if err != nil {
-		return failf(e, exitRejected, "report: %v", err)
-	}
+	rendered, failed := renderFigures(e, *out, figs, fmts)
+	removeOldFigures(filepath.Join(*out, "figures"), figs, fmts)
 	ix := &report.Index{
 		Title:     "gwsat report: saturation screening",
 		Generated: fmt.Sprintf("Made by gwsat on %s with the %s activity model.", time.Now().UTC().Format("2006-01-02 15:04 UTC"), model.Name()),
@@ -157,8 +160,8 @@ func runReport(e *env, args []string) int {
 	bal := map[hydro.BalanceStatus]int{}
 	for i := range recs {
 		counts[recs[i].Status]++
-		if recs[i].Balance.CationsMeqL > 0 {
-			bal[recs[i].Balance.Status]++
+		if b := recs[i].Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+			bal[b.Status]++
 		}
 	}
 	ix.Counts = []report.Link{{Label: fmt.Sprintf("%d rows: %d ok, %d warning, %d rejected", len(recs), counts[hydro.StatusOK], counts[hydro.StatusWarning], counts[hydro.StatusRejected])},
@@ -176,7 +179,10 @@ func runReport(e *env, args []string) int {
 		return failf(e, exitRejected, "report: %v", err)
 	}
 	printSummary(e.stderr, batches, recs)
-	fmt.Fprintf(e.stderr, "  report: %s (%d figures; open index.html)\n", filepath.Join(*out, "index.html"), len(figs))
+	fmt.Fprintf(e.stderr, "  report: %s (%d figures; open index.html)\n", filepath.Join(*out, "index.html"), len(figs)-failed)
+	if failed > 0 {
+		return failf(e, exitRejected, "report: %d figure(s) could not be drawn or written (see above)", failed)
+	}
 	return exitCode(recs)
 }
 
@@ -227,7 +233,9 @@ func parseFloats(s string) ([]float64, error) {
 	return out, nil
 }
 
-func renderFigures(e *env, dir string, figs []report.Fig, fmts []string) ([]report.IndexFigure, error) {
+// renderFigures draws every figure in every format, in parallel, and
+// returns what index.html shows and how many figures failed.
+func renderFigures(e *env, dir string, figs []report.Fig, fmts []string) ([]report.IndexFigure, int) {
 	out := make([]report.IndexFigure, len(figs))
 	errs := make([]error, len(figs))
 	bar := progress.New(stderrFile(e), "drawing figures", len(figs))
@@ -269,22 +277,35 @@ func renderFigures(e *env, dir string, figs []report.Fig, fmts []string) ([]repo
 	close(jobs)
 	wg.Wait()
 	bar.Done()
-	var kept []report.IndexFigure
+	failed := 0
 	for i := range figs {
 		if errs[i] != nil {
+			failed++
 			fmt.Fprintf(e.stderr, "gwsat report: %v (figure left out)\n", errs[i])
 			out[i].Caption += " (This figure could not be drawn: " + errs[i].Error() + ")"
 		}
-		kept = append(kept, out[i])
 	}
-	return kept, nil
+	return out, failed
+}
+
+// uniqueStems gives figures whose file names would clash (two clusters
+// whose names reduce to the same letters) a numbered suffix.
+func uniqueStems(figs []report.Fig) {
+	seen := map[string]int{}
+	for i := range figs {
+		stem := figs[i].Stem
+		seen[stem]++
+		if n := seen[stem]; n > 1 {
+			figs[i].Stem = fmt.Sprintf("%s_%d", stem, n)
+		}
+	}
 }
 
 func mappingTable(batches []*hydro.Batch) *report.Table {
 	t := &report.Table{Header: []string{"file", "column", "header", "parameter", "unit", "note"}}
 	for _, b := range batches {
 		for _, m := range b.Mapping {
-			t.Add(report.Text(b.File), strconv.Itoa(m.Column+1), report.Text(m.Header), m.Param, report.Text(m.Unit), report.Text(m.Note))
+			t.Add(report.Text(b.File), strconv.Itoa(m.Column), report.Text(m.Header), m.Param, report.Text(m.Unit), report.Text(m.Note))
 		}
 	}
 	return t
@@ -296,7 +317,7 @@ func surfacesTable(st *report.Site) *report.Table {
 		return t
 	}
 	for _, s := range st.Surfaces {
-		t.Add(s.Mineral, s.Zone, report.Text(s.Round), s.Method, strconv.Itoa(s.Wells), cond(s.HasCV, report.Num(s.CVRMSE, 3)), report.Text(s.Note))
+		t.Add(s.Mineral, report.Text(s.Zone), report.Text(s.Round), s.Method, strconv.Itoa(s.Wells), cond(s.HasCV, report.Num(s.CVRMSE, 3)), report.Text(s.Note))
 	}
 	return t
 }
@@ -358,7 +379,7 @@ func writeGeoJSON(w io.Writer, recs []assess.Record, minerals []string) error {
 		if s.GroundElevM.OK {
 			props = append(props, geo.Prop{Key: "ground_elev_m", Value: s.GroundElevM.V})
 		}
-		if r.Balance.CationsMeqL > 0 {
+		if r.Balance.CationsMeqL > 0 || r.Balance.AnionsMeqL > 0 {
 			props = append(props, geo.Prop{Key: "charge_balance_pct", Value: r.Balance.ErrorPct}, geo.Prop{Key: "balance_status", Value: string(r.Balance.Status)})
 		}
 		if res := r.Result; res != nil {
@@ -376,13 +397,22 @@ func writeGeoJSON(w io.Writer, recs []assess.Record, minerals []string) error {
 
 // removeOldFigures deletes the figures an earlier report left in dir, so
 // that a figure no longer drawn (another mineral, zone or cluster) does not
-// linger beside the new ones. Only gwsat's own file names are touched.
-func removeOldFigures(dir string) {
+// linger beside the new ones. Only gwsat's own file names are touched, and
+// never those just written.
+func removeOldFigures(dir string, figs []report.Fig, fmts []string) {
+	keep := map[string]bool{}
+	for _, f := range figs {
+		for _, ext := range fmts {
+			keep[f.Stem+"."+ext] = true
+		}
+	}
 	for _, prefix := range []string{"map_", "profile_", "mix_", "piper"} {
 		for _, ext := range []string{"png", "svg", "pdf"} {
 			old, _ := filepath.Glob(filepath.Join(dir, prefix+"*."+ext))
 			for _, f := range old {
-				os.Remove(f)
+				if !keep[filepath.Base(f)] {
+					os.Remove(f)
+				}
 			}
 		}
 	}
