@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"path/filepath"
 	"sort"
 	"strconv"
@@ -19,6 +20,9 @@ import (
 
 	"gonum.org/v1/plot/vg"
 )
+
+// caution ends every summary of the injection-planning commands.
+const caution = "  Screening results, not a design: defer to local codes and licensed professionals."
 
 // Demo end-members: the injectate of round 2 and the native water of the
 // intermediate zone (see data/demo/README.md).
@@ -124,8 +128,11 @@ func parseRange(s string) ([]float64, error) {
 			}
 			v[i] = f
 		}
-		if !(v[2] > 0) || v[1] < v[0] {
-			return nil, fmt.Errorf("range %q: want FROM:TO:STEP with TO >= FROM and STEP > 0", s)
+		if !(v[2] > 0) || v[1] < v[0] || math.IsInf(v[0], 0) || math.IsInf(v[1], 0) {
+			return nil, fmt.Errorf("range %q: want FROM:TO:STEP, finite, with TO >= FROM and STEP > 0", s)
+		}
+		if (v[1]-v[0])/v[2] > maxRangeValues {
+			return nil, fmt.Errorf("range %q gives more than %d values", s, maxRangeValues)
 		}
 		var out []float64
 		n := int((v[1]-v[0])/v[2] + 1e-9)
@@ -137,13 +144,20 @@ func parseRange(s string) ([]float64, error) {
 	var out []float64
 	for _, f := range strings.Split(s, ",") {
 		v, err := strconv.ParseFloat(strings.TrimSpace(f), 64)
-		if err != nil {
-			return nil, fmt.Errorf("%q is not a number", f)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return nil, fmt.Errorf("%q is not a finite number", f)
 		}
 		out = append(out, v)
 	}
+	if len(out) > maxRangeValues {
+		return nil, fmt.Errorf("more than %d values", maxRangeValues)
+	}
 	return out, nil
 }
+
+// maxRangeValues caps the points of a sweep (a typo such as a step of 1e-12
+// must not exhaust memory).
+const maxRangeValues = 10000
 
 // defaultID returns the demo's end-member when -demo is set.
 func defaultID(demo bool, id, demoID string) string {
@@ -240,7 +254,7 @@ func runMix(e *env, args []string) int {
 	for _, m := range sw.Maxima() {
 		fmt.Fprintf(e.stderr, "  %-16s max SI %+.2f at fraction %.2f (%s)\n", m.Mineral, m.SI, m.Fraction, state(m.SI))
 	}
-	fmt.Fprintln(e.stderr, "  Screening results, not a design: defer to local codes and licensed professionals.")
+	fmt.Fprintln(e.stderr, caution)
 	return exitOK
 }
 
@@ -324,6 +338,7 @@ func runHeat(e *env, args []string) int {
 	for _, m := range sw.Maxima() {
 		fmt.Fprintf(e.stderr, "  %-16s max SI %+.2f at %.0f C\n", m.Mineral, m.SI, m.TempC)
 	}
+	fmt.Fprintln(e.stderr, caution)
 	return exitOK
 }
 
@@ -421,7 +436,9 @@ func runPrecipitate(e *env, args []string) int {
 		}
 	}
 	cap := fmt.Sprintf("%s; closed system to SI = 0, %s model. Screening result: no kinetics.", name, l.reactor.Model().Name())
-	if err := plotTo(e, wf.plot, report.PrecipitationFigure(p, "Precipitation potential", cap), 16*vg.Centimeter, 11*vg.Centimeter); err != nil {
+	if wf.plot != "" && len(p.Together.Amounts) == 0 {
+		fmt.Fprintf(e.stderr, "gwsat precipitate: nothing precipitates, so no figure drawn to %s\n", wf.plot)
+	} else if err := plotTo(e, wf.plot, report.PrecipitationFigure(p, "Precipitation potential", cap), 16*vg.Centimeter, 11*vg.Centimeter); err != nil {
 		return failf(e, exitRejected, "precipitate: -plot: %v", err)
 	}
 	fmt.Fprintf(e.stderr, "gwsat precipitate: %s, pH %.2f\n", name, p.Before.PH)
@@ -437,7 +454,7 @@ func runPrecipitate(e *env, args []string) int {
 	if p.HasCCPP {
 		fmt.Fprintf(e.stderr, "  calcium carbonate precipitation potential (Standard Methods 2330): %.1f mg/L as CaCO3\n", p.CCPP)
 	}
-	fmt.Fprintln(e.stderr, "  Screening results, not a design: defer to local codes and licensed professionals.")
+	fmt.Fprintln(e.stderr, caution)
 	return exitOK
 }
 
@@ -531,6 +548,7 @@ func runSequence(e *env, args []string) int {
 	if len(res.Onsets) > 1 {
 		fmt.Fprintf(e.stderr, "  clean separation (>= %.1f %% removed before the next begins): %v\n", 100*res.CleanRemoval, res.Clean)
 	}
+	fmt.Fprintln(e.stderr, caution)
 	return exitOK
 }
 
@@ -599,6 +617,10 @@ func printClogging(w io.Writer, name string, c *reaction.CloggingResult, rate, d
 	fmt.Fprintf(w, "  %.0f m3/day for %.0f days into a %.0f m screen, porosity %.2f\n", rate, days, screen, porosity)
 	fmt.Fprintf(w, "  solids: %.4g m3 in all (%.4g m3 per year)\n", c.SolidVolumeM3, c.SolidVolumeM3PerYr)
 	fmt.Fprintf(w, "  pore space filled within %.1f m of the well: %.3g %% over the period (%.3g %% per year)\n", radius, 100*c.FilledFraction, 100*c.FilledFractionPerYr)
-	fmt.Fprintf(w, "  radius within which %.0f %% of the porosity would be filled: %.3g m\n", 100*c.FillFraction, c.RadiusForFillM)
+	if c.SolidVolumeM3 > 0 {
+		fmt.Fprintf(w, "  radius within which %.0f %% of the porosity would be filled: %.3g m\n", 100*c.FillFraction, c.RadiusForFillM)
+	} else {
+		fmt.Fprintln(w, "  nothing precipitates: no pore space would be filled")
+	}
 	fmt.Fprintf(w, "  %s\n", c.Caution)
 }

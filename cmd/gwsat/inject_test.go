@@ -99,6 +99,9 @@ func TestInjectBadInput(t *testing.T) {
 		{[]string{"clogging", "-demo", "-porosity", "1.2"}, "porosity"},
 		{[]string{"sequence", "-demo", "-salt", "2 Na+ + XO4-2"}, "salt"},
 		{[]string{"mix", "-demo", "-a", "C3-I-R3"}, "cannot be used"},
+		{[]string{"heat", "-demo", "-temps", "0:100:1e-12"}, "more than"},
+		{[]string{"mix", "-demo", "-fractions", "0,Inf"}, "finite"},
+		{[]string{"check", "-demo", "extra.csv", "-q"}, "flags go before"},
 	}
 	for _, c := range cases {
 		args := append(append([]string{}, c.args[:1]...), append([]string{"-o", out}, c.args[1:]...)...)

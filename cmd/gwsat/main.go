@@ -23,7 +23,7 @@ import (
 // Exit codes.
 const (
 	exitOK       = 0 // everything ran; no row rejected
-	exitRejected = 1 // ran, but at least one row was rejected or a solve failed, or a runtime error
+	exitRejected = 1 // ran, but at least one row was rejected, or writing an output failed
 	exitUsage    = 2 // bad command line or bad input file
 )
 
@@ -115,6 +115,12 @@ func parseFlags(fs *flag.FlagSet, args []string) (code int, ok bool) {
 			return exitOK, false
 		}
 		return exitUsage, false
+	}
+	for _, a := range fs.Args() {
+		if len(a) > 1 && a[0] == '-' {
+			fmt.Fprintf(fs.Output(), "gwsat %s: %q after the file names: flags go before the files\n", fs.Name(), a)
+			return exitUsage, false
+		}
 	}
 	return 0, true
 }

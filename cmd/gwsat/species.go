@@ -10,6 +10,7 @@ import (
 
 	"gwsat/assess"
 	"gwsat/report"
+	"gwsat/speciation"
 )
 
 func init() {
@@ -56,6 +57,9 @@ func runSpecies(e *env, args []string) int {
 		if err := e.writeFile(*jsonOut, func(w io.Writer) error { return report.WriteJSON(w, one) }); err != nil {
 			return failf(e, exitRejected, "writing %s: %v", *jsonOut, err)
 		}
+		if r.Result == nil {
+			return exitRejected
+		}
 		return exitOK
 	}
 	printSpecies(e.stdout, r)
@@ -67,7 +71,11 @@ func runSpecies(e *env, args []string) int {
 
 func printSpecies(w io.Writer, r *assess.Record) {
 	s := r.Sample()
-	fmt.Fprintf(w, "Sample %s (well %s, %s line %d): %s\n", s.ID, s.WellID, r.File, r.Row.Line, r.Status)
+	well := ""
+	if s.WellID != "" {
+		well = "well " + s.WellID + ", "
+	}
+	fmt.Fprintf(w, "Sample %s (%s%s line %d): %s\n", s.ID, well, r.File, r.Row.Line, r.Status)
 	for _, reason := range r.Reasons {
 		fmt.Fprintf(w, "  %s\n", reason)
 	}
@@ -116,7 +124,10 @@ func printSpecies(w io.Writer, r *assess.Record) {
 			continue
 		}
 		c := sh.Component
-		if c == last {
+		if c == speciation.NameCarbonate {
+			c = "total carbonate"
+		}
+		if sh.Component == last {
 			c = ""
 		}
 		last = sh.Component
