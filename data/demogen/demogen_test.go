@@ -229,7 +229,7 @@ func TestQualityAndFlaws(t *testing.T) {
 		case strings.HasPrefix(flaw, flawTransposed):
 			kinds[flawTransposed] = true
 			if math.Abs(cbe) < 10 || math.Abs(cbe) > 20 {
-				t.Errorf("%s: transcription flaw gives charge balance %.1f %%, want 10-20 %%", id, cbe)
+				t.Errorf("%s: data-entry flaw gives charge balance %.1f %%, want 10-20 %%", id, cbe)
 			}
 		case strings.HasPrefix(flaw, flawPH):
 			kinds[flawPH] = true

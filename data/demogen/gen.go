@@ -505,7 +505,7 @@ func chargeBalance(cells map[string]string) float64 {
 
 // Deliberate flaws the QA must catch.
 const (
-	flawTransposed = "transcription error"
+	flawTransposed = "data-entry error"
 	flawPH         = "impossible pH"
 	flawNegative   = "negative concentration"
 )
