@@ -157,7 +157,7 @@ func judge(b *Balance) {
 // calculated TDS = 0.6 (alkalinity as CaCO3) + Na + K + Ca + Mg + Cl + SO4 +
 // SiO2 + NO3 (as NO3) + F, in mg/L; acceptable when 1.0 <= ratio <= 1.2.
 // The 0.6 factor and the ratio band are as quoted by a course handout
-// following 1030 E (REFERENCES.md 8.1, [V]).
+// following 1030 E ([V]).
 func tdsCheck(s *Sample, b *Balance) {
 	if !s.TDSMgL.OK {
 		return

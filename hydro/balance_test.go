@@ -19,7 +19,7 @@ func sampleMeq(cat, an float64) *Sample {
 }
 
 // Standard Methods 1030 E, 23rd ed. (2017), anion-cation balance criteria
-// (REFERENCES.md 8.1, [M] from memory, high confidence): anion sum 0-3.0
+// ([M] from memory, high confidence): anion sum 0-3.0
 // meq/L: +/-0.2 meq/L; 3.0-10.0: +/-2 %; 10-800: +/-5 %. Pass within the
 // criterion, warn up to twice it, fail beyond (`common practice`).
 func TestChargeBalanceBandEdges(t *testing.T) {
@@ -70,7 +70,7 @@ func TestChargeBalanceBandEdges(t *testing.T) {
 }
 
 // Worked example, course handout following Standard Methods 1030 E
-// (REFERENCES.md 8.1, [V]): Ca 92.0, Mg 34.0, Na 8.2, K 1.4, Fe(III) 0.1,
+// ([V]): Ca 92.0, Mg 34.0, Na 8.2, K 1.4, Fe(III) 0.1,
 // HCO3 325.0, SO4 84.0, Cl 9.6, NO3 13.0 mg/L give 7.79 meq/L cations,
 // 7.56 meq/L anions and a balance of 1.5 % (accepted).
 func TestChargeBalanceWorkedExample(t *testing.T) {

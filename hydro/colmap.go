@@ -12,7 +12,7 @@ import (
 
 // columnMapEntry is one line of a column map file. The map file has fixed
 // columns, so gocsv fits here (with our own csv.Reader: BOM stripped, any
-// line ending, see STYLE.md).
+// line ending: gocsv's own reader settings are process-global).
 type columnMapEntry struct {
 	Header    string `csv:"header"`
 	Parameter string `csv:"parameter"`

@@ -1015,7 +1015,7 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 	}
 	switch sp.Param {
 	case pTemp:
-		// Supported range of the chemistry: 0-100 C (DESIGN.md).
+		// Supported range of the chemistry: 0-100 C (the range of package speciation).
 		if v < 0 || v > 100 {
 			row.add(Error, line, col, "%stemperature %g C outside 0-100 C", pre, v)
 			return

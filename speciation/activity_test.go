@@ -6,7 +6,7 @@ import (
 )
 
 // Debye-Hueckel A and B against Helgeson & Kirkham (1974), as tabulated in W.M. White,
-// Geochemistry, table with eqn 3.74 (REFERENCES §4.1b) [V]. Our A and B come from the
+// Geochemistry, table with eqn 3.74 [V]. Our A and B come from the
 // dielectric constant of Malmberg & Maryott (1956) and the density of Kell (1975); the
 // tolerances are what that route honestly meets.
 func TestDebyeHuckelABHelgesonKirkham(t *testing.T) {
@@ -27,7 +27,7 @@ func TestDebyeHuckelABHelgesonKirkham(t *testing.T) {
 }
 
 // Extended Debye-Hueckel against Kielland (1937), as reproduced in Freeze & Cherry (1979),
-// Appendix IV (REFERENCES §4.1d) [V], with A = 0.5085 and B = 0.3281 at 25 C.
+// Appendix IV [V], with A = 0.5085 and B = 0.3281 at 25 C.
 // The table is rounded to 3 digits (2 at some entries); tolerance 0.0015, or 0.006 where noted.
 func TestExtendedDebyeHuckelKielland(t *testing.T) {
 	I := []float64{0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1}

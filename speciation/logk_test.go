@@ -6,7 +6,7 @@ import (
 )
 
 // log K(T) of the data set against values tabulated from the published expressions
-// (REFERENCES §10, tag V-calc: each is the published expression evaluated at
+// (V-calc: each is the published expression evaluated at
 // T = t + 273.15; sources: Plummer & Busenberg 1982 (GCA 46, 1011-1040); Busenberg,
 // Plummer & Parker 1984 (GCA 48, 2021-2035); Busenberg & Plummer 1986 (GCA 50,
 // 2225-2233); Fournier 1977 (Geothermics 5, 41-50), the silica rows from memory [M]).
@@ -54,7 +54,7 @@ func TestLogKTemperatureTable(t *testing.T) {
 	}
 }
 
-// Analytic expressions from memory [M+] (REFERENCES §10, second list): barite after
+// Analytic expressions from memory [M+]: barite after
 // Blount (1977), fluorite after Nordstrom & Jenne (1977), Kw and H4SiO4 pK1 compilation
 // forms, at 0 / 10 / 25 / 50 / 75 / 100 C, rounded to 0.01 (Kw to 0.001).
 // Kw is also checked against the CRC pKw table from Marshall & Franck (1981) [V].

@@ -19,8 +19,8 @@ func mustDefault(t testing.TB) *Database {
 }
 
 // Calcite in pure water at 25 C in equilibrium with pCO2 = 10^-3.5 atm.
-// Textbook result (e.g. Stumm & Morgan; REFERENCES §6) [M], from memory: Ca about
-// 0.5 mmol/kg and pH about 8.3. Also the derived values [D] of REFERENCES §6 (constants
+// Textbook result (e.g. Stumm & Morgan) [M], from memory: Ca about
+// 0.5 mmol/kg and pH about 8.3. Also derived values [D] (constants
 // of Plummer & Busenberg 1982, not a published number, a regression value): pH 8.279 and
 // Ca 0.493 mmol/kg (Truesdell-Jones), pH 8.279 and Ca 0.494 (Davies).
 func TestCalciteOpenSystem(t *testing.T) {
@@ -93,7 +93,7 @@ func TestGypsumSolubility(t *testing.T) {
 }
 
 // garrelsThompsonGammas is a test-only activity model: the fixed activity coefficients
-// Garrels & Thompson (1962) assumed for sea water (REFERENCES §7) [M], from memory:
+// Garrels & Thompson (1962) assumed for sea water [M], from memory:
 // Na+ 0.76, K+ 0.64, Mg+2 0.36, Ca+2 0.28, Cl- 0.64, SO4-2 0.12, HCO3- 0.68, CO3-2 0.20,
 // other monovalent ions (pairs) 0.68, neutral pairs 1.13. It shows that a model can be
 // plugged in through the ActivityModel interface without touching the solver.
@@ -144,12 +144,12 @@ func seaWater() Water {
 }
 
 // Seawater speciation against Garrels & Thompson (1962), Am. J. Sci. 260, 57-66
-// (REFERENCES §7) [M], from memory. With their fixed activity coefficients and our ion-pair
+// [M], from memory. With their fixed activity coefficients and our ion-pair
 // constants: +/-3 % absolute for the free fractions of SO4, Mg and Ca and for the sulfate
 // pairs of Mg and Ca (+/-4 % for NaSO4-: our log K 0.70 is from memory and theirs is not
 // recorded here); Na and K free above 97 %; the carbonate-ion ordering of their table,
-// MgCO3 67 > NaCO3- 17 > free 9 > CaCO3 7 % (the summary line "Mg > Na > Ca > free" in our
-// reference notes contradicts the table's own numbers; we follow the numbers).
+// MgCO3 67 > NaCO3- 17 > free 9 > CaCO3 7 % (a remembered summary "Mg > Na > Ca > free"
+// contradicts the table's own numbers; we follow the numbers).
 // With Truesdell-Jones (a different activity model: gamma(SO4-2) = 0.18 at I = 0.67
 // instead of their 0.12, so more sulfate is paired) the SO4 free fraction is allowed
 // +/-7 % and Mg, Ca +/-3 %.
@@ -244,7 +244,7 @@ source = log Ksp used by the worked example
 confidence = V
 `
 
-// GW-Project, Fluoride in Groundwater (2022), solution to exercise 6 (REFERENCES §9.1)
+// GW-Project, Fluoride in Groundwater (2022), solution to exercise 6
 // [V]: Ca 14.1 mg/L, F 2.62 mg/L, log Ksp = -10.6, concentrations only:
 // SI(fluorite) = -0.57. With activities and CaF+ the SI must be lower.
 func TestFluoriteWorkedExample(t *testing.T) {
@@ -274,7 +274,7 @@ func TestFluoriteWorkedExample(t *testing.T) {
 }
 
 // Langelier index against the New York State Sanitary Code worked example,
-// 10 NYCRR §6-1.30 (REFERENCES §8.3) [V]: 68 F, calcium hardness 140 mg/L and total
+// 10 NYCRR §6-1.30 [V]: 68 F, calcium hardness 140 mg/L and total
 // alkalinity 20 mg/L as CaCO3, total hardness 200 mg/L, pH 7.8: SI = -0.8 ("corrosive"),
 // band +/-0.5 (the nomograph method is approximate). Chloride added to balance charge
 // (our assumption; the example gives no anions).
@@ -294,7 +294,7 @@ func TestLangelierNewYorkExample(t *testing.T) {
 		t.Errorf("LSI %.2f (pHs %.2f), published -0.8 +/- 0.5", ix.Langelier, ix.PHs)
 	}
 	// Ryznar (1944): RSI = 2 pHs - pH; above 8 corrosion of mild steel is an increasing
-	// problem (NACE interpretation, REFERENCES §8.3) [V], consistent with "corrosive".
+	// problem (NACE interpretation) [V], consistent with "corrosive".
 	if math.Abs(ix.Ryznar-(2*ix.PHs-res.PH)) > 1e-12 || ix.Ryznar < 8 {
 		t.Errorf("RSI %.2f", ix.Ryznar)
 	}

@@ -105,8 +105,7 @@ func logKCaCO3(T float64) float64 {
 	return -1228.732 - 0.299444*T + 35512.75/T + 485.818*math.Log10(T)
 }
 
-// Water ionisation, compilation analytic form (REFERENCES.md section 3,
-// tagged from memory, cross-checked against the CRC pKw table of Marshall &
+// Water ionisation, compilation analytic form (from memory, cross-checked against the CRC pKw table of Marshall &
 // Franck 1981).
 func logKw(T float64) float64 {
 	return -283.971 - 0.05069842*T + 13323.0/T + 102.24447*math.Log10(T) - 1119669/(T*T)
@@ -126,7 +125,7 @@ func logKGypsum(T float64) float64 {
 }
 
 // Ion-pair association constants at 25 C, used at every temperature (a
-// simplification). Sources as in REFERENCES.md section 3: CaSO4 2.30, MgSO4
+// simplification). Sources: CaSO4 2.30, MgSO4
 // 2.37, NaSO4 0.70, KSO4 0.85, NaCO3 1.27, NaHCO3 -0.25 (compilation values,
 // from memory); MgHCO3 1.07 and MgCO3 2.98 (Siebert & Hostetler 1977);
 // SrSO4 1.86 and BaSO4 2.72 (Felmy et al. 1990).
@@ -144,7 +143,7 @@ const (
 )
 
 // davisA is the Debye-Hueckel A parameter from the formula used in water
-// treatment practice (REFERENCES.md 4.1(c), from memory, cross-checked:
+// treatment practice (from memory, cross-checked:
 // 0.5108 at 25 C).
 func davisA(T float64) float64 {
 	eps := 60954/(T+116) - 68.937

@@ -409,7 +409,7 @@ func TestChemistryConstants(t *testing.T) {
 		// pKw 13.995 at 25 C, Marshall & Franck (1981) via the CRC Handbook.
 		{"log Kw", logKw(T), -13.995, 0.01},
 		// Debye-Hueckel A from the water-treatment formula, 0.5108 at 25 C
-		// (REFERENCES.md 4.1(c), from memory, cross-checked).
+		// (from memory, cross-checked).
 		{"Debye-Hueckel A", davisA(T), 0.5108, 0.0005},
 	}
 	for _, tc := range tests {

@@ -42,12 +42,12 @@ func relClose(a, b, rel float64) bool {
 // Ba+2, Sr+2, Ca+2, SO4-2 and three sulfates. Ion sizes are required by the reader for
 // charged species; the Ideal model ignores them.
 //   - Barite: compilation analytic expression after Blount (1977), Am. Mineral. 62,
-//     942-957 (REFERENCES §2.2 [M+], from memory): log K = 136.035 - 7680.41/T
+//     942-957 ([M+], from memory): log K = 136.035 - 7680.41/T
 //   - 48.595 log T, -9.970 at 25 C.
-//   - Celestite: Reardon & Armstrong (1987), GCA 51, 63-72 (REFERENCES §2.2 [V]):
+//   - Celestite: Reardon & Armstrong (1987), GCA 51, 63-72 ([V]):
 //     log K = -6.631, dH = -1.668 kJ.
 //   - Gypsum: CODATA via Shen et al. (2020), J. Chem. Eng. Data 65, Table 3
-//     (REFERENCES §2.1 [V]): log K = -4.580, dH = -1.130 kJ.
+//     ([V]): log K = -4.580, dH = -1.130 kJ.
 const tinyDB = `
 [component H2O]
 charge = 0

@@ -27,7 +27,7 @@ func randomWater(rng *rand.Rand) speciation.Water {
 	return w
 }
 
-// Property (REFERENCES §6.1, Wigley & Plummer 1976 [V]: totals mix linearly by mass
+// Property (Wigley & Plummer 1976 [V]: totals mix linearly by mass
 // fraction): the mixture's totals and alkalinity are (1-f) a + f b exactly (to
 // rounding), and the speciated mixture reproduces them within the solver tolerance.
 func TestMixConservesTotals(t *testing.T) {
@@ -106,7 +106,7 @@ func TestMixWithItself(t *testing.T) {
 }
 
 // Wigley & Plummer (1976), "Mixing of carbonate waters", GCA 40, 989-995
-// (REFERENCES §6.1 [V]): closed-system mixing of two calcite-saturated waters at
+// ([V]): closed-system mixing of two calcite-saturated waters at
 // different pCO2 gives a mixture undersaturated with calcite at intermediate
 // fractions. The end-members (calcite + CO2 at 25 C, log pCO2 -1 and -3.5) are ours.
 func TestWigleyPlummerUndersaturatedMixture(t *testing.T) {
@@ -135,7 +135,7 @@ func TestWigleyPlummerUndersaturatedMixture(t *testing.T) {
 	}
 }
 
-// The converse (REFERENCES §6.1, Water 2013, 5(4), 1712-1722 [V]): mixing two waters
+// The converse (Water 2013, 5(4), 1712-1722 [V]): mixing two waters
 // undersaturated with calcite, one Ca-rich and one bicarbonate-rich, can give a
 // supersaturated mixture. End-members invented: CaCl2 water and NaHCO3 water.
 func TestUndersaturatedWatersMixToSupersaturation(t *testing.T) {
@@ -180,7 +180,7 @@ func TestUndersaturatedWatersMixToSupersaturation(t *testing.T) {
 }
 
 // Calcite solubility falls with temperature (log K from -8.48 at 25 C to -9.12 at
-// 90 C: Plummer & Busenberg 1982, REFERENCES §10 [V-calc]), so a closed water saturated
+// 90 C: Plummer & Busenberg 1982 [V-calc]), so a closed water saturated
 // at 25 C becomes supersaturated on heating and undersaturated on cooling; its totals
 // do not change.
 func TestTemperatureSweepCalcite(t *testing.T) {

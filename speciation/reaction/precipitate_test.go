@@ -9,7 +9,7 @@ import (
 )
 
 // Ideal-solution limit (activity coefficients 1, no ion pairs; tinyDB, barite log K
-// after Blount 1977, REFERENCES §2.2 [M+], from memory): a BaCl2 solution mixed with a
+// after Blount 1977 [M+], from memory): a BaCl2 solution mixed with a
 // Na2SO4 solution has Q = [Ba][SO4] with each concentration diluted by its mass
 // fraction (hand calculation), and the barite that precipitates, x, solves
 // (Ba - x)(SO4 - x) = Ksp, i.e. x = ((Ba + SO4) - sqrt((Ba - SO4)^2 + 4 Ksp)) / 2.
@@ -161,7 +161,7 @@ func TestActiveSetProperties(t *testing.T) {
 
 // CCPP (Standard Methods 2330; definition CCPP = 50 045 (Alk_i - Alk_eq) mg/L as
 // CaCO3, alkalinities in eq/L, as quoted in J. Water Supply Res. Technol.-Aqua 67(1)
-// (2018), REFERENCES §8.2 [V]). No worked example with numbers was available here, so
+// (2018) [V]). No worked example with numbers was available here, so
 // the defining properties are tested: removing CCPP / (2 x 50 045) mol/L of CaCO3
 // (dissolving it when CCPP < 0) leaves a water at calcite saturation (SI = 0 within
 // 1e-6), and the sign of CCPP follows the sign of the calcite SI. Waters invented.
@@ -211,7 +211,7 @@ func TestCCPPDefinition(t *testing.T) {
 
 // The sign of CCPP agrees with the Langelier index for an ordinary tap-like water
 // (both say "deposits"); both computed from the same water. Langelier (1936) as in
-// Standard Methods 2330 (REFERENCES §8.2-8.3 [M]).
+// Standard Methods 2330 ([M]).
 func TestCCPPAgreesWithPrecipitate(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})

@@ -15,7 +15,7 @@ import (
 // celestite the free sulfate is Ksp(cel) / [Sr]0 (strontium untouched so far), so the
 // barium left is Ksp(bar) / [SO4] and its fraction of the start is
 // Ksp(bar) [Sr]0 / (Ksp(cel) [Ba]0). Ksp: barite after Blount (1977) [M+], celestite
-// Reardon & Armstrong (1987) [V] (REFERENCES §2.2).
+// Reardon & Armstrong (1987) [V].
 func TestIdealSelectivePrecipitation(t *testing.T) {
 	r := idealReactor(t)
 	kBa := math.Pow(10, bariteLogK(25))
