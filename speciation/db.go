@@ -20,7 +20,7 @@ var (
 	ErrMissingTempFunc  = errors.New("speciation: missing temperature function (analytic or dh)")
 	ErrChargeImbalance  = errors.New("speciation: reaction does not balance in charge")
 	ErrDuplicateEntry   = errors.New("speciation: duplicate entry")
-	ErrInconsistentLogK = errors.New("speciation: analytic expression does not reproduce logk at 25 C")
+	ErrInconsistentLogK = errors.New("speciation: analytic expression does not reproduce log10_k_25c at 25 C")
 	ErrMissingComponent = errors.New("speciation: required component missing")
 	ErrUnknownEntryKind = errors.New("speciation: unknown entry kind")
 	ErrMissingField     = errors.New("speciation: missing field")
@@ -419,32 +419,32 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 	if !ok || strings.TrimSpace(rx) == "" {
 		return nil, fn, 0, "", e.errf("reaction", "%w \"reaction\"", ErrMissingField)
 	}
-	ls, ok := e.fields["logk"]
+	ls, ok := e.fields["log10_k_25c"]
 	if !ok {
-		return nil, fn, 0, "", e.errf("logk", "%w", ErrMissingLogK)
+		return nil, fn, 0, "", e.errf("log10_k_25c", "%w", ErrMissingLogK)
 	}
 	logk25, err := strconv.ParseFloat(ls, 64)
 	if err != nil || math.IsNaN(logk25) || math.IsInf(logk25, 0) {
-		return nil, fn, 0, "", e.errf("logk", "%w: logk = %q is not a number", ErrSyntax, ls)
+		return nil, fn, 0, "", e.errf("log10_k_25c", "%w: log10_k_25c = %q is not a number", ErrSyntax, ls)
 	}
 	var note string
-	if an, ok := e.fields["analytic"]; ok {
+	if an, ok := e.fields["temperature_fit"]; ok {
 		parts := strings.Fields(an)
 		if len(parts) != 5 {
-			return nil, fn, 0, "", e.errf("analytic", "%w: analytic needs 5 numbers a b c d e, got %d", ErrSyntax, len(parts))
+			return nil, fn, 0, "", e.errf("temperature_fit", "%w: temperature_fit needs 5 numbers a b c d e, got %d", ErrSyntax, len(parts))
 		}
 		var c [5]float64
 		for i, p := range parts {
 			if c[i], err = strconv.ParseFloat(p, 64); err != nil {
-				return nil, fn, 0, "", e.errf("analytic", "%w: %q is not a number", ErrSyntax, p)
+				return nil, fn, 0, "", e.errf("temperature_fit", "%w: %q is not a number", ErrSyntax, p)
 			}
 		}
 		fn = LogKFunc{c[0], c[1], c[2], c[3], c[4]}
 		if got := fn.At(T25); math.Abs(got-logk25) > 0.02 || math.IsNaN(got) {
-			return nil, fn, 0, "", e.errf("analytic", "%w: expression gives %.4f, logk is %.4f", ErrInconsistentLogK, got, logk25)
+			return nil, fn, 0, "", e.errf("temperature_fit", "%w: expression gives %.4f, log10_k_25c is %.4f", ErrInconsistentLogK, got, logk25)
 		}
 		note = "analytic"
-	} else if dh, ok := e.fields["dh"]; ok {
+	} else if dh, ok := e.fields["enthalpy"]; ok {
 		parts := strings.Fields(dh)
 		switch {
 		case len(parts) == 1 && parts[0] == "none":
@@ -453,7 +453,7 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 		case len(parts) == 2:
 			v, err := strconv.ParseFloat(parts[0], 64)
 			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-				return nil, fn, 0, "", e.errf("dh", "%w: dh %q is not a number", ErrSyntax, parts[0])
+				return nil, fn, 0, "", e.errf("enthalpy", "%w: enthalpy %q is not a number", ErrSyntax, parts[0])
 			}
 			switch parts[1] {
 			case "kJ":
@@ -461,15 +461,15 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 			case "kcal":
 				v *= 4184
 			default:
-				return nil, fn, 0, "", e.errf("dh", "%w: dh unit %q (want kJ or kcal)", ErrSyntax, parts[1])
+				return nil, fn, 0, "", e.errf("enthalpy", "%w: enthalpy unit %q (want kJ or kcal)", ErrSyntax, parts[1])
 			}
 			fn = vantHoff(logk25, v)
 			note = "van 't Hoff"
 		default:
-			return nil, fn, 0, "", e.errf("dh", "%w: dh must be \"<number> kJ\", \"<number> kcal\" or \"none\"", ErrSyntax)
+			return nil, fn, 0, "", e.errf("enthalpy", "%w: enthalpy must be \"<number> kJ\", \"<number> kcal\" or \"none\"", ErrSyntax)
 		}
 	} else {
-		return nil, fn, 0, "", e.errf("logk", "%w", ErrMissingTempFunc)
+		return nil, fn, 0, "", e.errf("log10_k_25c", "%w", ErrMissingTempFunc)
 	}
 	raw, err := parseReaction(rx)
 	if err != nil {

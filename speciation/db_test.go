@@ -33,32 +33,32 @@ func TestParseRejects(t *testing.T) {
 [species CaCl+]
 reaction = Ca+2 + Cl-
 charge = 2
-logk = 0.4
-dh = none
+log10_k_25c = 0.4
+enthalpy = none
 ion_size = 4
 `, ErrChargeImbalance, 15, "species CaCl+"},
 		{"unknown component", tinyHeader + `
 [species CaBr+]
 reaction = Ca+2 + Br-
 charge = 1
-logk = 0.4
-dh = none
+log10_k_25c = 0.4
+enthalpy = none
 ion_size = 4
 `, ErrUnknownComponent, 15, "species CaBr+"},
 		{"missing logk", tinyHeader + `
 [mineral Whatever]
 reaction = Ca+2 + 2 Cl-
-dh = none
+enthalpy = none
 `, ErrMissingLogK, 14, "mineral Whatever"},
 		{"duplicate entry", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
-dh = none
+log10_k_25c = 1
+enthalpy = none
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 2
-dh = none
+log10_k_25c = 2
+enthalpy = none
 `, ErrDuplicateEntry, 18, "mineral Salt"},
 		{"duplicate component", tinyHeader + `
 [component Ca+2]
@@ -68,37 +68,37 @@ ion_size = 6
 		{"no temperature function", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
+log10_k_25c = 1
 `, ErrMissingTempFunc, 16, "mineral Salt"},
 		{"analytic inconsistent with logk", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
-analytic = 2 0 0 0 0
+log10_k_25c = 1
+temperature_fit = 2 0 0 0 0
 `, ErrInconsistentLogK, 17, "mineral Salt"},
 		{"unbalanced mineral", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + Cl-
-logk = 1
-dh = none
+log10_k_25c = 1
+enthalpy = none
 `, ErrChargeImbalance, 15, "mineral Salt"},
 		{"bad number", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = one
-dh = none
+log10_k_25c = one
+enthalpy = none
 `, ErrSyntax, 16, "mineral Salt"},
 		{"bad enthalpy unit", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
-dh = 3 kJoule
+log10_k_25c = 1
+enthalpy = 3 kJoule
 `, ErrSyntax, 17, "mineral Salt"},
 		{"dangling operator", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl- +
-logk = 1
-dh = none
+log10_k_25c = 1
+enthalpy = none
 `, ErrSyntax, 15, "mineral Salt"},
 		{"line without =", tinyHeader + `
 [mineral Salt]
@@ -107,8 +107,8 @@ reaction Ca+2 + 2 Cl-
 		{"unknown kind", tinyHeader + `
 [solid Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
-dh = none
+log10_k_25c = 1
+enthalpy = none
 `, ErrUnknownEntryKind, 14, "solid Salt"},
 		{"missing H+", `
 [component H2O]
@@ -118,14 +118,14 @@ charge = 0
 [species CaCl+]
 reaction = Ca+2 + Cl-
 charge = 1
-logk = 0.4
-dh = none
+log10_k_25c = 0.4
+enthalpy = none
 `, ErrMissingField, 16, "species CaCl+"},
 		{"repeated key", tinyHeader + `
 [mineral Salt]
 reaction = Ca+2 + 2 Cl-
-logk = 1
-logk = 2
+log10_k_25c = 1
+log10_k_25c = 2
 `, ErrSyntax, 17, "mineral Salt"},
 	}
 	for _, tc := range tests {

@@ -93,8 +93,8 @@ ion_size = 4
 [mineral Barite]
 formula = BaSO4
 reaction = Ba+2 + SO4-2
-logk = -9.97
-dh = 26.6 kJ
+log10_k_25c = -9.97
+enthalpy = 26.6 kJ
 source = invented for the example
 confidence = M
 `)

@@ -238,8 +238,8 @@ ion_size = 3.5
 [mineral Fluorite]
 formula = CaF2
 reaction = Ca+2 + 2 F-
-logk = -10.6
-dh = none
+log10_k_25c = -10.6
+enthalpy = none
 source = log Ksp used by the worked example
 confidence = V
 `
@@ -326,8 +326,8 @@ ion_size = 4.5
 [species HCO3-]
 reaction = CO3-2 + H+
 charge = -1
-logk = 10.329
-dh = none
+log10_k_25c = 10.329
+enthalpy = none
 ion_size = 4
 `)
 	if err != nil {

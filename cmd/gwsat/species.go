@@ -137,9 +137,9 @@ func printSpecies(w io.Writer, r *assess.Record) {
 
 	fmt.Fprintln(w, "\nSaturation indices (SI = log IAP - log K; > 0 supersaturated: may deposit; < 0 undersaturated: may dissolve)")
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(tw, "mineral\tSI\tlog IAP\tlog K(T)\tstate\t")
+	fmt.Fprintln(tw, "mineral\tlog IAP\tlog K at T\tSI\tstate\t")
 	for _, m := range res.Minerals {
-		fmt.Fprintf(tw, "%s\t%.3f\t%.3f\t%.3f\t%s\t\n", m.Name, m.SI, m.LogIAP, m.LogK, state(m.SI))
+		fmt.Fprintf(tw, "%s\t%.3f\t%.3f\t%+.3f\t%s\t\n", m.Name, m.LogIAP, m.LogK, m.SI, state(m.SI))
 	}
 	tw.Flush()
 	fmt.Fprintln(w, "\nScreening results, not a design: defer to local codes and licensed professionals.")

@@ -75,22 +75,22 @@ charge = -2
 ion_size = 5
 [mineral Barite]
 reaction = Ba+2 + SO4-2
-logk = -9.97
-analytic = 136.035 0 -7680.41 -48.595 0
+log10_k_25c = -9.97
+temperature_fit = 136.035 0 -7680.41 -48.595 0
 mass = 233.39
 density = 4.48
 density_source = CRC Handbook (from memory)
 [mineral Celestite]
 reaction = Sr+2 + SO4-2
-logk = -6.631
-dh = -1.668 kJ
+log10_k_25c = -6.631
+enthalpy = -1.668 kJ
 mass = 183.68
 density = 3.96
 density_source = CRC Handbook (from memory)
 [mineral Gypsum]
 reaction = Ca+2 + SO4-2 + 2 H2O
-logk = -4.580
-dh = -1.130 kJ
+log10_k_25c = -4.580
+enthalpy = -1.130 kJ
 mass = 172.168
 density = 2.31
 density_source = CRC Handbook (from memory)
