@@ -1,5 +1,3 @@
-// Package data holds gwsat's embedded files: the thermodynamic data set read by
-// package speciation and the invented demo data set used by the quick start.
 package data
 
 import "embed"

@@ -1,9 +1,3 @@
-// Command gwsat reads groundwater lab results, checks them, computes
-// aqueous speciation and mineral saturation indices, mixes waters, estimates
-// precipitation and draws site figures. Run "gwsat help" for the commands.
-//
-// Results are screening results, not a design: defer to local codes and
-// licensed professionals before acting on them.
 package main
 
 import (
