@@ -23,17 +23,8 @@ func WriteFile(path string, data []byte) error {
 // WriteWith calls fill with a writer for a temporary file next to path and,
 // when fill returns nil, renames the temporary file to path. When fill (or
 // the file system) fails, the temporary file is removed and the error
-// returned; path is not touched. A path of "-" writes to standard output
-// directly, buffered so that nothing is printed when fill fails.
+// returned; path is not touched.
 func WriteWith(path string, fill func(w io.Writer) error) (err error) {
-	if path == "-" {
-		var buf bytes.Buffer
-		if err := fill(&buf); err != nil {
-			return err
-		}
-		_, err := os.Stdout.Write(buf.Bytes())
-		return err
-	}
 	// A symbolic link is followed, so the file it points to is replaced and
 	// the link kept. A device or a named pipe (/dev/null, /dev/stdout, a
 	// FIFO) is written to directly: renaming over it would replace the
