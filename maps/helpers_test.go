@@ -1,9 +1,14 @@
 package maps
 
 import (
+	"bytes"
+	"encoding/xml"
 	"fmt"
+	"io"
 	"math"
 	"math/rand/v2"
+	"strings"
+	"testing"
 )
 
 // Synthetic, invented test data: a made-up well field of 30 wells in three
@@ -111,4 +116,32 @@ func testBars() Bars {
 		Labels: []string{"Calcite", "Gypsum", "Barite"}, Values: []float64{42.3, 0, 3.1},
 		Secondary: []float64{35, 0, 2.9}, PrimaryName: "alone", SecondaryName: "together",
 	}
+}
+
+// svgTexts returns the text elements of an SVG, failing if it is not XML.
+func svgTexts(t *testing.T, b []byte) map[string]bool {
+	t.Helper()
+	texts := map[string]bool{}
+	dec := xml.NewDecoder(bytes.NewReader(b))
+	inText := false
+	for {
+		tok, err := dec.Token()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			t.Fatalf("SVG does not parse: %v", err)
+		}
+		switch tk := tok.(type) {
+		case xml.StartElement:
+			inText = tk.Name.Local == "text"
+		case xml.CharData:
+			if inText {
+				texts[strings.TrimSpace(string(tk))] = true
+			}
+		case xml.EndElement:
+			inText = false
+		}
+	}
+	return texts
 }

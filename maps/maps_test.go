@@ -2,12 +2,10 @@ package maps
 
 import (
 	"bytes"
-	"encoding/xml"
 	"errors"
 	"image"
 	"image/color"
 	"image/png"
-	"io"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -118,28 +116,7 @@ func TestRenderSVG(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			texts := map[string]bool{}
-			dec := xml.NewDecoder(bytes.NewReader(b))
-			inText := false
-			for {
-				tok, err := dec.Token()
-				if err == io.EOF {
-					break
-				}
-				if err != nil {
-					t.Fatalf("SVG does not parse as XML: %v", err)
-				}
-				switch tk := tok.(type) {
-				case xml.StartElement:
-					inText = tk.Name.Local == "text"
-				case xml.CharData:
-					if inText {
-						texts[strings.TrimSpace(string(tk))] = true
-					}
-				case xml.EndElement:
-					inText = false
-				}
-			}
+			texts := svgTexts(t, b)
 			for _, want := range c.texts {
 				if !texts[want] {
 					t.Errorf("no <text> element %q", want)

@@ -2,11 +2,9 @@ package maps
 
 import (
 	"bytes"
-	"encoding/xml"
 	"errors"
 	"fmt"
 	"image/png"
-	"io"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -383,32 +381,6 @@ func keys(m map[string]bool) []string {
 	return ks
 }
 
-func svgTexts(t *testing.T, b []byte) map[string]bool {
-	t.Helper()
-	texts := map[string]bool{}
-	dec := xml.NewDecoder(bytes.NewReader(b))
-	inText := false
-	for {
-		tok, err := dec.Token()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			t.Fatalf("SVG does not parse: %v", err)
-		}
-		switch tk := tok.(type) {
-		case xml.StartElement:
-			inText = tk.Name.Local == "text"
-		case xml.CharData:
-			if inText {
-				texts[strings.TrimSpace(string(tk))] = true
-			}
-		case xml.EndElement:
-			inText = false
-		}
-	}
-	return texts
-}
 
 // A Piper diagram of two invented waters and their 1:1 mixture, in meq/L;
 // the sample without anions is left out and counted.
