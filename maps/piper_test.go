@@ -381,7 +381,6 @@ func keys(m map[string]bool) []string {
 	return ks
 }
 
-
 // A Piper diagram of two invented waters and their 1:1 mixture, in meq/L;
 // the sample without anions is left out and counted.
 func ExamplePiper() {
