@@ -8,8 +8,8 @@ import (
 	"runtime"
 	"sync"
 
-	"gwsat/hydro"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // DefaultTempC is the temperature assumed for a sample reported without one

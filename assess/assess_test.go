@@ -6,8 +6,8 @@ import (
 	"strings"
 	"testing"
 
-	"gwsat/hydro"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
 )
 
 func read(t *testing.T, csv string) *hydro.Batch {

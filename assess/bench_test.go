@@ -4,9 +4,9 @@ import (
 	"bytes"
 	"testing"
 
-	"gwsat/data"
-	"gwsat/hydro"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/data"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // demoWater returns a demo sample converted for speciation.

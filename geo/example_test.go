@@ -7,7 +7,7 @@ import (
 
 	"github.com/paulmach/orb"
 
-	"gwsat/geo"
+	"gwsat.dev/gwsat/geo"
 )
 
 // Converting a WGS84 position to UTM and back (PROJ's cs2cs gives

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"strings"
 
-	"gwsat/hydro"
+	"gwsat.dev/gwsat/hydro"
 )
 
 // An invented three-sample lab file: semicolons, decimal commas, a

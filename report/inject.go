@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"strconv"
 
-	"gwsat/maps"
-	"gwsat/speciation/reaction"
+	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/speciation/reaction"
 )
 
 // SweepTable lists a mixing or temperature sweep: one row per point, a
@@ -46,8 +46,8 @@ func stateWord(si float64) string {
 
 // SweepFigure draws SI against the sweep's variable for the minerals whose
 // SI is defined, marking SI = 0 and each maximum.
-func SweepFigure(sw *reaction.Sweep, title, caption string, temperature bool, minerals []string) maps.Curves {
-	cv := maps.Curves{Title: title, YLabel: "Saturation index (log IAP/K)", Caption: caption, ZeroLine: true, AnnotateMax: true}
+func SweepFigure(sw *reaction.Sweep, title, caption string, temperature bool, minerals []string) figure.Curves {
+	cv := figure.Curves{Title: title, YLabel: "Saturation index (log IAP/K)", Caption: caption, ZeroLine: true, AnnotateMax: true}
 	cv.XLabel = "Fraction of the second water (by mass of water)"
 	if temperature {
 		cv.XLabel = "Temperature (C)"
@@ -60,7 +60,7 @@ func SweepFigure(sw *reaction.Sweep, title, caption string, temperature bool, mi
 		if len(minerals) > 0 && !want[m] {
 			continue
 		}
-		s := maps.Series{Name: m}
+		s := figure.Series{Name: m}
 		for _, p := range sw.Points {
 			if !p.Defined[i] {
 				continue
@@ -117,8 +117,8 @@ func WaterLeftTable(p *reaction.Precipitation) *Table {
 
 // PrecipitationFigure is a bar chart of the precipitation potential per
 // mineral in mg/L, alone and together.
-func PrecipitationFigure(p *reaction.Precipitation, title, caption string) maps.Bars {
-	b := maps.Bars{Title: title, YLabel: "Precipitated to equilibrium (mg/L)", Caption: caption, PrimaryName: "alone", SecondaryName: "together"}
+func PrecipitationFigure(p *reaction.Precipitation, title, caption string) figure.Bars {
+	b := figure.Bars{Title: title, YLabel: "Precipitated to equilibrium (mg/L)", Caption: caption, PrimaryName: "alone", SecondaryName: "together"}
 	together := map[string]float64{}
 	for _, a := range p.Together.Amounts {
 		together[a.Mineral] = a.MgL

@@ -7,9 +7,9 @@ import (
 
 	"gonum.org/v1/plot/vg"
 
-	"gwsat/assess"
-	"gwsat/hydro"
-	"gwsat/maps"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/figure"
 )
 
 // groupOf names the Piper group of a sample: its sample type (a "Sample
@@ -31,7 +31,7 @@ func groupOf(s *hydro.Sample, clusterColumn string) string {
 // that were rejected, or lack a cation or anion sum, are left out and
 // counted by the figure.
 func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
-	var pts []maps.PiperPoint
+	var pts []figure.PiperPoint
 	for i := range recs {
 		r := &recs[i]
 		if r.Status == hydro.StatusRejected || r.Water.KgWaterPerL <= 0 {
@@ -50,7 +50,7 @@ func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
 			}
 			return sum
 		}
-		p := maps.PiperPoint{Label: s.ID, Group: groupOf(s, clusterColumn),
+		p := figure.PiperPoint{Label: s.ID, Group: groupOf(s, clusterColumn),
 			Ca: meq("Ca"), Mg: meq("Mg"), Na: meq("Na"), K: meq("K"), Cl: meq("Cl"), SO4: meq("SO4")}
 		if _, ok := s.Analytes["Alk"]; ok {
 			p.HCO3 = meq("Alk") // total alkalinity stands for HCO3 + CO3
@@ -74,7 +74,7 @@ func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
 		Title: "Piper diagram",
 		Caption: fmt.Sprintf("Major-ion composition of %d samples as percent of the cation and anion sums in meq/L (Piper 1944), alkalinity standing for HCO3 + CO3; mixtures of two waters fall on straight lines between them. Rejected rows are left out.",
 			len(pts)),
-		Figure: maps.Piper{Title: "Piper diagram", Points: pts},
+		Figure: figure.Piper{Title: "Piper diagram", Points: pts},
 		W:      16 * vg.Centimeter, H: 14 * vg.Centimeter,
 	}, true
 }

@@ -9,9 +9,9 @@ import (
 	"strings"
 	"unicode"
 
-	"gwsat/assess"
-	"gwsat/hydro"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // ColumnName returns the table column of a mineral's saturation index:

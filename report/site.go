@@ -10,10 +10,10 @@ import (
 	"github.com/paulmach/orb"
 	"gonum.org/v1/plot/vg"
 
-	"gwsat/assess"
-	"gwsat/geo"
-	"gwsat/hydro"
-	"gwsat/maps"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/geo"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/figure"
 )
 
 // Position returns a sample's position in WGS84 longitude and latitude:
@@ -71,7 +71,7 @@ type Fig struct {
 	Stem    string // file name without extension
 	Title   string
 	Caption string
-	Figure  maps.Figure
+	Figure  figure.Figure
 	W, H    vg.Length
 }
 
@@ -156,11 +156,11 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 
 	for _, m := range site.Minerals {
 		for _, z := range site.Zones {
-			var panels []maps.Figure
+			var panels []figure.Figure
 			for _, rd := range rounds {
 				var pts []orb.Point
 				var vals []float64
-				var wells []maps.Well
+				var wells []figure.Well
 				for _, p := range placed {
 					if p.rec.Sample().Round != rd || !z.contains(p) {
 						continue
@@ -171,12 +171,12 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 					}
 					pts = append(pts, p.xy)
 					vals = append(vals, si)
-					wells = append(wells, maps.Well{X: p.xy[0], Y: p.xy[1], SI: si, Label: wellLabel(p.rec.Sample())})
+					wells = append(wells, figure.Well{X: p.xy[0], Y: p.xy[1], SI: si, Label: wellLabel(p.rec.Sample())})
 				}
 				if len(wells) == 0 {
 					continue
 				}
-				sm := maps.SIMap{Title: panelTitle(m, rd, z), Wells: wells, Features: feats, Units: maps.UnitsMetres, NorthArrow: true, ScaleBar: true}
+				sm := figure.SIMap{Title: panelTitle(m, rd, z), Wells: wells, Features: feats, Units: figure.UnitsMetres, NorthArrow: true, ScaleBar: true}
 				row := SurfaceRow{Mineral: m, Zone: z.Label, Round: rd, Wells: len(wells)}
 				surf, err := interpolate(pts, vals, opt.Method)
 				if err != nil {
@@ -196,7 +196,7 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 			// One colour scale for all panels of a figure, so rounds compare.
 			lim := colourLimit(panels)
 			for i := range panels {
-				sm := panels[i].(maps.SIMap)
+				sm := panels[i].(figure.SIMap)
 				sm.Limit = lim
 				panels[i] = sm
 			}
@@ -206,11 +206,11 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 				cap += fmt.Sprintf(" %d row(s) without a usable position or result not shown.", n)
 			}
 			if n := noDepthCount(placed); n > 0 && z.Label != noDepthZone {
-				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone maps.", n)
+				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone figure.", n)
 			}
 			site.Figures = append(site.Figures, Fig{
 				Stem: "map_" + slug(m) + "_" + slug(z.Label), Title: fmt.Sprintf("%s, %s", m, z.Label), Caption: cap,
-				Figure: maps.Panels(panels, len(panels)), W: vg.Length(len(panels)) * 14 * vg.Centimeter, H: 13 * vg.Centimeter,
+				Figure: figure.Panels(panels, len(panels)), W: vg.Length(len(panels)) * 14 * vg.Centimeter, H: 13 * vg.Centimeter,
 			})
 		}
 	}
@@ -238,8 +238,8 @@ func interpolate(pts []orb.Point, vals []float64, method string) (*geo.Surface, 
 	return s, err
 }
 
-func toMapGrid(g *geo.Grid) *maps.Grid {
-	mg := &maps.Grid{X0: g.X0, Y0: g.Y0, DX: g.DX, DY: g.DY, NX: g.NX, NY: g.NY,
+func toMapGrid(g *geo.Grid) *figure.Grid {
+	mg := &figure.Grid{X0: g.X0, Y0: g.Y0, DX: g.DX, DY: g.DY, NX: g.NX, NY: g.NY,
 		Z: make([]float64, len(g.Values)), Valid: make([]bool, len(g.Values))}
 	for j := 0; j < g.NY; j++ {
 		for i := 0; i < g.NX; i++ {
@@ -251,12 +251,12 @@ func toMapGrid(g *geo.Grid) *maps.Grid {
 	return mg
 }
 
-func projectFeatures(frame geo.LocalFrame, fs []geo.SiteFeature) []maps.Feature {
-	var out []maps.Feature
+func projectFeatures(frame geo.LocalFrame, fs []geo.SiteFeature) []figure.Feature {
+	var out []figure.Feature
 	for _, f := range fs {
 		g := frame.ProjectGeometry(f.Geometry)
 		add := func(kind string, pts []orb.Point) {
-			mf := maps.Feature{Kind: kind, Name: f.Name}
+			mf := figure.Feature{Kind: kind, Name: f.Name}
 			for _, p := range pts {
 				mf.Coords = append(mf.Coords, [2]float64{p[0], p[1]})
 			}
@@ -264,25 +264,25 @@ func projectFeatures(frame geo.LocalFrame, fs []geo.SiteFeature) []maps.Feature 
 		}
 		switch g := g.(type) {
 		case orb.Point:
-			add(maps.FeaturePoint, []orb.Point{g})
+			add(figure.FeaturePoint, []orb.Point{g})
 		case orb.MultiPoint:
 			for _, p := range g {
-				add(maps.FeaturePoint, []orb.Point{p})
+				add(figure.FeaturePoint, []orb.Point{p})
 			}
 		case orb.LineString:
-			add(maps.FeatureLine, g)
+			add(figure.FeatureLine, g)
 		case orb.MultiLineString:
 			for _, l := range g {
-				add(maps.FeatureLine, l)
+				add(figure.FeatureLine, l)
 			}
 		case orb.Polygon:
 			if len(g) > 0 {
-				add(maps.FeaturePolygon, g[0])
+				add(figure.FeaturePolygon, g[0])
 			}
 		case orb.MultiPolygon:
 			for _, pg := range g {
 				if len(pg) > 0 {
-					add(maps.FeaturePolygon, pg[0])
+					add(figure.FeaturePolygon, pg[0])
 				}
 			}
 		}
@@ -434,15 +434,15 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 	var figs []Fig
 	for _, c := range order {
 		nests := nestsOf(byCluster[c])
-		var panels []maps.ProfilePanel
+		var panels []figure.ProfilePanel
 		for _, m := range minerals {
-			pp := maps.ProfilePanel{Mineral: m}
+			pp := figure.ProfilePanel{Mineral: m}
 			// Wells standing alone (not in a nest) share one series of
 			// unconnected markers: a line between different wells would
 			// suggest a profile that was never sampled.
-			singles := maps.ProfileLine{Label: "single wells", Points: true}
+			singles := figure.ProfileLine{Label: "single wells", Points: true}
 			for _, n := range nests {
-				line := maps.ProfileLine{Label: n.label}
+				line := figure.ProfileLine{Label: n.label}
 				sort.Slice(n.members, func(i, j int) bool { return n.members[i].depth < n.members[j].depth })
 				for _, p := range n.members {
 					if si, ok := p.rec.Result.SI(m); ok {
@@ -478,8 +478,8 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 			Stem:  "profile_" + slug(name),
 			Title: title,
 			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest (wells within 10 m of each other), single wells as unconnected markers; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
-				maps.DefaultBand, opt.Model),
-			Figure: maps.DepthProfile{Title: title, Panels: panels},
+				figure.DefaultBand, opt.Model),
+			Figure: figure.DepthProfile{Title: title, Panels: panels},
 			W:      vg.Length(len(panels))*5*vg.Centimeter + 3*vg.Centimeter, H: 11 * vg.Centimeter,
 		})
 	}
@@ -550,10 +550,10 @@ func noDepthCount(placed []placedRec) int {
 
 // colourLimit is the largest |SI| of the wells in the panels, rounded up to
 // a multiple of 0.5 and at least 0.5, so every panel shares one scale.
-func colourLimit(panels []maps.Figure) float64 {
+func colourLimit(panels []figure.Figure) float64 {
 	m := 0.0
 	for _, f := range panels {
-		for _, w := range f.(maps.SIMap).Wells {
+		for _, w := range f.(figure.SIMap).Wells {
 			if !math.IsNaN(w.SI) && !math.IsInf(w.SI, 0) {
 				m = math.Max(m, math.Abs(w.SI))
 			}
@@ -565,7 +565,7 @@ func colourLimit(panels []maps.Figure) float64 {
 // FlagPositions adds a warning to every record whose coordinates were
 // reported but cannot be placed (out of range, the (0, 0) of blank cells,
 // easting/northing without an EPSG code): such rows stay in every table and
-// are left off maps. Rows with no coordinates at all are not flagged.
+// are left off figure. Rows with no coordinates at all are not flagged.
 func FlagPositions(recs []assess.Record) {
 	for i := range recs {
 		s := recs[i].Sample()

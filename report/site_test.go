@@ -4,8 +4,8 @@ import (
 	"strings"
 	"testing"
 
-	"gwsat/assess"
-	"gwsat/hydro"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
 )
 
 func TestFlagPositions(t *testing.T) {

@@ -8,7 +8,6 @@ import (
 	"strings"
 	"sync"
 
-	"gwsat/data"
 )
 
 // Sentinel errors of the data reader. Errors returned by ParseDatabase wrap one of
@@ -204,11 +203,11 @@ var (
 	defaultErr  error
 )
 
-// Default returns the database parsed from the embedded data file (gwsat/data.Thermo).
+// Default returns the database parsed from the embedded data file (Thermo, from thermo.txt).
 // It is parsed once and shared.
 func Default() (*Database, error) {
 	defaultOnce.Do(func() {
-		defaultDB, defaultErr = ParseDatabase(data.Thermo)
+		defaultDB, defaultErr = ParseDatabase(Thermo)
 	})
 	return defaultDB, defaultErr
 }
@@ -221,7 +220,7 @@ type rawEntry struct {
 }
 
 // ParseDatabase reads a thermodynamic data set in gwsat's own format (described at the
-// top of data/thermo.txt). It needs at least the components H2O and H+. A malformed or
+// top of speciation/thermo.txt). It needs at least the components H2O and H+. A malformed or
 // inconsistent file is rejected with a *DataError naming the entry and line.
 func ParseDatabase(text string) (*Database, error) {
 	entries, err := splitEntries(text)

@@ -2,7 +2,7 @@
 // natural water, the activities of the species, and the saturation state of the water
 // with respect to minerals and CO2 gas.
 //
-// A Database (Default for the embedded data set gwsat/data.Thermo, or ParseDatabase for
+// A Database (Default for the embedded data set Thermo (speciation/thermo.txt), or ParseDatabase for
 // any text in gwsat's own format, described at the top of data/thermo.txt) holds
 // Components, the basis the laboratory reports in (Ca+2, SO4-2, CO3-2 for total inorganic
 // carbon, H4SiO4 for silica, ...), aqueous Species formed from them, and Minerals (and

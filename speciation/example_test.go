@@ -3,7 +3,7 @@ package speciation_test
 import (
 	"fmt"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Build a water from its analysis (mol per kg of water), speciate it with the

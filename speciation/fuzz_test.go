@@ -4,13 +4,12 @@ import (
 	"errors"
 	"testing"
 
-	"gwsat/data"
 )
 
 // FuzzParseDatabase: any text either parses or is rejected with a *DataError; never a
 // panic. Seeds: the embedded data set and the parser-test header.
 func FuzzParseDatabase(f *testing.F) {
-	f.Add(data.Thermo)
+	f.Add(Thermo)
 	f.Add(tinyHeader)
 	f.Add(fluoriteDB)
 	f.Add("[mineral X]\nreaction = - +\n")

@@ -6,7 +6,6 @@ import (
 	"strings"
 	"testing"
 
-	"gwsat/data"
 )
 
 func mustDefault(t testing.TB) *Database {
@@ -583,7 +582,7 @@ func TestEquilibratePrecipitation(t *testing.T) {
 // reverse order (each entry runs from its header to the next header).
 func reverseComponents(t *testing.T) string {
 	t.Helper()
-	lines := strings.Split(data.Thermo, "\n")
+	lines := strings.Split(Thermo, "\n")
 	var blocks []string
 	var cur []string
 	for _, l := range lines {

@@ -7,10 +7,10 @@ import (
 	"sort"
 	"strings"
 
-	"gwsat/assess"
-	"gwsat/hydro"
-	"gwsat/internal/progress"
-	"gwsat/report"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/internal/progress"
+	"gwsat.dev/gwsat/report"
 )
 
 func init() {

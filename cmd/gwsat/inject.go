@@ -11,12 +11,12 @@ import (
 	"strconv"
 	"strings"
 
-	"gwsat/assess"
-	"gwsat/hydro"
-	"gwsat/maps"
-	"gwsat/report"
-	"gwsat/speciation"
-	"gwsat/speciation/reaction"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/speciation/reaction"
 
 	"gonum.org/v1/plot/vg"
 )
@@ -178,12 +178,12 @@ func usageErr(e *env, cmd string, err error) int {
 }
 
 // plotTo renders a figure to a file whose extension names the format.
-func plotTo(e *env, path string, f maps.Figure, w, h vg.Length) error {
+func plotTo(e *env, path string, f figure.Figure, w, h vg.Length) error {
 	if path == "" {
 		return nil
 	}
 	format := strings.TrimPrefix(strings.ToLower(filepath.Ext(path)), ".")
-	b, err := maps.Render(f, format, w, h)
+	b, err := figure.Render(f, format, w, h)
 	if err != nil {
 		return err
 	}

@@ -8,12 +8,12 @@ import (
 	"os"
 	"strings"
 
-	"gwsat/assess"
-	"gwsat/data"
-	"gwsat/hydro"
-	"gwsat/internal/progress"
-	"gwsat/report"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/data"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/internal/progress"
+	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // DemoFile is the name the embedded demo samples carry in outputs.

@@ -6,7 +6,7 @@ import (
 	"errors"
 	"flag"
 	"fmt"
-	"gwsat/internal/atomicfile"
+	"gwsat.dev/gwsat/internal/atomicfile"
 	"io"
 	"os"
 	"os/signal"

@@ -8,10 +8,10 @@ import (
 
 	"gonum.org/v1/plot/vg"
 
-	"gwsat/assess"
-	"gwsat/report"
-	"gwsat/speciation"
-	"gwsat/speciation/reaction"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/speciation/reaction"
 )
 
 // mixFlags choose the end-members of a report's injection-planning section.

@@ -12,14 +12,14 @@ import (
 	"sync"
 	"time"
 
-	"gwsat/assess"
-	"gwsat/data"
-	"gwsat/geo"
-	"gwsat/hydro"
-	"gwsat/internal/atomicfile"
-	"gwsat/internal/progress"
-	"gwsat/maps"
-	"gwsat/report"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/data"
+	"gwsat.dev/gwsat/geo"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/internal/atomicfile"
+	"gwsat.dev/gwsat/internal/progress"
+	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/report"
 )
 
 func init() {
@@ -250,7 +250,7 @@ func renderFigures(e *env, dir string, figs []report.Fig, fmts []string) ([]repo
 				f := figs[i]
 				out[i] = report.IndexFigure{Title: f.Title, Caption: f.Caption}
 				for _, format := range fmts {
-					b, err := maps.Render(f.Figure, format, f.W, f.H)
+					b, err := figure.Render(f.Figure, format, f.W, f.H)
 					if err != nil {
 						errs[i] = fmt.Errorf("figure %s: %w", f.Stem, err)
 						break

@@ -8,9 +8,9 @@ import (
 	"strings"
 	"text/tabwriter"
 
-	"gwsat/assess"
-	"gwsat/report"
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
 )
 
 func init() {

@@ -14,7 +14,7 @@ import (
 	"github.com/paulmach/orb/geojson"
 	"github.com/paulmach/orb/planar"
 
-	"gwsat/data"
+	"gwsat.dev/gwsat/data"
 )
 
 var (

@@ -3,7 +3,7 @@ package reaction
 import (
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 func benchWaters(b *testing.B) (*Reactor, Solution, Solution) {

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Clogging arithmetic against a hand calculation. Densities as in the data file (CRC

@@ -4,7 +4,7 @@ import (
 	"errors"
 	"fmt"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Sentinel errors. Every error returned for bad input is an *InputError wrapping one of

@@ -5,8 +5,8 @@ import (
 	"log"
 	"strings"
 
-	"gwsat/speciation"
-	"gwsat/speciation/reaction"
+	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/speciation/reaction"
 )
 
 // Two invented waters (not real samples): a Ba-bearing native groundwater and a

@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 func defaultDB(t testing.TB) *speciation.Database {

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // DefaultFractions returns the default mixing fractions 0, 0.05, ..., 1.

@@ -5,7 +5,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // randomWater is an invented fresh-to-brackish water (not a real sample): random

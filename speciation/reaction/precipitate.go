@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Tolerances of the active-set loop.

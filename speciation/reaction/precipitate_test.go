@@ -5,7 +5,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Ideal-solution limit (activity coefficients 1, no ion pairs; tinyDB, barite log K

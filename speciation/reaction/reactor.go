@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // PHMode says what fixes the pH of a water that has been mixed, heated, cooled or has

@@ -6,7 +6,7 @@ import (
 	"strconv"
 	"strings"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Reagent is what is added step by step in a precipitation sequence: a pure salt

@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"gwsat/speciation"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Selective precipitation in the ideal limit (activity coefficients 1, no ion pairs;

@@ -1,4 +1,4 @@
-package maps_test
+package figure_test
 
 import (
 	"bytes"
@@ -6,7 +6,7 @@ import (
 	"image/png"
 	"math"
 
-	"gwsat/maps"
+	"gwsat.dev/gwsat/figure"
 
 	"gonum.org/v1/plot/vg"
 )
@@ -14,13 +14,13 @@ import (
 // Render a mixing curve (invented numbers) to a 300 dpi PNG and report its
 // size in pixels: 16 cm x 12 cm at 300 dpi.
 func ExampleRender() {
-	fig := maps.Curves{
+	fig := figure.Curves{
 		Title:  "Calcite on mixing (invented data)",
 		XLabel: "Fraction of injectate", YLabel: "Saturation index",
-		Series:   []maps.Series{{Name: "Calcite", X: []float64{0, 0.5, 1}, Y: []float64{-0.4, 0.3, 0.1}}},
+		Series:   []figure.Series{{Name: "Calcite", X: []float64{0, 0.5, 1}, Y: []float64{-0.4, 0.3, 0.1}}},
 		ZeroLine: true, AnnotateMax: true,
 	}
-	b, err := maps.Render(fig, "png", 16*vg.Centimeter, 12*vg.Centimeter)
+	b, err := figure.Render(fig, "png", 16*vg.Centimeter, 12*vg.Centimeter)
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -37,52 +37,52 @@ func ExampleRender() {
 // A map of wells only (no interpolated surface); the well with a missing
 // coordinate is left out and counted.
 func ExampleSIMap() {
-	m := maps.SIMap{
+	m := figure.SIMap{
 		Title: "Gypsum SI at wells (invented data)",
-		Wells: []maps.Well{
+		Wells: []figure.Well{
 			{X: 1000, Y: 2000, SI: -0.8, Label: "W-1"},
-			{X: 1400, Y: 2300, SI: 0.4, Label: "W-2", Marker: maps.MarkerInjection},
+			{X: 1400, Y: 2300, SI: 0.4, Label: "W-2", Marker: figure.MarkerInjection},
 			{X: math.NaN(), Y: 2100, SI: 0.1, Label: "W-3"},
 		},
-		Units: maps.UnitsMetres, ScaleBar: true, NorthArrow: true,
+		Units: figure.UnitsMetres, ScaleBar: true, NorthArrow: true,
 	}
-	b, err := maps.Render(m, "svg", 16*vg.Centimeter, 12*vg.Centimeter)
+	b, err := figure.Render(m, "svg", 16*vg.Centimeter, 12*vg.Centimeter)
 	fmt.Println(err == nil, bytes.Contains(b, []byte("W-2")), m.Skipped(), m.ColorLimit())
 	// Output: true true 1 1
 }
 
 // A depth profile with the default near-equilibrium band of ±0.5.
 func ExampleDepthProfile() {
-	p := maps.DepthProfile{
+	p := figure.DepthProfile{
 		Title: "Barite with depth (invented data)",
-		Panels: []maps.ProfilePanel{{Mineral: "Barite", Lines: []maps.ProfileLine{
+		Panels: []figure.ProfilePanel{{Mineral: "Barite", Lines: []figure.ProfileLine{
 			{Label: "Nest A", Depth: []float64{10, 40, 80}, SI: []float64{-1.2, -0.1, 0.9}},
 		}}},
 	}
-	b, err := maps.Render(p, "pdf", 16*vg.Centimeter, 12*vg.Centimeter)
+	b, err := figure.Render(p, "pdf", 16*vg.Centimeter, 12*vg.Centimeter)
 	fmt.Println(err == nil, string(b[:4]))
 	// Output: true %PDF
 }
 
 // A figure with nothing to draw is an error, not a blank image.
 func ExampleBars() {
-	_, err := maps.Render(maps.Bars{Labels: []string{"Calcite"}, Values: []float64{math.NaN()}}, "png", 10*vg.Centimeter, 8*vg.Centimeter)
+	_, err := figure.Render(figure.Bars{Labels: []string{"Calcite"}, Values: []float64{math.NaN()}}, "png", 10*vg.Centimeter, 8*vg.Centimeter)
 	fmt.Println(err)
 	// Output: maps: no data to draw: bar chart "" has no finite value
 }
 
 // The colour of SI = 0 is the near-white neutral of the scale.
 func ExampleDiverging() {
-	d := maps.Diverging{Limit: 1.5}
+	d := figure.Diverging{Limit: 1.5}
 	fmt.Println(d.Color(0) == d.Neutral(), d.Color(-1.5) != d.Color(1.5))
 	// Output: true true
 }
 
 // Several maps on one page, two to a row.
 func ExamplePanels() {
-	a := maps.SIMap{Title: "Round 1", Wells: []maps.Well{{X: 0, Y: 0, SI: -0.3, Label: "W-1"}}}
-	b := maps.SIMap{Title: "Round 2", Wells: []maps.Well{{X: 0, Y: 0, SI: 0.6, Label: "W-1"}}}
-	out, err := maps.Render(maps.Panels([]maps.Figure{a, b}, 2), "png", 24*vg.Centimeter, 10*vg.Centimeter)
+	a := figure.SIMap{Title: "Round 1", Wells: []figure.Well{{X: 0, Y: 0, SI: -0.3, Label: "W-1"}}}
+	b := figure.SIMap{Title: "Round 2", Wells: []figure.Well{{X: 0, Y: 0, SI: 0.6, Label: "W-1"}}}
+	out, err := figure.Render(figure.Panels([]figure.Figure{a, b}, 2), "png", 24*vg.Centimeter, 10*vg.Centimeter)
 	fmt.Println(err == nil, len(out) > 0)
 	// Output: true true
 }

@@ -27,4 +27,4 @@
 //
 // The figures are for screening: they show computed saturation states, not
 // a design. Defer to local codes and licensed professionals.
-package maps
+package figure

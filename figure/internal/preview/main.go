@@ -15,7 +15,7 @@ import (
 	"os"
 	"path/filepath"
 
-	"gwsat/maps"
+	"gwsat.dev/gwsat/figure"
 
 	"gonum.org/v1/plot/vg"
 )
@@ -28,7 +28,7 @@ func main() {
 		os.Exit(1)
 	}
 	w, h := 16*vg.Centimeter, 12*vg.Centimeter
-	figs := map[string]maps.Figure{
+	figs := map[string]figure.Figure{
 		"simap":        DemoMap(),
 		"simap-deg":    DemoMapDegrees(),
 		"wellsonly":    DemoWellsOnly(),
@@ -37,7 +37,7 @@ func main() {
 		"mixing":       DemoMixing(),
 		"temperature":  DemoTemperature(),
 		"bars":         DemoBars(),
-		"panels":       maps.Panels([]maps.Figure{DemoMap(), DemoWellsOnly()}, 2),
+		"panels":       figure.Panels([]figure.Figure{DemoMap(), DemoWellsOnly()}, 2),
 		"piper":        DemoPiper(),
 	}
 	for name, f := range figs {
@@ -46,7 +46,7 @@ func main() {
 			if name == "piper" {
 				h = 14 * vg.Centimeter // the diagram is nearly as tall as wide
 			}
-			b, err := maps.Render(f, format, w, h)
+			b, err := figure.Render(f, format, w, h)
 			if err != nil {
 				fmt.Fprintf(os.Stderr, "%s.%s: %v\n", name, format, err)
 				os.Exit(1)
@@ -94,28 +94,28 @@ func field(x, y float64) float64 {
 	return v
 }
 
-func demoWells() []maps.Well {
+func demoWells() []figure.Well {
 	r := rand.New(rand.NewPCG(1, 2))
 	centres := [][2]float64{{500700, 4200800}, {501500, 4201350}, {501900, 4200500}}
-	var ws []maps.Well
+	var ws []figure.Well
 	n := 0
 	for ci, c := range centres {
 		for k := 0; k < 9; k++ {
 			n++
 			x := c[0] + r.NormFloat64()*180
 			y := c[1] + r.NormFloat64()*180
-			ws = append(ws, maps.Well{X: x, Y: y, SI: field(x, y) + r.NormFloat64()*0.05, Label: fmt.Sprintf("MW-%02d", n), Marker: maps.MarkerWell})
+			ws = append(ws, figure.Well{X: x, Y: y, SI: field(x, y) + r.NormFloat64()*0.05, Label: fmt.Sprintf("MW-%02d", n), Marker: figure.MarkerWell})
 			_ = ci
 		}
 	}
-	ws = append(ws, maps.Well{X: inj[0][0], Y: inj[0][1], SI: field(inj[0][0], inj[0][1]), Label: "INJ-1", Marker: maps.MarkerInjection})
-	ws = append(ws, maps.Well{X: inj[1][0], Y: inj[1][1], SI: field(inj[1][0], inj[1][1]), Label: "INJ-2", Marker: maps.MarkerInjection})
-	ws = append(ws, maps.Well{X: 500300, Y: 4201700, SI: math.NaN(), Label: "OB-1", Marker: maps.MarkerMonitoring})
+	ws = append(ws, figure.Well{X: inj[0][0], Y: inj[0][1], SI: field(inj[0][0], inj[0][1]), Label: "INJ-1", Marker: figure.MarkerInjection})
+	ws = append(ws, figure.Well{X: inj[1][0], Y: inj[1][1], SI: field(inj[1][0], inj[1][1]), Label: "INJ-2", Marker: figure.MarkerInjection})
+	ws = append(ws, figure.Well{X: 500300, Y: 4201700, SI: math.NaN(), Label: "OB-1", Marker: figure.MarkerMonitoring})
 	return ws
 }
 
-func DemoMap() maps.SIMap {
-	g := &maps.Grid{X0: 500000, Y0: 4200000, DX: 25, DY: 25, NX: 100, NY: 84}
+func DemoMap() figure.SIMap {
+	g := &figure.Grid{X0: 500000, Y0: 4200000, DX: 25, DY: 25, NX: 100, NY: 84}
 	g.Z = make([]float64, g.NX*g.NY)
 	g.Valid = make([]bool, g.NX*g.NY)
 	for j := 0; j < g.NY; j++ {
@@ -128,24 +128,24 @@ func DemoMap() maps.SIMap {
 			g.Valid[k] = dx*dx+dy*dy < 1
 		}
 	}
-	return maps.SIMap{
+	return figure.SIMap{
 		Title:   "Calcite saturation index, demo site (invented data)",
 		Caption: "Calcite; sampling round 2026-Q3; SI at the aquifer temperature 18 °C; Truesdell-Jones activities; ordinary kriging. Screening results, not a design.",
 		Grid:    g, Wells: demoWells(),
-		Features: []maps.Feature{
-			{Kind: maps.FeaturePolygon, Name: "site boundary", Coords: [][2]float64{{500100, 4200150}, {502350, 4200100}, {502400, 4201950}, {500150, 4201900}, {500100, 4200150}}},
-			{Kind: maps.FeatureLine, Name: "creek", Coords: [][2]float64{{500000, 4201500}, {500600, 4201600}, {501200, 4201900}, {501800, 4202050}}},
+		Features: []figure.Feature{
+			{Kind: figure.FeaturePolygon, Name: "site boundary", Coords: [][2]float64{{500100, 4200150}, {502350, 4200100}, {502400, 4201950}, {500150, 4201900}, {500100, 4200150}}},
+			{Kind: figure.FeatureLine, Name: "creek", Coords: [][2]float64{{500000, 4201500}, {500600, 4201600}, {501200, 4201900}, {501800, 4202050}}},
 		},
-		Units: maps.UnitsMetres, CVRMSE: 0.137, HasCV: true, NorthArrow: true, ScaleBar: true,
+		Units: figure.UnitsMetres, CVRMSE: 0.137, HasCV: true, NorthArrow: true, ScaleBar: true,
 	}
 }
 
-func DemoMapDegrees() maps.SIMap {
+func DemoMapDegrees() figure.SIMap {
 	m := DemoMap()
 	m.Title = "Barite saturation index (degrees, invented data)"
 	m.Grid = nil
 	m.Features = nil
-	m.Units = maps.UnitsDegrees
+	m.Units = figure.UnitsDegrees
 	for i := range m.Wells {
 		m.Wells[i].X = -3.0 + (m.Wells[i].X-500000)/80000
 		m.Wells[i].Y = 37.9 + (m.Wells[i].Y-4200000)/111000
@@ -153,7 +153,7 @@ func DemoMapDegrees() maps.SIMap {
 	return m
 }
 
-func DemoWellsOnly() maps.SIMap {
+func DemoWellsOnly() figure.SIMap {
 	m := DemoMap()
 	m.Title = "Gypsum SI at wells (no surface)"
 	m.Grid = nil
@@ -164,28 +164,28 @@ func DemoWellsOnly() maps.SIMap {
 	return m
 }
 
-func DemoProfile() maps.DepthProfile {
-	mk := func(label string, off float64, deep float64) maps.ProfileLine {
+func DemoProfile() figure.DepthProfile {
+	mk := func(label string, off float64, deep float64) figure.ProfileLine {
 		var d, s []float64
 		for z := 10.0; z <= 150; z += 20 {
 			d = append(d, z)
 			s = append(s, -1.5+off+deep*(1/(1+math.Exp(-(z-90)/12))))
 		}
-		return maps.ProfileLine{Label: label, Depth: d, SI: s}
+		return figure.ProfileLine{Label: label, Depth: d, SI: s}
 	}
-	return maps.DepthProfile{
+	return figure.DepthProfile{
 		Title:   "Saturation index with depth, three well nests (invented data)",
 		Caption: "Round 2026-Q3; in-situ temperature; Truesdell-Jones activities. Grey band: near equilibrium (±0.5, common practice). Screening results, not a design.",
-		Panels: []maps.ProfilePanel{
-			{Mineral: "Calcite", Lines: []maps.ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
-			{Mineral: "Gypsum", Lines: []maps.ProfileLine{mk("Nest A", 0.1, 0.5), mk("Nest B", 0.0, 0.7), mk("Nest C", 0.3, 0.4)}},
-			{Mineral: "Barite", Lines: []maps.ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
+		Panels: []figure.ProfilePanel{
+			{Mineral: "Calcite", Lines: []figure.ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
+			{Mineral: "Gypsum", Lines: []figure.ProfileLine{mk("Nest A", 0.1, 0.5), mk("Nest B", 0.0, 0.7), mk("Nest C", 0.3, 0.4)}},
+			{Mineral: "Barite", Lines: []figure.ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
 		},
 	}
 }
 
-func DemoMixing() maps.Curves {
-	var ss []maps.Series
+func DemoMixing() figure.Curves {
+	var ss []figure.Series
 	for i, m := range []struct {
 		name    string
 		a, b, c float64
@@ -195,17 +195,17 @@ func DemoMixing() maps.Curves {
 			x = append(x, f)
 			y = append(y, m.a+m.b*f+m.c*f*f+0.0*float64(i))
 		}
-		ss = append(ss, maps.Series{Name: m.name, X: x, Y: y})
+		ss = append(ss, figure.Series{Name: m.name, X: x, Y: y})
 	}
-	return maps.Curves{
+	return figure.Curves{
 		Title: "Mixing injectate with native water at 18 °C (invented data)", XLabel: "Fraction of injectate (by mass of water)", YLabel: "Saturation index (log IAP/K)",
 		Caption: "Each curve's maximum marked. Screening results, not a design; defer to local codes and licensed professionals.",
 		Series:  ss, ZeroLine: true, AnnotateMax: true,
 	}
 }
 
-func DemoTemperature() maps.Curves {
-	var ss []maps.Series
+func DemoTemperature() figure.Curves {
+	var ss []figure.Series
 	for _, m := range []struct {
 		name string
 		a, b float64
@@ -215,13 +215,13 @@ func DemoTemperature() maps.Curves {
 			x = append(x, t)
 			y = append(y, m.a+m.b*(t-10))
 		}
-		ss = append(ss, maps.Series{Name: m.name, X: x, Y: y})
+		ss = append(ss, figure.Series{Name: m.name, X: x, Y: y})
 	}
-	return maps.Curves{Title: "Heating the injectate (invented data)", XLabel: "Temperature (°C)", YLabel: "Saturation index (log IAP/K)", Series: ss, ZeroLine: true}
+	return figure.Curves{Title: "Heating the injectate (invented data)", XLabel: "Temperature (°C)", YLabel: "Saturation index (log IAP/K)", Series: ss, ZeroLine: true}
 }
 
-func DemoBars() maps.Bars {
-	return maps.Bars{
+func DemoBars() figure.Bars {
+	return figure.Bars{
 		Title: "Precipitation potential per mineral (invented data)", YLabel: "Precipitate (mg/L)",
 		Caption:     "Upper bound: no kinetics, all supersaturation removed. Screening results, not a design.",
 		Labels:      []string{"Calcite", "Gypsum", "Barite", "Celestite", "Siderite"},
@@ -231,7 +231,7 @@ func DemoBars() maps.Bars {
 	}
 }
 
-func DemoProfileElevation() maps.DepthProfile {
+func DemoProfileElevation() figure.DepthProfile {
 	d := DemoProfile()
 	d.Elevation = true
 	for _, p := range d.Panels {
@@ -249,17 +249,17 @@ func DemoProfileElevation() maps.DepthProfile {
 // meq/L) with scatter around each, and monitoring samples that are exact
 // mixtures of the two mean waters, so that they fall on straight lines in
 // all three fields of the diagram.
-func DemoPiper() maps.Piper {
-	fresh := maps.PiperPoint{Ca: 2.5, Mg: 0.8, Na: 0.5, K: 0.05, HCO3: 3.0, SO4: 0.4, Cl: 0.45}
-	brack := maps.PiperPoint{Ca: 2, Mg: 2.5, Na: 10, K: 0.3, Cl: 10, SO4: 3.8, HCO3: 1}
+func DemoPiper() figure.Piper {
+	fresh := figure.PiperPoint{Ca: 2.5, Mg: 0.8, Na: 0.5, K: 0.05, HCO3: 3.0, SO4: 0.4, Cl: 0.45}
+	brack := figure.PiperPoint{Ca: 2, Mg: 2.5, Na: 10, K: 0.3, Cl: 10, SO4: 3.8, HCO3: 1}
 	r := rand.New(rand.NewPCG(3, 4))
-	jitter := func(p maps.PiperPoint, rel float64) maps.PiperPoint {
+	jitter := func(p figure.PiperPoint, rel float64) figure.PiperPoint {
 		for _, v := range []*float64{&p.Ca, &p.Mg, &p.Na, &p.K, &p.Cl, &p.SO4, &p.HCO3} {
 			*v *= math.Exp(r.NormFloat64() * rel)
 		}
 		return p
 	}
-	var pts []maps.PiperPoint
+	var pts []figure.PiperPoint
 	for i := 0; i < 10; i++ {
 		p := jitter(fresh, 0.12)
 		p.Label, p.Group = fmt.Sprintf("INJ-%02d", i+1), "injectate"
@@ -273,13 +273,13 @@ func DemoPiper() maps.Piper {
 	for i := 1; i <= 19; i++ {
 		f := float64(i) / 20 // fraction of injectate
 		mix := func(a, b float64) float64 { return f*a + (1-f)*b }
-		pts = append(pts, maps.PiperPoint{
+		pts = append(pts, figure.PiperPoint{
 			Label: fmt.Sprintf("MW-%02d", i), Group: "monitoring (mixture)",
 			Ca: mix(fresh.Ca, brack.Ca), Mg: mix(fresh.Mg, brack.Mg), Na: mix(fresh.Na, brack.Na), K: mix(fresh.K, brack.K),
 			Cl: mix(fresh.Cl, brack.Cl), SO4: mix(fresh.SO4, brack.SO4), HCO3: mix(fresh.HCO3, brack.HCO3),
 		})
 	}
-	return maps.Piper{
+	return figure.Piper{
 		Title:   "Piper diagram, injectate, native water and monitoring wells (invented data)",
 		Caption: "Invented demo data: monitoring samples are mixtures of the two end members in steps of 5 %. Screening results, not a design; defer to local codes and licensed professionals.",
 		Points:  pts,
