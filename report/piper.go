@@ -8,8 +8,8 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/hydro"
 )
 
 // groupOf names the Piper group of a sample: its sample type (a "Sample

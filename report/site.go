@@ -11,9 +11,9 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
-	"gwsat.dev/gwsat/figure"
 )
 
 // Position returns a sample's position in WGS84 longitude and latitude:

@@ -7,7 +7,6 @@ import (
 	"strconv"
 	"strings"
 	"sync"
-
 )
 
 // Sentinel errors of the data reader. Errors returned by ParseDatabase wrap one of

@@ -3,7 +3,6 @@ package speciation
 import (
 	"errors"
 	"testing"
-
 )
 
 // FuzzParseDatabase: any text either parses or is rejected with a *DataError; never a

@@ -5,7 +5,6 @@ import (
 	"math"
 	"strings"
 	"testing"
-
 )
 
 func mustDefault(t testing.TB) *Database {

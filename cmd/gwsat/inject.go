@@ -12,8 +12,8 @@ import (
 	"strings"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/speciation"
 	"gwsat.dev/gwsat/speciation/reaction"

@@ -14,11 +14,11 @@ import (
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/data"
+	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/internal/atomicfile"
 	"gwsat.dev/gwsat/internal/progress"
-	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/report"
 )
 
