@@ -15,9 +15,9 @@ import (
 // size in pixels: 16 cm x 12 cm at 300 dpi.
 func ExampleRender() {
 	fig := figure.Curves{
-		Title:  "Calcite on mixing (invented data)",
+		Title:  "calcite on mixing (invented data)",
 		XLabel: "Fraction of injectate", YLabel: "Saturation index",
-		Series:   []figure.Series{{Name: "Calcite", X: []float64{0, 0.5, 1}, Y: []float64{-0.4, 0.3, 0.1}}},
+		Series:   []figure.Series{{Name: "calcite", X: []float64{0, 0.5, 1}, Y: []float64{-0.4, 0.3, 0.1}}},
 		ZeroLine: true, AnnotateMax: true,
 	}
 	b, err := figure.Render(fig, "png", 16*vg.Centimeter, 12*vg.Centimeter)
@@ -38,7 +38,7 @@ func ExampleRender() {
 // coordinate is left out and counted.
 func ExampleSIMap() {
 	m := figure.SIMap{
-		Title: "Gypsum SI at wells (invented data)",
+		Title: "gypsum SI at wells (invented data)",
 		Wells: []figure.Well{
 			{X: 1000, Y: 2000, SI: -0.8, Label: "W-1"},
 			{X: 1400, Y: 2300, SI: 0.4, Label: "W-2", Marker: figure.MarkerInjection},
@@ -54,8 +54,8 @@ func ExampleSIMap() {
 // A depth profile with the default near-equilibrium band of ±0.5.
 func ExampleDepthProfile() {
 	p := figure.DepthProfile{
-		Title: "Barite with depth (invented data)",
-		Panels: []figure.ProfilePanel{{Mineral: "Barite", Lines: []figure.ProfileLine{
+		Title: "baryte with depth (invented data)",
+		Panels: []figure.ProfilePanel{{Mineral: "baryte", Lines: []figure.ProfileLine{
 			{Label: "Nest A", Depth: []float64{10, 40, 80}, SI: []float64{-1.2, -0.1, 0.9}},
 		}}},
 	}
@@ -66,7 +66,7 @@ func ExampleDepthProfile() {
 
 // A figure with nothing to draw is an error, not a blank image.
 func ExampleBars() {
-	_, err := figure.Render(figure.Bars{Labels: []string{"Calcite"}, Values: []float64{math.NaN()}}, "png", 10*vg.Centimeter, 8*vg.Centimeter)
+	_, err := figure.Render(figure.Bars{Labels: []string{"calcite"}, Values: []float64{math.NaN()}}, "png", 10*vg.Centimeter, 8*vg.Centimeter)
 	fmt.Println(err)
 	// Output: maps: no data to draw: bar chart "" has no finite value
 }

@@ -63,8 +63,8 @@ func testGrid() *Grid {
 
 func testMap() SIMap {
 	return SIMap{
-		Title:   "Calcite SI (invented data)",
-		Caption: "Calcite; round 1; 18 °C; Truesdell-Jones. Screening results, not a design.",
+		Title:   "calcite SI (invented data)",
+		Caption: "calcite; round 1; 18 °C; Truesdell-Jones. Screening results, not a design.",
 		Grid:    testGrid(),
 		Wells:   testWells(1),
 		Features: []Feature{
@@ -88,8 +88,8 @@ func testProfile() DepthProfile {
 	return DepthProfile{
 		Title: "SI with depth (invented data)",
 		Panels: []ProfilePanel{
-			{Mineral: "Calcite", Lines: []ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
-			{Mineral: "Barite", Lines: []ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
+			{Mineral: "calcite", Lines: []ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
+			{Mineral: "baryte", Lines: []ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
 		},
 	}
 }
@@ -99,7 +99,7 @@ func testCurves() Curves {
 	for _, m := range []struct {
 		name    string
 		a, b, c float64
-	}{{"Calcite", 0.3, 1.2, -0.9}, {"Gypsum", -1.2, 0.9, -0.2}, {"Barite", -0.5, 3.4, -3.0}} {
+	}{{"calcite", 0.3, 1.2, -0.9}, {"gypsum", -1.2, 0.9, -0.2}, {"baryte", -0.5, 3.4, -3.0}} {
 		var x, y []float64
 		for f := 0.0; f <= 1.0001; f += 0.05 {
 			x = append(x, f)
@@ -113,7 +113,7 @@ func testCurves() Curves {
 func testBars() Bars {
 	return Bars{
 		Title: "Precipitation potential (invented data)", YLabel: "mg/L",
-		Labels: []string{"Calcite", "Gypsum", "Barite"}, Values: []float64{42.3, 0, 3.1},
+		Labels: []string{"calcite", "gypsum", "baryte"}, Values: []float64{42.3, 0, 3.1},
 		Secondary: []float64{35, 0, 2.9}, PrimaryName: "alone", SecondaryName: "together",
 	}
 }

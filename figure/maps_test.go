@@ -105,10 +105,10 @@ func TestRenderSVG(t *testing.T) {
 		fig   Figure
 		texts []string
 	}{
-		{"simap", testMap(), []string{"Calcite SI (invented data)", DefaultColorLabel, "undersaturated", "supersaturated", "Easting (m)", "Northing (m)", "INJ-1", "N"}},
-		{"profile", testProfile(), []string{"Depth (m)", "Nest A", "Calcite", "Barite"}},
-		{"curves", testCurves(), []string{"Fraction of injectate", "Gypsum", "SI = 0 (equilibrium)"}},
-		{"bars", testBars(), []string{"Calcite", "42.3", "together"}},
+		{"simap", testMap(), []string{"calcite SI (invented data)", DefaultColorLabel, "undersaturated", "supersaturated", "Easting (m)", "Northing (m)", "INJ-1", "N"}},
+		{"profile", testProfile(), []string{"Depth (m)", "Nest A", "calcite", "baryte"}},
+		{"curves", testCurves(), []string{"Fraction of injectate", "gypsum", "SI = 0 (equilibrium)"}},
+		{"bars", testBars(), []string{"calcite", "42.3", "together"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

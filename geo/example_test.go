@@ -112,14 +112,14 @@ func ExampleInterpolateKriging() {
 func ExampleWriteSamples() {
 	err := geo.WriteSamples(os.Stdout, []geo.PointFeature{
 		{ID: "MW-1", Point: orb.Point{-101.15012345, 31.9000049}, Props: []geo.Prop{
-			{Key: "qa", Value: "ok"}, {Key: "si_calcite", Value: 0.42}, {Key: "depth_m", Value: 12.5}}},
+			{Key: "qa", Value: "ok"}, {Key: "calcite_si", Value: 0.42}, {Key: "depth_m", Value: 12.5}}},
 	})
 	if err != nil {
 		fmt.Println(err)
 	}
 	// Output:
 	// {"type":"FeatureCollection","features":[
-	// {"type":"Feature","id":"MW-1","geometry":{"type":"Point","coordinates":[-101.150123,31.900005]},"properties":{"qa":"ok","si_calcite":0.42,"depth_m":12.5}}
+	// {"type":"Feature","id":"MW-1","geometry":{"type":"Point","coordinates":[-101.150123,31.900005]},"properties":{"qa":"ok","calcite_si":0.42,"depth_m":12.5}}
 	// ]}
 }
 

@@ -19,10 +19,10 @@ func TestWriteSamplesRoundTrip(t *testing.T) {
 	si := -0.4321
 	in := []PointFeature{
 		{ID: "MW-1", Point: orb.Point{-101.123456789, 31.987654321}, Props: []Prop{
-			{"well", "MW-1"}, {"qa", "ok"}, {"si_calcite", 0.52}, {"depth_m", 12.5}, {"si_gypsum", &si},
+			{"well", "MW-1"}, {"qa", "ok"}, {"calcite_si", 0.52}, {"depth_m", 12.5}, {"gypsum_si", &si},
 		}},
 		{ID: "MW-2", Point: orb.Point{-101.2, 31.9}, Props: []Prop{
-			{"well", "MW-2"}, {"qa", "warning"}, {"si_calcite", math.NaN()}, {"note", `quote " and <tag>`},
+			{"well", "MW-2"}, {"qa", "warning"}, {"calcite_si", math.NaN()}, {"note", `quote " and <tag>`},
 		}},
 		{Point: orb.Point{0, 0}, Props: []Prop{{"well", "MW-3"}, {"qa", "rejected"}}},
 	}
@@ -48,10 +48,10 @@ func TestWriteSamplesRoundTrip(t *testing.T) {
 		t.Errorf("id %v", fc.Features[0].ID)
 	}
 	pr := fc.Features[0].Properties
-	if pr["qa"] != "ok" || pr["si_calcite"] != 0.52 || pr["depth_m"] != 12.5 || pr["si_gypsum"] != -0.4321 {
+	if pr["qa"] != "ok" || pr["calcite_si"] != 0.52 || pr["depth_m"] != 12.5 || pr["gypsum_si"] != -0.4321 {
 		t.Errorf("properties %v", pr)
 	}
-	if v, ok := fc.Features[1].Properties["si_calcite"]; !ok || v != nil {
+	if v, ok := fc.Features[1].Properties["calcite_si"]; !ok || v != nil {
 		t.Errorf("NaN property decoded as %v (present %v), want null", v, ok)
 	}
 	if fc.Features[1].Properties["note"] != `quote " and <tag>` {
@@ -62,7 +62,7 @@ func TestWriteSamplesRoundTrip(t *testing.T) {
 	}
 	// Property order is the caller's order.
 	s := buf.String()
-	if !(strings.Index(s, `"well"`) < strings.Index(s, `"qa"`) && strings.Index(s, `"qa"`) < strings.Index(s, `"si_calcite"`) && strings.Index(s, `"si_calcite"`) < strings.Index(s, `"depth_m"`)) {
+	if !(strings.Index(s, `"well"`) < strings.Index(s, `"qa"`) && strings.Index(s, `"qa"`) < strings.Index(s, `"calcite_si"`) && strings.Index(s, `"calcite_si"`) < strings.Index(s, `"depth_m"`)) {
 		t.Errorf("properties not in given order:\n%s", s)
 	}
 	if !json.Valid(buf.Bytes()) || strings.Contains(s, "NaN") {

@@ -19,14 +19,14 @@ const (
 const densityPerTDS = 7.0e-7
 
 // Water is a sample converted for speciation: totals in mol per kilogram of
-// water keyed by component name ("Ca+2", "SO4-2", "H4SiO4", ...), and
+// water keyed by component name ("Ca2+", "SO4 2-", "H4SiO4", ...), and
 // alkalinity in equivalents per kilogram of water.
 //
 // Alkalinity convention: AlkalinityEqKgw is the total (titration)
 // alkalinity in eq/kgw. It comes from a reported alkalinity (as CaCO3,
 // as HCO3 or in meq/L), or, when none was reported, from the HCO3 and CO3
 // ions as HCO3 + 2 CO3 (each mole of carbonate takes two protons to the
-// end point). "CO3-2" in Molal holds total inorganic carbon, and only when
+// end point). "CO3 2-" in Molal holds total inorganic carbon, and only when
 // TIC itself was measured.
 type Water struct {
 	TempC           float64
@@ -118,7 +118,7 @@ func (s *Sample) Water() (Water, []Issue) {
 		a := analytes[k]
 		comp := a.Component
 		if k == "TIC" {
-			comp = "CO3-2"
+			comp = "CO3 2-"
 		}
 		if comp == "" && k != "Alk" && k != "HCO3" && k != "CO3" {
 			issues = append(issues, Issue{Severity: Info, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})

@@ -47,7 +47,7 @@ func TestWaterMolality(t *testing.T) {
 			density: 1, source: DensityMeasured, kgw: 1, molCl: 0.001, alk: 0.002, hasAlk: true,
 		},
 		{
-			// TIC 12.011 mg/L as C = 1 mmol/L, reported under "CO3-2".
+			// TIC 12.011 mg/L as C = 1 mmol/L, reported under "CO3 2-".
 			name: "TIC", csv: "Sample,Cl,TIC,Density,TDS\nA,35.45,12.011,1,0\n",
 			density: 1, source: DensityMeasured, kgw: 1, molCl: 0.001, tic: 0.001,
 		},
@@ -65,8 +65,8 @@ func TestWaterMolality(t *testing.T) {
 			if w.HasAlkalinity != tt.hasAlk || !scalar.EqualWithinRel(w.AlkalinityEqKgw, tt.alk, 1e-12) {
 				t.Errorf("alkalinity %v %v, want %v %v", w.AlkalinityEqKgw, w.HasAlkalinity, tt.alk, tt.hasAlk)
 			}
-			if !scalar.EqualWithinRel(w.Molal["CO3-2"], tt.tic, 1e-12) {
-				t.Errorf("CO3-2 %v, want %v", w.Molal["CO3-2"], tt.tic)
+			if !scalar.EqualWithinRel(w.Molal["CO3 2-"], tt.tic, 1e-12) {
+				t.Errorf("CO3 2- %v, want %v", w.Molal["CO3 2-"], tt.tic)
 			}
 			if w.HasTemp != tt.hasT || w.TempC != tt.tempC || w.HasPH != tt.hasP || w.PH != tt.ph {
 				t.Errorf("T %v %v pH %v %v", w.TempC, w.HasTemp, w.PH, w.HasPH)
@@ -79,7 +79,7 @@ func TestWaterMolality(t *testing.T) {
 func TestWaterComponents(t *testing.T) {
 	b := mustRead(t, "Sample,Ca,Mg,Na,K,Sr,Ba,Fe,Mn,Cl,SO4,F,SiO2,NO3,Br,Li,Alk\nA,1,1,1,1,1,1,1,1,1,1,1,1,1,1,1,50\n", Options{})
 	w, issues := b.Rows[0].Sample.Water()
-	want := []string{"Ca+2", "Mg+2", "Na+", "K+", "Sr+2", "Ba+2", "Fe+2", "Mn+2", "Cl-", "SO4-2", "F-", "H4SiO4", "NO3-", "Br-"}
+	want := []string{"Ca2+", "Mg2+", "Na+", "K+", "Sr2+", "Ba2+", "Fe2+", "Mn2+", "Cl-", "SO4 2-", "F-", "H4SiO4", "NO3-", "Br-"}
 	if len(w.Molal) != len(want) {
 		t.Errorf("components %v", w.Molal)
 	}
@@ -114,7 +114,7 @@ func TestWaterBicarbonateIsAlkalinity(t *testing.T) {
 	b := mustRead(t, "Sample,Ca,Cl,HCO3,CO3,Density\nA,40.078,35.453,61.016,60.008,1.0\n", Options{})
 	w, _ := b.Rows[0].Sample.Water()
 	for k := range w.Molal {
-		if k == "" || k == "CO3-2" {
+		if k == "" || k == "CO3 2-" {
 			t.Errorf("unexpected component %q in %v", k, w.Molal)
 		}
 	}

@@ -15,11 +15,10 @@ import (
 )
 
 // ColumnName returns the table column of a mineral's saturation index:
-// "si_" and the lower-case name with non-alphanumerics as underscores
-// ("SiO2(am)" becomes "si_sio2_am").
+// the lower-case name with non-alphanumerics as underscores, then "_si"
+// ("amorphous silica" becomes "amorphous_silica_si").
 func ColumnName(mineral string) string {
 	var b strings.Builder
-	b.WriteString("si_")
 	under := false
 	for _, r := range strings.ToLower(mineral) {
 		if unicode.IsLetter(r) || unicode.IsDigit(r) {
@@ -30,13 +29,13 @@ func ColumnName(mineral string) string {
 			under = true
 		}
 	}
-	return strings.TrimRight(b.String(), "_")
+	return strings.TrimRight(b.String(), "_") + "_si"
 }
 
 // SolidMinerals lists the minerals (not gases) of a database, in file order.
 func SolidMinerals(db *speciation.Database) []string {
 	var out []string
-	for _, m := range db.Minerals {
+	for _, m := range db.Minerals() {
 		if !m.Gas {
 			out = append(out, m.Name)
 		}

@@ -393,7 +393,7 @@ func wellLabel(s *hydro.Sample) string {
 }
 
 func slug(s string) string {
-	return strings.TrimPrefix(ColumnName(s), "si_")
+	return strings.TrimSuffix(ColumnName(s), "_si")
 }
 
 // clusterOf returns the well cluster of a sample: the value of the named

@@ -80,7 +80,7 @@ func TestCommonPrefix(t *testing.T) {
 }
 
 func TestColumnName(t *testing.T) {
-	for in, want := range map[string]string{"Calcite": "si_calcite", "SiO2(am)": "si_sio2_am", "CO2(g)": "si_co2_g"} {
+	for in, want := range map[string]string{"calcite": "calcite_si", "amorphous silica": "amorphous_silica_si", "CO2(g)": "co2_g_si"} {
 		if got := ColumnName(in); got != want {
 			t.Errorf("ColumnName(%q) = %q, want %q", in, got, want)
 		}

@@ -41,7 +41,7 @@ func TestNumNeverPrintsNaN(t *testing.T) {
 }
 
 func TestTableRoundTrip(t *testing.T) {
-	tb := Table{Header: []string{"sample_id", "si_calcite"}}
+	tb := Table{Header: []string{"sample_id", "calcite_si"}}
 	tb.Add(Text("=cmd"), Num(-0.25, 2))
 	var buf bytes.Buffer
 	if err := tb.WriteCSV(&buf); err != nil {

@@ -65,7 +65,7 @@ type ActivityState struct {
 	IonSize  []float64 // angstrom
 	TJB      []float64 // Truesdell-Jones b, kg/mol
 	Molality []float64 // current molalities (for composition-dependent models)
-	Species  []int     // index of each entry in DB.Species
+	Species  []int     // index of each entry in DB.species
 	DB       *Database
 }
 

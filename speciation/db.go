@@ -137,52 +137,104 @@ func (m *Mineral) MolarVolume() float64 {
 // Database is a parsed thermodynamic data set. It is read-only once built and safe
 // for concurrent use.
 type Database struct {
-	Components []Component
-	Species    []Species // the free ion of each non-solvent component comes first, in component order
-	Minerals   []Mineral // minerals and gases, in file order
+	components []Component
+	species    []Species // the free ion of each non-solvent component comes first, in component order
+	minerals   []Mineral // minerals and gases, in file order
 
 	compIndex    map[string]int
 	speciesIndex map[string]int
 	mineralIndex map[string]int
 	water        int // index of H2O
 	hplus        int // index of H+
-	carbonate    int // index of CO3-2 or -1
+	carbonate    int // index of CO3 2- or -1
 	co2gas       int // index of CO2(g) in Minerals or -1
 	calcite      int
 	hco3         int // species index of HCO3- or -1
 	co3          int
 }
 
-// ComponentIndex returns the index of the named component, or -1.
+// ComponentIndex returns the index of the named component, or -1. Names are matched
+// after CanonicalName, so "Ca+2" and "SO4^2-" find Ca2+ and SO4 2-.
 func (db *Database) ComponentIndex(name string) int {
 	if i, ok := db.compIndex[name]; ok {
 		return i
 	}
-	return -1
-}
-
-// SpeciesIndex returns the index of the named species, or -1.
-func (db *Database) SpeciesIndex(name string) int {
-	if i, ok := db.speciesIndex[name]; ok {
+	if i, ok := db.compIndex[CanonicalName(name)]; ok {
 		return i
 	}
 	return -1
 }
 
-// Mineral returns the named mineral or gas, or nil.
-func (db *Database) Mineral(name string) *Mineral {
-	if i, ok := db.mineralIndex[name]; ok {
-		return &db.Minerals[i]
+// SpeciesIndex returns the index of the named species, or -1 (names matched as in
+// ComponentIndex).
+func (db *Database) SpeciesIndex(name string) int {
+	if i, ok := db.speciesIndex[name]; ok {
+		return i
 	}
-	return nil
+	if i, ok := db.speciesIndex[CanonicalName(name)]; ok {
+		return i
+	}
+	return -1
 }
+
+// MineralIndex returns the index of the named mineral or gas, or -1. Mineral names
+// are matched without regard to case, spaces, hyphens, underscores and parentheses,
+// and the alternative names of MineralAliases are accepted.
+func (db *Database) MineralIndex(name string) int {
+	if i, ok := db.mineralIndex[name]; ok {
+		return i
+	}
+	if i, ok := db.mineralIndex[mineralKey(name)]; ok {
+		return i
+	}
+	return -1
+}
+
+// Mineral returns a copy of the named mineral or gas, or nil (names matched as in
+// MineralIndex).
+func (db *Database) Mineral(name string) *Mineral {
+	i := db.MineralIndex(name)
+	if i < 0 {
+		return nil
+	}
+	m := db.minerals[i].clone()
+	return &m
+}
+
+// Components returns a copy of the components, in data-file order.
+func (db *Database) Components() []Component { return append([]Component(nil), db.components...) }
+
+// Component returns a copy of component i (i from ComponentIndex).
+func (db *Database) Component(i int) Component { return db.components[i] }
+
+// Species returns a copy of the aqueous species: the free ion of each non-solvent
+// component first, in component order, then the others in data-file order.
+func (db *Database) Species() []Species {
+	out := make([]Species, len(db.species))
+	for i := range db.species {
+		out[i] = db.species[i].clone()
+	}
+	return out
+}
+
+// Minerals returns a copy of the minerals and gases, in data-file order.
+func (db *Database) Minerals() []Mineral {
+	out := make([]Mineral, len(db.minerals))
+	for i := range db.minerals {
+		out[i] = db.minerals[i].clone()
+	}
+	return out
+}
+
+func (s Species) clone() Species { s.Terms = append([]Term(nil), s.Terms...); return s }
+func (m Mineral) clone() Mineral { m.Terms = append([]Term(nil), m.Terms...); return m }
 
 // MineralNames returns the names of the minerals (gases excluded) in data-file order.
 func (db *Database) MineralNames() []string {
-	out := make([]string, 0, len(db.Minerals))
-	for i := range db.Minerals {
-		if !db.Minerals[i].Gas {
-			out = append(out, db.Minerals[i].Name)
+	out := make([]string, 0, len(db.minerals))
+	for i := range db.minerals {
+		if !db.minerals[i].Gas {
+			out = append(out, db.minerals[i].Name)
 		}
 	}
 	return out
@@ -192,8 +244,9 @@ func (db *Database) MineralNames() []string {
 const (
 	NameH2O       = "H2O"
 	NameHPlus     = "H+"
-	NameCarbonate = "CO3-2"
+	NameCarbonate = "CO3 2-"
 	NameCO2Gas    = "CO2(g)"
+	NameCalcite   = "calcite"
 )
 
 var (
@@ -258,8 +311,8 @@ func ParseDatabase(text string) (*Database, error) {
 		if c.Alkalinity, err = e.number("alkalinity", false); err != nil {
 			return nil, err
 		}
-		db.compIndex[c.Name] = len(db.Components)
-		db.Components = append(db.Components, c)
+		db.compIndex[c.Name] = len(db.components)
+		db.components = append(db.components, c)
 	}
 	var ok bool
 	if db.water, ok = db.compIndex[NameH2O]; !ok {
@@ -277,14 +330,14 @@ func ParseDatabase(text string) (*Database, error) {
 			continue
 		}
 		ci := db.compIndex[e.name]
-		s := Species{Name: e.name, Charge: db.Components[ci].Charge, Master: ci,
+		s := Species{Name: e.name, Charge: db.components[ci].Charge, Master: ci,
 			Terms: []Term{{Component: e.name, Index: ci, Nu: 1}}, Reaction: e.name,
 			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition"}
 		if err := e.ionParams(&s); err != nil {
 			return nil, err
 		}
-		db.speciesIndex[s.Name] = len(db.Species)
-		db.Species = append(db.Species, s)
+		db.speciesIndex[s.Name] = len(db.species)
+		db.species = append(db.species, s)
 	}
 	// Species and phases, in file order (a reaction may use species defined earlier).
 	for _, e := range entries {
@@ -310,8 +363,8 @@ func ParseDatabase(text string) (*Database, error) {
 			if err := db.checkCharge(e, terms, s.Charge); err != nil {
 				return nil, err
 			}
-			db.speciesIndex[s.Name] = len(db.Species)
-			db.Species = append(db.Species, s)
+			db.speciesIndex[s.Name] = len(db.species)
+			db.species = append(db.species, s)
 		case "mineral", "gas":
 			m := Mineral{Name: e.name, Line: e.line, Gas: e.kind == "gas"}
 			terms, fn, logk25, note, err := db.reaction(e, -1)
@@ -335,18 +388,24 @@ func ParseDatabase(text string) (*Database, error) {
 			if err := db.checkCharge(e, terms, 0); err != nil {
 				return nil, err
 			}
-			if _, dup := db.mineralIndex[m.Name]; dup {
+			if _, dup := db.mineralIndex[mineralKey(m.Name)]; dup {
 				return nil, &DataError{Line: e.line, Entry: e.kind + " " + e.name, Err: ErrDuplicateEntry}
 			}
-			db.mineralIndex[m.Name] = len(db.Minerals)
-			db.Minerals = append(db.Minerals, m)
+			db.mineralIndex[m.Name] = len(db.minerals)
+			db.mineralIndex[mineralKey(m.Name)] = len(db.minerals)
+			db.minerals = append(db.minerals, m)
 		}
 	}
-	if i, ok := db.mineralIndex[NameCO2Gas]; ok && db.Minerals[i].Gas {
+	if i, ok := db.mineralIndex[NameCO2Gas]; ok && db.minerals[i].Gas {
 		db.co2gas = i
 	}
-	if i, ok := db.mineralIndex["Calcite"]; ok {
-		db.calcite = i
+	db.calcite = db.MineralIndex(NameCalcite)
+	for alias, name := range mineralAliases {
+		if i, ok := db.mineralIndex[mineralKey(name)]; ok {
+			if _, taken := db.mineralIndex[mineralKey(alias)]; !taken {
+				db.mineralIndex[mineralKey(alias)] = i
+			}
+		}
 	}
 	db.hco3 = db.SpeciesIndex("HCO3-")
 	db.co3 = db.SpeciesIndex(NameCarbonate)
@@ -400,7 +459,7 @@ func (e *rawEntry) ionParams(s *Species) error {
 func (db *Database) checkCharge(e *rawEntry, terms []Term, want float64) error {
 	z := 0.0
 	for _, t := range terms {
-		z += t.Nu * db.Components[t.Index].Charge
+		z += t.Nu * db.components[t.Index].Charge
 	}
 	if math.Abs(z-want) > 1e-9 {
 		return e.errf("reaction", "%w: reaction gives %g, entry has %g", ErrChargeImbalance, z, want)
@@ -490,7 +549,7 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 		if !ok {
 			return nil, fn, 0, "", e.errf("reaction", "%w: %q", ErrUnknownComponent, t.Component)
 		}
-		sp := &db.Species[si]
+		sp := &db.species[si]
 		for _, st := range sp.Terms {
 			addComp(st.Index, t.Nu*st.Nu)
 		}
@@ -499,7 +558,7 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 	terms := make([]Term, 0, len(order))
 	for _, ci := range order {
 		if nu := acc[ci]; nu != 0 {
-			terms = append(terms, Term{Component: db.Components[ci].Name, Index: ci, Nu: nu})
+			terms = append(terms, Term{Component: db.components[ci].Name, Index: ci, Nu: nu})
 		}
 	}
 	if len(terms) == 0 {
@@ -543,7 +602,12 @@ func parseReaction(s string) ([]Term, error) {
 		if t == "+" || t == "-" {
 			return nil, fmt.Errorf("%w: operator %q where a term was expected", ErrSyntax, t)
 		}
-		out = append(out, Term{Component: t, Nu: sign * coef})
+		// A name runs to the next operator: "SO4 2-" is one name.
+		for i+1 < len(tok) && tok[i+1] != "+" && tok[i+1] != "-" {
+			i++
+			t += " " + tok[i]
+		}
+		out = append(out, Term{Component: CanonicalName(t), Nu: sign * coef})
 		expectTerm = false
 	}
 	if expectTerm {
@@ -569,10 +633,11 @@ func splitEntries(text string) ([]*rawEntry, error) {
 				return nil, &DataError{Line: ln, Err: fmt.Errorf("%w: header %q lacks a closing ]", ErrSyntax, line)}
 			}
 			f := strings.Fields(line[1 : len(line)-1])
-			if len(f) != 2 {
+			if len(f) < 2 {
 				return nil, &DataError{Line: ln, Err: fmt.Errorf("%w: header must be [kind name], got %q", ErrSyntax, line)}
 			}
-			cur = &rawEntry{kind: f[0], name: f[1], line: ln, fields: map[string]string{}, lines: map[string]int{}}
+			// A name may hold spaces ("SO4 2-", "amorphous silica").
+			cur = &rawEntry{kind: f[0], name: strings.Join(f[1:], " "), line: ln, fields: map[string]string{}, lines: map[string]int{}}
 			out = append(out, cur)
 			continue
 		}

@@ -13,7 +13,7 @@ charge = 0
 [component H+]
 charge = 1
 ion_size = 9
-[component Ca+2]
+[component Ca2+]
 charge = 2
 ion_size = 6
 [component Cl-]
@@ -31,7 +31,7 @@ func TestParseRejects(t *testing.T) {
 	}{
 		{"unbalanced charge", tinyHeader + `
 [species CaCl+]
-reaction = Ca+2 + Cl-
+reaction = Ca2+ + Cl-
 charge = 2
 log10_k_25c = 0.4
 enthalpy = none
@@ -39,7 +39,7 @@ ion_size = 4
 `, ErrChargeImbalance, 15, "species CaCl+"},
 		{"unknown component", tinyHeader + `
 [species CaBr+]
-reaction = Ca+2 + Br-
+reaction = Ca2+ + Br-
 charge = 1
 log10_k_25c = 0.4
 enthalpy = none
@@ -47,66 +47,66 @@ ion_size = 4
 `, ErrUnknownComponent, 15, "species CaBr+"},
 		{"missing logk", tinyHeader + `
 [mineral Whatever]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 enthalpy = none
 `, ErrMissingLogK, 14, "mineral Whatever"},
 		{"duplicate entry", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 enthalpy = none
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 2
 enthalpy = none
 `, ErrDuplicateEntry, 18, "mineral Salt"},
 		{"duplicate component", tinyHeader + `
-[component Ca+2]
+[component Ca2+]
 charge = 2
 ion_size = 6
-`, ErrDuplicateEntry, 14, "component Ca+2"},
+`, ErrDuplicateEntry, 14, "component Ca2+"},
 		{"no temperature function", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 `, ErrMissingTempFunc, 16, "mineral Salt"},
 		{"analytic inconsistent with logk", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 temperature_fit = 2 0 0 0 0
 `, ErrInconsistentLogK, 17, "mineral Salt"},
 		{"unbalanced mineral", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + Cl-
+reaction = Ca2+ + Cl-
 log10_k_25c = 1
 enthalpy = none
 `, ErrChargeImbalance, 15, "mineral Salt"},
 		{"bad number", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = one
 enthalpy = none
 `, ErrSyntax, 16, "mineral Salt"},
 		{"bad enthalpy unit", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 enthalpy = 3 kJoule
 `, ErrSyntax, 17, "mineral Salt"},
 		{"dangling operator", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl- +
+reaction = Ca2+ + 2 Cl- +
 log10_k_25c = 1
 enthalpy = none
 `, ErrSyntax, 15, "mineral Salt"},
 		{"line without =", tinyHeader + `
 [mineral Salt]
-reaction Ca+2 + 2 Cl-
+reaction Ca2+ + 2 Cl-
 `, ErrSyntax, 15, "mineral Salt"},
 		{"unknown kind", tinyHeader + `
 [solid Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 enthalpy = none
 `, ErrUnknownEntryKind, 14, "solid Salt"},
@@ -116,14 +116,14 @@ charge = 0
 `, ErrMissingComponent, 1, ""},
 		{"charged species without ion size", tinyHeader + `
 [species CaCl+]
-reaction = Ca+2 + Cl-
+reaction = Ca2+ + Cl-
 charge = 1
 log10_k_25c = 0.4
 enthalpy = none
 `, ErrMissingField, 16, "species CaCl+"},
 		{"repeated key", tinyHeader + `
 [mineral Salt]
-reaction = Ca+2 + 2 Cl-
+reaction = Ca2+ + 2 Cl-
 log10_k_25c = 1
 log10_k_25c = 2
 `, ErrSyntax, 17, "mineral Salt"},
@@ -156,13 +156,13 @@ func TestDefaultDatabaseContents(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, c := range []string{"H+", "H2O", "Ca+2", "Mg+2", "Na+", "K+", "Sr+2", "Ba+2", "Fe+2", "Mn+2",
-		"Cl-", "SO4-2", "CO3-2", "F-", "H4SiO4", "NO3-", "Br-"} {
+	for _, c := range []string{"H+", "H2O", "Ca2+", "Mg2+", "Na+", "K+", "Sr2+", "Ba2+", "Fe2+", "Mn2+",
+		"Cl-", "SO4 2-", "CO3 2-", "F-", "H4SiO4", "NO3-", "Br-"} {
 		if db.ComponentIndex(c) < 0 {
 			t.Errorf("component %s missing", c)
 		}
 	}
-	for _, s := range []string{"OH-", "HCO3-", "CO2(aq)", "CO3-2", "HSO4-", "CaHCO3+", "CaCO3(aq)", "CaSO4(aq)",
+	for _, s := range []string{"OH-", "HCO3-", "CO2(aq)", "CO3 2-", "HSO4-", "CaHCO3+", "CaCO3(aq)", "CaSO4(aq)",
 		"CaOH+", "CaF+", "MgHCO3+", "MgCO3(aq)", "MgSO4(aq)", "MgOH+", "MgF+", "NaCO3-", "NaHCO3(aq)", "NaSO4-",
 		"KSO4-", "SrHCO3+", "SrCO3(aq)", "SrSO4(aq)", "BaHCO3+", "BaCO3(aq)", "BaSO4(aq)", "FeHCO3+", "FeCO3(aq)",
 		"FeSO4(aq)", "FeOH+", "MnSO4(aq)", "HF(aq)", "H3SiO4-"} {
@@ -171,7 +171,7 @@ func TestDefaultDatabaseContents(t *testing.T) {
 		}
 	}
 	tags := map[string]bool{"V": true, "V-calc": true, "M": true, "M+": true, "D": true}
-	for _, s := range db.Species {
+	for _, s := range db.species {
 		if s.Master >= 0 {
 			continue
 		}
@@ -182,9 +182,9 @@ func TestDefaultDatabaseContents(t *testing.T) {
 			t.Errorf("species %s has no ion size", s.Name)
 		}
 	}
-	for _, m := range []string{"Calcite", "Aragonite", "Dolomite", "Magnesite", "Siderite", "Rhodochrosite",
-		"Strontianite", "Witherite", "Gypsum", "Anhydrite", "Celestite", "Barite", "Fluorite", "Halite",
-		"SiO2(am)", "Chalcedony", "Quartz", "CO2(g)"} {
+	for _, m := range []string{"calcite", "aragonite", "dolomite", "magnesite", "siderite", "rhodochrosite",
+		"strontianite", "witherite", "gypsum", "anhydrite", "celestine", "baryte", "fluorite", "halite",
+		"amorphous silica", "chalcedony", "quartz", "CO2(g)"} {
 		mn := db.Mineral(m)
 		if mn == nil {
 			t.Errorf("mineral %s missing", m)
@@ -198,21 +198,21 @@ func TestDefaultDatabaseContents(t *testing.T) {
 		}
 	}
 	// Calcite molar volume: 100.087 g/mol / 2.71 g/cm3 = 36.93 cm3/mol (CRC density, from memory).
-	if v := db.Mineral("Calcite").MolarVolume(); v < 36.8 || v > 37.1 {
+	if v := db.Mineral("calcite").MolarVolume(); v < 36.8 || v > 37.1 {
 		t.Errorf("calcite molar volume %.2f cm3/mol", v)
 	}
 }
 
 // A reaction written with an earlier species expands to components and adds that
-// species' log K: CaHCO3+ from Ca+2 + HCO3- equals Ca+2 + CO3-2 + H+ with
+// species' log K: CaHCO3+ from Ca2+ + HCO3- equals Ca2+ + CO3 2- + H+ with
 // log K = log K(CaHCO3+ pair) + log K(HCO3-) = 1.106 + 10.329 (Plummer & Busenberg 1982).
 func TestReactionExpansion(t *testing.T) {
 	db, err := Default()
 	if err != nil {
 		t.Fatal(err)
 	}
-	sp := &db.Species[db.SpeciesIndex("CaHCO3+")]
-	want := map[string]float64{"Ca+2": 1, "CO3-2": 1, "H+": 1}
+	sp := &db.species[db.SpeciesIndex("CaHCO3+")]
+	want := map[string]float64{"Ca2+": 1, "CO3 2-": 1, "H+": 1}
 	if len(sp.Terms) != len(want) {
 		t.Fatalf("terms %+v", sp.Terms)
 	}
@@ -224,7 +224,7 @@ func TestReactionExpansion(t *testing.T) {
 	if got := sp.LogK.At(T25); abs(got-(1.106+10.329)) > 0.003 {
 		t.Errorf("log K %.4f, want 11.435", got)
 	}
-	// CO2(g) = CO3-2 + 2H+ - H2O: log K_H + log K1 + log K2 = -1.468 - 6.352 - 10.329 = -18.149.
+	// CO2(g) = CO3 2- + 2H+ - H2O: log K_H + log K1 + log K2 = -1.468 - 6.352 - 10.329 = -18.149.
 	g := db.Mineral("CO2(g)")
 	if got := g.LogK.At(T25); abs(got+18.149) > 0.003 {
 		t.Errorf("CO2(g) log K %.4f, want -18.149", got)

@@ -4,7 +4,7 @@
 //
 // A Database (Default for the embedded data set Thermo (speciation/thermo.txt), or ParseDatabase for
 // any text in gwsat's own format, described at the top of data/thermo.txt) holds
-// Components, the basis the laboratory reports in (Ca+2, SO4-2, CO3-2 for total inorganic
+// Components, the basis the laboratory reports in (Ca2+, SO4 2-, CO3 2- for total inorganic
 // carbon, H4SiO4 for silica, ...), aqueous Species formed from them, and Minerals (and
 // gases) written as dissolution reactions, each with log K at 25 C, a temperature function
 // (LogKFunc: analytic or van 't Hoff) and its published source. A Water gives temperature,

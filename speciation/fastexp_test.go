@@ -84,9 +84,9 @@ func TestSolveAgreesWithMathPow(t *testing.T) {
 			t.Fatalf("%s: %v", tc.name, err)
 		}
 		// log activity of each component's free species (H+ from the pH)
-		la := make([]float64, len(db.Components))
+		la := make([]float64, len(db.components))
 		for _, sp := range res.Species {
-			if c := db.Species[db.SpeciesIndex(sp.Name)].Master; c >= 0 {
+			if c := db.species[db.SpeciesIndex(sp.Name)].Master; c >= 0 {
 				la[c] = sp.LogActivity
 			}
 		}
@@ -95,7 +95,7 @@ func TestSolveAgreesWithMathPow(t *testing.T) {
 		T := tc.w.TempC + 273.15
 		ref := make([]float64, len(res.Species))
 		for k, sp := range res.Species {
-			dsp := &db.Species[db.SpeciesIndex(sp.Name)]
+			dsp := &db.species[db.SpeciesIndex(sp.Name)]
 			f := &dsp.LogK
 			logm := f.A + f.B*T + f.C/T + f.D*math.Log10(T) + f.E/(T*T) - sp.LogGamma
 			for _, term := range dsp.Terms {
@@ -116,7 +116,7 @@ func TestSolveAgreesWithMathPow(t *testing.T) {
 			ci := db.ComponentIndex(tt.Component)
 			sum := 0.0
 			for k, sp := range res.Species {
-				sum += nuOf(db.Species[db.SpeciesIndex(sp.Name)].Terms, ci) * ref[k]
+				sum += nuOf(db.species[db.SpeciesIndex(sp.Name)].Terms, ci) * ref[k]
 			}
 			// the convergence test: |balance| <= Tolerance x the sum of its terms (here
 			// the total), with room for the rounding of the reference's logarithms

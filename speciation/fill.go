@@ -39,7 +39,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 	gam := s.lgOld[:na] // scratch: the activity coefficients
 	pow10s(gam, s.lg[:na])
 	for k, si := range s.act {
-		sp := &db.Species[si]
+		sp := &db.species[si]
 		m := s.m[k]
 		lg := s.lg[k]
 		g := gam[k]
@@ -56,7 +56,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 	res.Alkalinity = alk
 	// totals and distribution (appended to local slices, stored back once)
 	totals, dist := res.Totals, res.Distribution
-	for ci := range db.Components {
+	for ci := range db.components {
 		if ci == db.water || ci == db.hplus || !s.active[ci] {
 			continue
 		}
@@ -65,7 +65,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 		for _, p := range ents {
 			tot += p.nu * s.m[p.k]
 		}
-		name := db.Components[ci].Name
+		name := db.components[ci].Name
 		reported := tot
 		if s.role[ci] == roleTotal {
 			// the given total, changed by the equilibrated minerals: exact, so that
@@ -73,7 +73,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 			// within the convergence tolerance)
 			reported = s.total[ci]
 			for k, pi := range s.eqPhase {
-				reported += nuOf(db.Minerals[pi].Terms, ci) * u[s.iCol+1+k]
+				reported += nuOf(db.minerals[pi].Terms, ci) * u[s.iCol+1+k]
 			}
 		}
 		totals = append(totals, ComponentTotal{name, reported})
@@ -88,15 +88,15 @@ func (s *Solver) fill(res *Result, w *Water) {
 		for q, p := range ents {
 			m := s.m[p.k]
 			sh := &dist[start+q]
-			sh.Component, sh.Species = name, db.Species[s.act[p.k]].Name
+			sh.Component, sh.Species = name, db.species[s.act[p.k]].Name
 			sh.Molality, sh.Percent = m, 100*p.nu*m/tot
 		}
 	}
 	res.Totals, res.Distribution = totals, dist
 	// saturation indices
 	minerals := res.Minerals
-	for pi := range db.Minerals {
-		mn := &db.Minerals[pi]
+	for pi := range db.minerals {
+		mn := &db.minerals[pi]
 		ok := true
 		for _, t := range mn.Terms {
 			if t.Index != db.water && t.Index != db.hplus && !s.active[t.Index] {
@@ -119,7 +119,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 	}
 	res.Minerals = minerals
 	for k, pi := range s.eqPhase {
-		res.Phases = append(res.Phases, PhaseAmount{Name: db.Minerals[pi].Name, Dissolved: u[s.iCol+1+k], SI: s.eqTarget[k]})
+		res.Phases = append(res.Phases, PhaseAmount{Name: db.minerals[pi].Name, Dissolved: u[s.iCol+1+k], SI: s.eqTarget[k]})
 	}
 	s.indices(res, w)
 	if I > s.model.MaxIonicStrength() {
@@ -128,7 +128,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 	if math.Abs(w.TempC-25) > 5 {
 		constK := false
 		for _, si := range s.act {
-			if db.Species[si].TempNote == tempConstant {
+			if db.species[si].TempNote == tempConstant {
 				constK = true
 				break
 			}
@@ -161,7 +161,7 @@ func (s *Solver) indices(res *Result, w *Water) {
 	if t, ok := res.Total("Cl-"); ok {
 		num += t
 	}
-	if t, ok := res.Total("SO4-2"); ok {
+	if t, ok := res.Total("SO4 2-"); ok {
 		num += 2 * t
 	}
 	if carbAlk > 0 {
@@ -169,15 +169,15 @@ func (s *Solver) indices(res *Result, w *Water) {
 		res.Indices.HasLarsonSkold = true
 	}
 	// Langelier / Ryznar.
-	ca := db.ComponentIndex("Ca+2")
+	ca := db.ComponentIndex("Ca2+")
 	if ca < 0 || !s.active[ca] || db.hco3 < 0 || db.calcite < 0 || res.Alkalinity <= 0 {
 		return
 	}
-	caT, _ := res.Total("Ca+2")
+	caT, _ := res.Total("Ca2+")
 	if caT <= 0 {
 		return
 	}
-	pK2 := s.logK[db.hco3] // log K of CO3-2 + H+ = HCO3- is pK2
+	pK2 := s.logK[db.hco3] // log K of CO3 2- + H+ = HCO3- is pK2
 	pKs := -s.phLogK[db.calcite]
 	sq := math.Sqrt(res.IonicStrength)
 	pfm := s.st.A * (sq/(1+sq) - 0.3*res.IonicStrength) // -log10 fm, Davies

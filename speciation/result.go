@@ -70,7 +70,7 @@ type Indices struct {
 	// Ryznar is RSI = 2 pHs - pH (Ryznar 1944).
 	Ryznar       float64
 	HasLangelier bool
-	// LarsonSkold is (Cl- + SO4-2) / (HCO3- + CO3-2) in equivalents (Larson & Skold
+	// LarsonSkold is (Cl- + SO4 2-) / (HCO3- + CO3 2-) in equivalents (Larson & Skold
 	// 1958): totals of chloride and sulfate over the carbonate alkalinity carried by the
 	// carbonate species (including their ion pairs).
 	LarsonSkold    float64
@@ -114,18 +114,26 @@ type Result struct {
 // SI returns the saturation index of the named mineral, and false if it was not
 // computed (mineral unknown or a component absent).
 func (r *Result) SI(mineral string) (float64, bool) {
-	for i := range r.Minerals {
-		if r.Minerals[i].Name == mineral {
-			return r.Minerals[i].SI, true
-		}
+	if m := r.Mineral(mineral); m != nil {
+		return m.SI, true
 	}
 	return 0, false
 }
 
-// Mineral returns the saturation record of the named mineral, or nil.
+// Mineral returns the saturation record of the named mineral, or nil. Names are
+// matched as by Database.MineralIndex (any case; aliases such as barite).
 func (r *Result) Mineral(name string) *MineralSI {
 	for i := range r.Minerals {
 		if r.Minerals[i].Name == name {
+			return &r.Minerals[i]
+		}
+	}
+	key := mineralKey(name)
+	if alias, ok := aliasKeys[key]; ok {
+		key = alias
+	}
+	for i := range r.Minerals {
+		if mineralKey(r.Minerals[i].Name) == key {
 			return &r.Minerals[i]
 		}
 	}

@@ -146,7 +146,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	if db == nil || model == nil {
 		panic("speciation: NewSolver needs a database and a model")
 	}
-	nc, ns, nm := len(db.Components), len(db.Species), len(db.Minerals)
+	nc, ns, nm := len(db.components), len(db.species), len(db.minerals)
 	s := &Solver{db: db, model: model, MaxIterations: 200, MaxStep: 1.5, sweeps: 2, gsSweeps: 4, WarmStart: true, nc: nc, ns: ns}
 	s.role = make([]int, nc)
 	s.total = make([]float64, nc)
@@ -157,7 +157,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	s.row = make([]int, nc)
 	s.active = make([]bool, nc)
 	s.alkComp = make([]float64, nc)
-	for i, c := range db.Components {
+	for i, c := range db.components {
 		s.alkComp[i] = c.Alkalinity
 	}
 	s.spActive = make([]bool, ns)
@@ -165,8 +165,8 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	s.phLogK = make([]float64, nm)
 	s.lastT = math.NaN()
 	s.alkSp = make([]float64, ns)
-	for i := range db.Species {
-		for _, t := range db.Species[i].Terms {
+	for i := range db.species {
+		for _, t := range db.species[i].Terms {
 			s.alkSp[i] += t.Nu * s.alkComp[t.Index]
 		}
 	}
@@ -183,8 +183,8 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	s.cst = make([]float64, ns)
 	s.nuW = make([]float64, ns)
 	s.compSp = make([][]spNu, nc)
-	for si := range db.Species {
-		for _, t := range db.Species[si].Terms {
+	for si := range db.species {
+		for _, t := range db.species[si].Terms {
 			if t.Nu > 0 {
 				s.compSp[t.Index] = append(s.compSp[t.Index], spNu{si, t.Nu})
 			}
@@ -357,7 +357,7 @@ func (s *Solver) setup(w *Water) error {
 			if w.PHFromChargeBalance {
 				return inputErr("charge balance used twice (pH and %s)", w.ChargeBalanceIon)
 			}
-			if db.Components[ci].Charge == 0 {
+			if db.components[ci].Charge == 0 {
 				return inputErr("charge-balance ion %s is neutral", w.ChargeBalanceIon)
 			}
 			if s.role[ci] == roleAlk {
@@ -374,14 +374,14 @@ func (s *Solver) setup(w *Water) error {
 		if ci < 0 || ci == db.water {
 			return inputErr("unknown component %q fixed by %s", f.Component, f.Phase)
 		}
-		pi, ok := db.mineralIndex[f.Phase]
-		if !ok {
+		pi := db.MineralIndex(f.Phase)
+		if pi < 0 {
 			return inputErr("unknown mineral or gas %q", f.Phase)
 		}
 		if !finite(f.Target) {
 			return inputErr("target of %s is not finite", f.Phase)
 		}
-		if nuOf(db.Minerals[pi].Terms, ci) == 0 {
+		if nuOf(db.minerals[pi].Terms, ci) == 0 {
 			return inputErr("%s does not contain %s", f.Phase, f.Component)
 		}
 		if s.role[ci] == roleCharge || s.role[ci] == roleAlk || s.role[ci] == rolePhase {
@@ -397,14 +397,14 @@ func (s *Solver) setup(w *Water) error {
 	s.eqPhase = s.eqPhase[:0]
 	s.eqTarget = s.eqTarget[:0]
 	for _, e := range w.equilibria {
-		pi, ok := db.mineralIndex[e.Phase]
-		if !ok || db.Minerals[pi].Gas {
+		pi := db.MineralIndex(e.Phase)
+		if pi < 0 || db.minerals[pi].Gas {
 			return inputErr("unknown mineral %q to equilibrate", e.Phase)
 		}
 		if !finite(e.SI) {
 			return inputErr("target SI of %s is not finite", e.Phase)
 		}
-		for _, t := range db.Minerals[pi].Terms {
+		for _, t := range db.minerals[pi].Terms {
 			if !s.active[t.Index] {
 				return inputErr("%s needs %s, which is absent", e.Phase, t.Component)
 			}
@@ -417,9 +417,9 @@ func (s *Solver) setup(w *Water) error {
 		if s.role[ci] != rolePhase {
 			continue
 		}
-		for _, t := range db.Minerals[s.phaseOf[ci]].Terms {
+		for _, t := range db.minerals[s.phaseOf[ci]].Terms {
 			if !s.active[t.Index] {
-				return inputErr("%s fixed by %s needs %s, which is absent", db.Components[ci].Name, db.Minerals[s.phaseOf[ci]].Name, t.Component)
+				return inputErr("%s fixed by %s needs %s, which is absent", db.components[ci].Name, db.minerals[s.phaseOf[ci]].Name, t.Component)
 			}
 		}
 	}
@@ -427,12 +427,12 @@ func (s *Solver) setup(w *Water) error {
 	if w.TempC != s.lastT {
 		T := w.TempC + 273.15
 		lt := math.Log10(T)
-		for i := range db.Species {
-			f := &db.Species[i].LogK
+		for i := range db.species {
+			f := &db.species[i].LogK
 			s.logK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
 		}
-		for i := range db.Minerals {
-			f := &db.Minerals[i].LogK
+		for i := range db.minerals {
+			f := &db.minerals[i].LogK
 			s.phLogK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
 		}
 		s.st.A, s.st.B = DebyeHuckelAB(w.TempC)
@@ -471,7 +471,7 @@ func (s *Solver) setup(w *Water) error {
 	}
 	for k, si := range s.act {
 		c := s.logK[si]
-		for _, t := range db.Species[si].Terms {
+		for _, t := range db.species[si].Terms {
 			if ci := t.Index; ci != db.water && s.col[ci] < 0 {
 				c += t.Nu * s.la[ci]
 			}
@@ -535,8 +535,8 @@ func (s *Solver) buildStructure() {
 	s.st.Species = s.st.Species[:cap(s.st.Species)]
 	s.colIdx, s.colNu = s.colIdx[:0], s.colNu[:0]
 	s.rowIdx, s.rowW = s.rowIdx[:0], s.rowW[:0]
-	for si := range db.Species {
-		sp := &db.Species[si]
+	for si := range db.species {
+		sp := &db.species[si]
 		ok := true
 		for _, t := range sp.Terms {
 			if !s.active[t.Index] {
@@ -593,7 +593,7 @@ func (s *Solver) buildStructure() {
 	// Active species by component, alkalinity and charge.
 	s.cAct, s.alkAct, s.carbAct, s.ionAct = s.cAct[:0], s.alkAct[:0], s.carbAct[:0], s.ionAct[:0]
 	s.cActOff = append(s.cActOff[:0], 0)
-	for ci := range db.Components {
+	for ci := range db.components {
 		for _, p := range s.compSp[ci] {
 			if k := s.spPos[p.sp]; k >= 0 {
 				s.cAct = append(s.cAct, kNu{int32(k), p.nu})
@@ -775,7 +775,7 @@ func (s *Solver) gammas(I float64) {
 func (s *Solver) phaseLogIAP(pi int, u []float64) float64 {
 	db := s.db
 	v := 0.0
-	for _, t := range db.Minerals[pi].Terms {
+	for _, t := range db.minerals[pi].Terms {
 		ci := t.Index
 		switch {
 		case ci == db.water:
@@ -795,7 +795,7 @@ func (s *Solver) initialGuess(mode int) {
 	db := s.db
 	u := s.u[:s.n]
 	I := 0.0
-	for ci, c := range db.Components {
+	for ci, c := range db.components {
 		if s.role[ci] == roleTotal || s.role[ci] == roleCharge {
 			I += 0.5 * c.Charge * c.Charge * s.total[ci]
 		}
@@ -1034,7 +1034,7 @@ func (s *Solver) sweep(u []float64, sweeps, mode int) {
 							sum += p.nu * s.m[k]
 						}
 					}
-					newT := math.Max(sum-Z/db.Components[ci].Charge, 1e-3*sum)
+					newT := math.Max(sum-Z/db.components[ci].Charge, 1e-3*sum)
 					if sum > 0 {
 						d = log10(newT / sum)
 					}
@@ -1067,7 +1067,7 @@ func (s *Solver) applyPhaseFixes(u []float64) {
 			continue
 		}
 		pi := s.phaseOf[ci]
-		nu := nuOf(db.Minerals[pi].Terms, ci)
+		nu := nuOf(db.minerals[pi].Terms, ci)
 		rest := s.phaseLogIAP(pi, u) - nu*u[s.col[ci]]
 		v := (s.phLogK[pi] + s.target[ci] - rest) / nu
 		u[s.col[ci]] = math.Max(math.Min(v, 1), -30)
@@ -1120,7 +1120,7 @@ func (s *Solver) jacobian(u []float64) {
 	base := s.iCol + 1
 	db := s.db
 	for k, pi := range s.eqPhase {
-		for _, t := range db.Minerals[pi].Terms {
+		for _, t := range db.minerals[pi].Terms {
 			ci := t.Index
 			if s.role[ci] == roleTotal {
 				r := s.row[ci]
@@ -1138,7 +1138,7 @@ func (s *Solver) jacobian(u []float64) {
 			continue
 		}
 		jr := J[r*n : r*n+n]
-		for _, t := range db.Minerals[pi].Terms {
+		for _, t := range db.minerals[pi].Terms {
 			if c := s.col[t.Index]; c >= 0 {
 				jr[c] += t.Nu * inv[r]
 			}
@@ -1184,7 +1184,7 @@ func (s *Solver) evaluate(u []float64) (norm, worst float64) {
 	db := s.db
 	for k, pi := range s.eqPhase {
 		xi := u[base+k]
-		for _, t := range db.Minerals[pi].Terms {
+		for _, t := range db.minerals[pi].Terms {
 			ci := t.Index
 			if s.role[ci] == roleTotal {
 				r := s.row[ci]
@@ -1323,7 +1323,7 @@ func (s *Solver) nonCarbonateAlkalinity() float64 {
 	db := s.db
 	v := 0.0
 	for k, si := range s.act {
-		if nuOf(db.Species[si].Terms, db.carbonate) == 0 {
+		if nuOf(db.species[si].Terms, db.carbonate) == 0 {
 			v += s.alkSp[si] * s.m[k]
 		}
 	}
@@ -1344,10 +1344,10 @@ func (s *Solver) diagnose(worst float64) string {
 		if s.role[ci] != roleCharge {
 			continue
 		}
-		z := db.Components[ci].Charge
+		z := db.components[ci].Charge
 		other := 0.0
 		for k, si := range s.act {
-			if nuOf(db.Species[si].Terms, ci) == 0 {
+			if nuOf(db.species[si].Terms, ci) == 0 {
 				other += s.st.Charge[k] * s.m[k]
 			}
 		}
@@ -1355,7 +1355,7 @@ func (s *Solver) diagnose(worst float64) string {
 			return fmt.Sprintf("no pH closes the charge balance (stalled, largest relative balance error %.3g)", worst)
 		}
 		if other*z > 0 {
-			return fmt.Sprintf("the charge balance cannot be closed by adjusting %s: the other ions already carry %.4g eq/kgw of the same sign", db.Components[ci].Name, other)
+			return fmt.Sprintf("the charge balance cannot be closed by adjusting %s: the other ions already carry %.4g eq/kgw of the same sign", db.components[ci].Name, other)
 		}
 	}
 	return fmt.Sprintf("stalled with largest relative balance error %.3g", worst)
@@ -1378,7 +1378,7 @@ func (s *Solver) checkBounds(u []float64, it int) error {
 				return &SolveError{Reason: "no pH between -2 and 16 closes the charge balance", Iterations: it, Err: ErrNoConvergence}
 			}
 		} else if v < -30 {
-			return &SolveError{Reason: fmt.Sprintf("the charge balance cannot be closed by adjusting %s (its total would be negative)", db.Components[ci].Name), Iterations: it, Err: ErrNoConvergence}
+			return &SolveError{Reason: fmt.Sprintf("the charge balance cannot be closed by adjusting %s (its total would be negative)", db.components[ci].Name), Iterations: it, Err: ErrNoConvergence}
 		}
 	}
 	return nil

@@ -48,7 +48,7 @@ type PhaseTarget struct {
 }
 
 // SetTotal sets (or replaces) the total of a component in mol/kgw. A total of zero
-// removes the component from the solve. For the carbonate component (CO3-2) this is
+// removes the component from the solve. For the carbonate component (CO3 2-) this is
 // total inorganic carbon.
 func (w *Water) SetTotal(component string, molKgw float64) {
 	for i := range w.totals {
@@ -74,9 +74,9 @@ func (w *Water) Total(component string) (float64, bool) {
 func (w *Water) Totals() []ComponentTotal { return w.totals }
 
 // SetAlkalinity sets the total alkalinity in equivalents per kg of water; the carbonate
-// balance is then replaced by an alkalinity balance (OH-, H+, HCO3-, CO3-2, carbonate
+// balance is then replaced by an alkalinity balance (OH-, H+, HCO3-, CO3 2-, carbonate
 // ion pairs, H3SiO4-, HSO4-, HF(aq) ... each counted by its equivalents relative to
-// CO2(aq), H4SiO4, SO4-2 and F-). Do not also set a carbonate total.
+// CO2(aq), H4SiO4, SO4 2- and F-). Do not also set a carbonate total.
 func (w *Water) SetAlkalinity(eqKgw float64) {
 	w.alk, w.hasAlk = eqKgw, true
 }

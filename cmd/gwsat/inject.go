@@ -463,7 +463,7 @@ func runSequence(e *env, args []string) int {
 	var wf waterFlags
 	wf.register(fs)
 	id := fs.String("water", "", "the water the reagent is added to (demo: "+demoInject+")")
-	salt := fs.String("salt", "", `a pure salt as components, e.g. "2 Na+ + SO4-2" (amount in mol/kgw; demo default: Na2SO4 into `+demoDeep+`)`)
+	salt := fs.String("salt", "", `a pure salt as components, e.g. "2 Na+ + SO4 2-" (amount in mol/kgw; demo default: Na2SO4 into `+demoDeep+`)`)
 	saltName := fs.String("salt-name", "", "a name for the salt in outputs, e.g. Na2SO4")
 	reagent := fs.String("reagent", "", "a water added step by step instead of a salt (amount in kg per kg of water; demo default: the deep native water)")
 	max := fs.Float64("max", 0, "largest amount added (default: 0.1 mol/kgw of salt, or 10 kg/kg of a water)")
@@ -489,7 +489,7 @@ func runSequence(e *env, args []string) int {
 	if wf.in.demo && *salt == "" && *reagent == "" {
 		// Demo default: sulfate added to the barium- and strontium-bearing deep
 		// native water, the classic question of which sulfate comes first.
-		*salt, *saltName = "2 Na+ + SO4-2", "Na2SO4"
+		*salt, *saltName = "2 Na+ + SO4 2-", "Na2SO4"
 		if *id == "" {
 			*id = demoDeep
 		}

@@ -71,7 +71,7 @@ func TestSequenceDemo(t *testing.T) {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	recs := readCSV(t, out)
-	if len(recs) < 3 || recs[1][1] != "Barite" || recs[2][1] != "Celestite" {
+	if len(recs) < 3 || recs[1][1] != "baryte" || recs[2][1] != "celestine" {
 		t.Fatalf("sequence %v", recs)
 	}
 	a1, _ := strconv.ParseFloat(recs[1][2], 64)

@@ -108,7 +108,7 @@ func balanceComponent(db *speciation.Database, name string) (string, error) {
 		return name, nil
 	}
 	short := strings.ToLower(strings.TrimRight(name, "+-0123456789"))
-	for _, c := range db.Components {
+	for _, c := range db.Components() {
 		if strings.ToLower(strings.TrimRight(c.Name, "+-0123456789")) == short && c.Charge != 0 {
 			return c.Name, nil
 		}

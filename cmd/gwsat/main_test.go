@@ -57,7 +57,7 @@ func TestCheckDemoAccountsForEveryRow(t *testing.T) {
 	}
 	h := recs[0]
 	id, st, line, cb := col(t, h, "sample_id"), col(t, h, "status"), col(t, h, "line"), col(t, h, "balance_status")
-	sic := col(t, h, "si_calcite")
+	sic := col(t, h, "calcite_si")
 	want := map[string]string{"C1-D-R2": "rejected", "C3-I-R3": "rejected", "B2-S-R2": "warning"}
 	for i, r := range recs[1:] {
 		if r[line] != strconv.Itoa(i+2) {
@@ -144,7 +144,7 @@ func TestCheckStdinLongShape(t *testing.T) {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	recs := readCSV(t, out)
-	if len(recs) != 2 || recs[1][col(t, recs[0], "si_calcite")] == "" {
+	if len(recs) != 2 || recs[1][col(t, recs[0], "calcite_si")] == "" {
 		t.Fatalf("long input gave %v", recs)
 	}
 }
@@ -154,7 +154,7 @@ func TestSpeciesView(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
-	for _, want := range []string{"CaSO4(aq)", "Calcite", "Ionic strength", "Distribution"} {
+	for _, want := range []string{"CaSO4(aq)", "calcite", "Ionic strength", "Distribution"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("species view lacks %q", want)
 		}
@@ -172,7 +172,7 @@ func TestReportDemo(t *testing.T) {
 		t.Skip("report renders figures")
 	}
 	dir := t.TempDir()
-	code, _, errs := gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png,svg", "-minerals", "Calcite,Barite")
+	code, _, errs := gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png,svg", "-minerals", "calcite,baryte")
 	if code != exitRejected {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -199,7 +199,7 @@ func TestReportDemo(t *testing.T) {
 		t.Fatalf("GeoJSON: %v, %d features", err, len(fc.Features))
 	}
 	html, _ := os.ReadFile(filepath.Join(dir, "index.html"))
-	for _, want := range []string{"licensed professionals", "data:image/png;base64,", "si_barite"} {
+	for _, want := range []string{"licensed professionals", "data:image/png;base64,", "baryte_si"} {
 		if !bytes.Contains(html, []byte(want)) {
 			t.Errorf("index.html lacks %q", want)
 		}
@@ -230,7 +230,7 @@ func TestReportDemo(t *testing.T) {
 	}
 
 	// A second report into the same folder leaves no figure of the first.
-	code, _, errs = gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png", "-minerals", "Barite")
+	code, _, errs = gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png", "-minerals", "baryte")
 	if code != exitRejected {
 		t.Fatalf("second report: exit %d: %s", code, errs)
 	}

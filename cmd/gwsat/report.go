@@ -350,7 +350,7 @@ func summaryTable(t *report.Table) *report.Table {
 	var idx []int
 	out := &report.Table{}
 	for i, h := range t.Header {
-		if keep[h] || strings.HasPrefix(h, "si_") {
+		if keep[h] || strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si" {
 			idx = append(idx, i)
 			out.Header = append(out.Header, h)
 		}

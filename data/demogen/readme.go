@@ -225,7 +225,7 @@ func (g *generated) readme() []byte {
 	p("everywhere. After injection, cluster A becomes supersaturated with calcite in the shallow and\n")
 	p("intermediate wells (injectate carbonate meets native calcium) and with barite, most strongly in the\n")
 	p("deep wells, where cross-flow brings sulfate into the barium-bearing zone; cluster B follows weakly in\n")
-	p("round 3, cluster C hardly changes. Gypsum stays undersaturated throughout.\n\n")
+	p("round 3, cluster C hardly changes. gypsum stays undersaturated throughout.\n\n")
 
 	p("## Deliberate flaws (the QA must catch them)\n\n")
 	p("| sample | flaw |\n|---|---|\n")

@@ -32,7 +32,7 @@ func TestCloggingHandCalculation(t *testing.T) {
 	}
 	for _, tc := range tests {
 		res, err := Clogging(db, CloggingInput{
-			Solids:       []Solid{{Mineral: "Calcite", MolPerM3: 0.5}, {Mineral: "Gypsum", GPerM3: 20}},
+			Solids:       []Solid{{Mineral: "calcite", MolPerM3: 0.5}, {Mineral: "gypsum", GPerM3: 20}},
 			RateM3PerDay: 500, Days: tc.days, ScreenLengthM: 20, Porosity: 0.25, RadiusM: 2, WellRadiusM: 0.1,
 		})
 		if err != nil {
@@ -65,7 +65,7 @@ func TestBadInput(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
 	a := calciteSaturated(t, r, 20, -2)
-	ok := CloggingInput{Solids: []Solid{{Mineral: "Calcite", MolPerM3: 1}}, RateM3PerDay: 100,
+	ok := CloggingInput{Solids: []Solid{{Mineral: "calcite", MolPerM3: 1}}, RateM3PerDay: 100,
 		ScreenLengthM: 10, Porosity: 0.2, RadiusM: 1}
 	cl := func(f func(*CloggingInput)) error {
 		in := ok
@@ -96,7 +96,7 @@ func TestBadInput(t *testing.T) {
 		{"temperature sweep", func() error { _, err := r.TemperatureSweep(a, []float64{20, 101}, nil); return err }(), ErrTemperature},
 		{"precipitate temperature", func() error { _, err := r.Precipitate(hot, PrecipOptions{}); return err }(), ErrTemperature},
 		{"unknown mineral sweep", func() error {
-			_, err := r.Sweep(a, a, SweepOptions{Minerals: []string{"Calcite", "Unobtainium"}})
+			_, err := r.Sweep(a, a, SweepOptions{Minerals: []string{"calcite", "Unobtainium"}})
 			return err
 		}(), ErrUnknownMineral},
 		{"gas is not a mineral", func() error {

@@ -8,7 +8,7 @@
 // A Reactor (New) holds a speciation solver for one database and activity model. A
 // water is first speciated as it was given (Reactor.Prepare: measured pH with
 // alkalinity or total inorganic carbon) and reduced to a Solution: the component totals
-// per kg of water (CO3-2 is total inorganic carbon, computed from the alkalinity when
+// per kg of water (CO3 2- is total inorganic carbon, computed from the alkalinity when
 // that was measured) and the total alkalinity. Both are conserved quantities: mixing by
 // mass of water averages them exactly (MixSolutions), heating changes neither, and a
 // precipitate removes its own stoichiometry (alkalinity included: 2 eq per mol of
@@ -43,7 +43,7 @@
 //
 // # Sequence
 //
-// Reactor.Sequence adds a Reagent (a salt, ParseSalt("2 Na+ + SO4-2"), or another
+// Reactor.Sequence adds a Reagent (a salt, ParseSalt("2 Na+ + SO4 2-"), or another
 // water) step by step and returns a SequenceResult: the Onsets in order (amount added
 // when each mineral reaches SI = 0, located by bisection), the fraction of each earlier
 // mineral's cation still dissolved at each later onset (the earlier minerals having

@@ -13,15 +13,15 @@ import (
 // sulfate-rich injectate, mixed at the aquifer temperature.
 func waters() (native, injectate speciation.Water) {
 	native = speciation.Water{TempC: 30, PH: 7.2}
-	native.SetTotal("Ca+2", 2e-3)
+	native.SetTotal("Ca2+", 2e-3)
 	native.SetTotal("Na+", 10e-3)
-	native.SetTotal("Ba+2", 20e-6)
+	native.SetTotal("Ba2+", 20e-6)
 	native.SetTotal("Cl-", 9e-3)
 	native.SetAlkalinity(5e-3)
 	injectate = speciation.Water{TempC: 15, PH: 7.8}
-	injectate.SetTotal("Ca+2", 1e-3)
+	injectate.SetTotal("Ca2+", 1e-3)
 	injectate.SetTotal("Na+", 6e-3)
-	injectate.SetTotal("SO4-2", 3e-3)
+	injectate.SetTotal("SO4 2-", 3e-3)
 	injectate.SetTotal("Cl-", 2e-3)
 	injectate.SetAlkalinity(2e-3)
 	return native, injectate
@@ -45,7 +45,7 @@ func ExampleReactor_Sweep() {
 	// fraction of injectate 0, 0.1, ..., 1 at the aquifer temperature, 30 C
 	fr := []float64{0, 0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1}
 	sw, err := r.Sweep(native, injectate, reaction.SweepOptions{
-		Fractions: fr, FixedTemp: true, TempC: 30, Minerals: []string{"Barite", "Calcite", "Gypsum"}})
+		Fractions: fr, FixedTemp: true, TempC: 30, Minerals: []string{"baryte", "calcite", "gypsum"}})
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -53,9 +53,9 @@ func ExampleReactor_Sweep() {
 		fmt.Printf("%-8s max SI %5.2f at injectate fraction %.1f\n", m.Mineral, m.SI, m.Fraction)
 	}
 	// Output:
-	// Barite   max SI  1.50 at injectate fraction 0.5
-	// Calcite  max SI  0.13 at injectate fraction 0.0
-	// Gypsum   max SI -1.46 at injectate fraction 1.0
+	// baryte   max SI  1.50 at injectate fraction 0.5
+	// calcite  max SI  0.13 at injectate fraction 0.0
+	// gypsum   max SI -1.46 at injectate fraction 1.0
 }
 
 func ExampleReactor_Precipitate() {
@@ -81,8 +81,8 @@ func ExampleReactor_Precipitate() {
 	}
 	fmt.Printf("pH %.2f -> %.2f, CCPP %.1f mg/L as CaCO3\n", p.Before.PH, p.Together.After.PH, p.CCPP)
 	// Output:
-	// Barite   0.0093 mmol/kgw 2.18 mg/L
-	// Calcite  0.1296 mmol/kgw 12.97 mg/L
+	// baryte   0.0093 mmol/kgw 2.18 mg/L
+	// calcite  0.1296 mmol/kgw 12.97 mg/L
 	// pH 7.24 -> 7.08, CCPP 12.9 mg/L as CaCO3
 }
 
@@ -93,18 +93,18 @@ func ExampleReactor_Sequence() {
 	}
 	r := reaction.New(db, speciation.TruesdellJones{})
 	w := speciation.Water{TempC: 25, PH: 7}
-	w.SetTotal("Ba+2", 1e-3)
-	w.SetTotal("Sr+2", 1e-3)
+	w.SetTotal("Ba2+", 1e-3)
+	w.SetTotal("Sr2+", 1e-3)
 	w.SetTotal("Cl-", 4e-3)
 	start, _, err := r.Prepare(&w)
 	if err != nil {
 		log.Fatal(err)
 	}
-	salt, err := reaction.ParseSalt(db, "Na2SO4", "2 Na+ + SO4-2")
+	salt, err := reaction.ParseSalt(db, "Na2SO4", "2 Na+ + SO4 2-")
 	if err != nil {
 		log.Fatal(err)
 	}
-	seq, err := r.Sequence(start, salt, reaction.SequenceOptions{MaxAmount: 0.05, Minerals: []string{"Barite", "Celestite"}})
+	seq, err := r.Sequence(start, salt, reaction.SequenceOptions{MaxAmount: 0.05, Minerals: []string{"baryte", "celestine"}})
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -117,8 +117,8 @@ func ExampleReactor_Sequence() {
 	}
 	fmt.Println("clean separation:", seq.Clean)
 	// Output:
-	// Barite    starts at 2.68e-07 mol/kgw
-	// Celestite starts at 0.00148 mol/kgw; Ba+2 of Barite still dissolved: 0.00051
+	// baryte    starts at 2.68e-07 mol/kgw
+	// celestine starts at 0.00148 mol/kgw; Ba2+ of baryte still dissolved: 0.00051
 	// clean separation: true
 }
 
@@ -128,7 +128,7 @@ func ExampleClogging() {
 		log.Fatal(err)
 	}
 	res, err := reaction.Clogging(db, reaction.CloggingInput{
-		Solids:       []reaction.Solid{{Mineral: "Calcite", MolPerM3: 0.5}, {Mineral: "Gypsum", GPerM3: 20}},
+		Solids:       []reaction.Solid{{Mineral: "calcite", MolPerM3: 0.5}, {Mineral: "gypsum", GPerM3: 20}},
 		RateM3PerDay: 500, ScreenLengthM: 20, Porosity: 0.25, RadiusM: 2, WellRadiusM: 0.1,
 	})
 	if err != nil {

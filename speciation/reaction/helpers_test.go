@@ -29,7 +29,7 @@ func prepare(t testing.TB, r *Reactor, w speciation.Water) Solution {
 // closed afterwards.
 func calciteSaturated(t testing.TB, r *Reactor, tempC, lp float64) Solution {
 	w := speciation.Water{TempC: tempC, PHFromChargeBalance: true}
-	w.FixByPhase("Ca+2", "Calcite", 0)
+	w.FixByPhase("Ca2+", "calcite", 0)
 	w.FixByPhase(speciation.NameCarbonate, "CO2(g)", lp)
 	return prepare(t, r, w)
 }
@@ -39,7 +39,7 @@ func relClose(a, b, rel float64) bool {
 }
 
 // tinyDB is a test database with no ion pairs and no proton-bearing species: Na+, Cl-,
-// Ba+2, Sr+2, Ca+2, SO4-2 and three sulfates. Ion sizes are required by the reader for
+// Ba2+, Sr2+, Ca2+, SO4 2- and three sulfates. Ion sizes are required by the reader for
 // charged species; the Ideal model ignores them.
 //   - Barite: compilation analytic expression after Blount (1977), Am. Mineral. 62,
 //     942-957 ([M+], from memory): log K = 136.035 - 7680.41/T
@@ -61,34 +61,34 @@ ion_size = 4
 [component Cl-]
 charge = -1
 ion_size = 3.5
-[component Ba+2]
+[component Ba2+]
 charge = 2
 ion_size = 5
-[component Sr+2]
+[component Sr2+]
 charge = 2
 ion_size = 5
-[component Ca+2]
+[component Ca2+]
 charge = 2
 ion_size = 5
-[component SO4-2]
+[component SO4 2-]
 charge = -2
 ion_size = 5
-[mineral Barite]
-reaction = Ba+2 + SO4-2
+[mineral baryte]
+reaction = Ba2+ + SO4 2-
 log10_k_25c = -9.97
 temperature_fit = 136.035 0 -7680.41 -48.595 0
 mass = 233.39
 density = 4.48
 density_source = CRC Handbook (from memory)
-[mineral Celestite]
-reaction = Sr+2 + SO4-2
+[mineral celestine]
+reaction = Sr2+ + SO4 2-
 log10_k_25c = -6.631
 enthalpy = -1.668 kJ
 mass = 183.68
 density = 3.96
 density_source = CRC Handbook (from memory)
-[mineral Gypsum]
-reaction = Ca+2 + SO4-2 + 2 H2O
+[mineral gypsum]
+reaction = Ca2+ + SO4 2- + 2 H2O
 log10_k_25c = -4.580
 enthalpy = -1.130 kJ
 mass = 172.168
@@ -117,7 +117,7 @@ func idealReactor(t testing.TB) *Reactor {
 
 func idealWater(tempC float64, totals map[string]float64) speciation.Water {
 	w := speciation.Water{TempC: tempC, PH: 7}
-	for _, c := range []string{"Na+", "Cl-", "Ba+2", "Sr+2", "Ca+2", "SO4-2"} {
+	for _, c := range []string{"Na+", "Cl-", "Ba2+", "Sr2+", "Ca2+", "SO4 2-"} {
 		if v, ok := totals[c]; ok {
 			w.SetTotal(c, v)
 		}

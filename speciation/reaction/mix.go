@@ -211,7 +211,7 @@ func (r *Reactor) table(pts []Point, names []string) *Sweep {
 				seen[m.Name] = true
 			}
 		}
-		for _, m := range r.db.Minerals {
+		for _, m := range r.db.Minerals() {
 			if seen[m.Name] {
 				names = append(names, m.Name)
 			}

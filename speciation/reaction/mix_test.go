@@ -13,15 +13,15 @@ import (
 func randomWater(rng *rand.Rand) speciation.Water {
 	w := speciation.Water{TempC: 5 + 60*rng.Float64(), PH: 6.5 + 1.8*rng.Float64()}
 	lg := func(lo, hi float64) float64 { return math.Pow(10, lo+(hi-lo)*rng.Float64()) }
-	w.SetTotal("Ca+2", lg(-4, -2))
-	w.SetTotal("Mg+2", lg(-4.5, -2.5))
+	w.SetTotal("Ca2+", lg(-4, -2))
+	w.SetTotal("Mg2+", lg(-4.5, -2.5))
 	w.SetTotal("Na+", lg(-4, -1.5))
 	w.SetTotal("K+", lg(-5, -3))
 	w.SetTotal("Cl-", lg(-4, -1.5))
-	w.SetTotal("SO4-2", lg(-4.5, -2))
+	w.SetTotal("SO4 2-", lg(-4.5, -2))
 	w.SetTotal("H4SiO4", lg(-4.5, -3.3))
 	if rng.IntN(2) == 0 {
-		w.SetTotal("Ba+2", lg(-7, -5.5))
+		w.SetTotal("Ba2+", lg(-7, -5.5))
 	}
 	w.SetAlkalinity(lg(-3.5, -2))
 	return w
@@ -115,7 +115,7 @@ func TestWigleyPlummerUndersaturatedMixture(t *testing.T) {
 		r := New(db, model)
 		a := calciteSaturated(t, r, 25, -1)
 		b := calciteSaturated(t, r, 25, -3.5)
-		sw, err := r.Sweep(a, b, SweepOptions{FixedTemp: true, TempC: 25, Minerals: []string{"Calcite"}})
+		sw, err := r.Sweep(a, b, SweepOptions{FixedTemp: true, TempC: 25, Minerals: []string{"calcite"}})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -142,14 +142,14 @@ func TestUndersaturatedWatersMixToSupersaturation(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
 	ca := speciation.Water{TempC: 20, PH: 7.0}
-	ca.SetTotal("Ca+2", 5e-3)
+	ca.SetTotal("Ca2+", 5e-3)
 	ca.SetTotal("Cl-", 10e-3)
 	ca.SetTotal(speciation.NameCarbonate, 1e-5)
 	hc := speciation.Water{TempC: 20, PH: 8.3}
 	hc.SetTotal("Na+", 8e-3)
 	hc.SetTotal("Cl-", 0.1e-3)
 	hc.SetAlkalinity(8e-3)
-	hc.SetTotal("Ca+2", 1e-6)
+	hc.SetTotal("Ca2+", 1e-6)
 	a, ra, err := r.Prepare(&ca)
 	if err != nil {
 		t.Fatal(err)
@@ -158,12 +158,12 @@ func TestUndersaturatedWatersMixToSupersaturation(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	sa, _ := ra.SI("Calcite")
-	sb, _ := rb.SI("Calcite")
+	sa, _ := ra.SI("calcite")
+	sb, _ := rb.SI("calcite")
 	if sa >= 0 || sb >= 0 {
 		t.Fatalf("end-members should be undersaturated: %.2f %.2f", sa, sb)
 	}
-	sw, err := r.Sweep(a, b, SweepOptions{Minerals: []string{"Calcite"}})
+	sw, err := r.Sweep(a, b, SweepOptions{Minerals: []string{"calcite"}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -187,7 +187,7 @@ func TestTemperatureSweepCalcite(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
 	a := calciteSaturated(t, r, 25, -2)
-	sw, err := r.TemperatureSweep(a, nil, []string{"Calcite"})
+	sw, err := r.TemperatureSweep(a, nil, []string{"calcite"})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -214,14 +214,14 @@ const CaCO3AlkFactor = 50045
 // carbonate, the database has no mineral named Calcite, or r.PH is HoldPH (a held pH
 // is not a closed system).
 func (r *Reactor) CCPP(sol Solution, kgwPerL float64) (ccpp float64, ok bool, err error) {
-	if r.PH == HoldPH || r.db.Mineral("Calcite") == nil || sol.Total("Ca+2") <= 0 || sol.Total(speciation.NameCarbonate) <= 0 {
+	if r.PH == HoldPH || r.db.Mineral("calcite") == nil || sol.Total("Ca2+") <= 0 || sol.Total(speciation.NameCarbonate) <= 0 {
 		return 0, false, nil
 	}
 	start, _, err := r.Speciate(sol)
 	if err != nil {
 		return 0, false, err
 	}
-	res, err := r.solve(&start, []string{"Calcite"})
+	res, err := r.solve(&start, []string{"calcite"})
 	if err != nil {
 		return 0, false, err
 	}
@@ -254,8 +254,8 @@ func (r *Reactor) alkalinityOf(sol Solution) (float64, error) {
 // aragonite (calcite stands for CaCO3). Names absent from a database are skipped by
 // the caller (see Reactor.KnownMinerals).
 func ScaleMinerals() []string {
-	return []string{"Calcite", "Siderite", "Rhodochrosite", "Strontianite", "Witherite",
-		"Gypsum", "Anhydrite", "Celestite", "Barite", "Fluorite", "SiO2(am)", "Halite"}
+	return []string{"calcite", "siderite", "rhodochrosite", "strontianite", "witherite",
+		"gypsum", "anhydrite", "celestine", "baryte", "fluorite", "amorphous silica", "halite"}
 }
 
 // KnownMinerals returns the names of list that are minerals (not gases) of the

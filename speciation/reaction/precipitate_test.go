@@ -24,19 +24,19 @@ func TestIdealBariteMixing(t *testing.T) {
 		{1e-3, 1e-5, 0.1, 10},
 	}
 	for _, tc := range tests {
-		a := prepare(t, r, idealWater(tc.tempC, map[string]float64{"Ba+2": tc.ba, "Cl-": 2 * tc.ba}))
-		b := prepare(t, r, idealWater(tc.tempC, map[string]float64{"Na+": 2 * tc.so4, "SO4-2": tc.so4}))
+		a := prepare(t, r, idealWater(tc.tempC, map[string]float64{"Ba2+": tc.ba, "Cl-": 2 * tc.ba}))
+		b := prepare(t, r, idealWater(tc.tempC, map[string]float64{"Na+": 2 * tc.so4, "SO4 2-": tc.so4}))
 		m, res, err := r.Mix(a, b, tc.f, tc.tempC)
 		if err != nil {
 			t.Fatal(err)
 		}
 		ba, so4 := (1-tc.f)*tc.ba, tc.f*tc.so4
 		logK := bariteLogK(tc.tempC)
-		si, _ := res.SI("Barite")
+		si, _ := res.SI("baryte")
 		if want := math.Log10(ba*so4) - logK; math.Abs(si-want) > 1e-9 {
 			t.Errorf("%+v: SI %.12f, hand %.12f", tc, si, want)
 		}
-		eq, err := r.Equilibrate(m, []string{"Barite"}, 1)
+		eq, err := r.Equilibrate(m, []string{"baryte"}, 1)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -62,29 +62,29 @@ func TestGypsumFromMixture(t *testing.T) {
 	for _, model := range []speciation.ActivityModel{speciation.TruesdellJones{}, speciation.Davies{}} {
 		r := New(db, model)
 		ca := speciation.Water{TempC: 25, PH: 7}
-		ca.SetTotal("Ca+2", 0.08)
+		ca.SetTotal("Ca2+", 0.08)
 		ca.SetTotal("Cl-", 0.16)
 		so := speciation.Water{TempC: 25, PH: 7}
 		so.SetTotal("Na+", 0.16)
-		so.SetTotal("SO4-2", 0.08)
+		so.SetTotal("SO4 2-", 0.08)
 		a, b := prepare(t, r, ca), prepare(t, r, so)
 		m, res, err := r.Mix(a, b, 0.5, 25)
 		if err != nil {
 			t.Fatal(err)
 		}
-		if si, _ := res.SI("Gypsum"); si <= 0 {
+		if si, _ := res.SI("gypsum"); si <= 0 {
 			t.Fatalf("mixture not supersaturated with gypsum: SI %.3f", si)
 		}
-		eq, err := r.Equilibrate(m, []string{"Gypsum"}, 1)
+		eq, err := r.Equilibrate(m, []string{"gypsum"}, 1)
 		if err != nil {
 			t.Fatal(err)
 		}
-		si, _ := eq.Result.SI("Gypsum")
+		si, _ := eq.Result.SI("gypsum")
 		if math.Abs(si) > 1e-6 {
 			t.Errorf("%s: SI after %.3g", model.Name(), si)
 		}
 		x := eq.Amounts[0].MolKgw
-		for _, c := range []string{"Ca+2", "SO4-2"} {
+		for _, c := range []string{"Ca2+", "SO4 2-"} {
 			if got := eq.After.Total(c) + x; math.Abs(got-m.Total(c)) > 1e-12 {
 				t.Errorf("%s: %s solution + solid %.15g, before %.15g", model.Name(), c, got, m.Total(c))
 			}
@@ -94,7 +94,7 @@ func TestGypsumFromMixture(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if si, _ := res2.SI("Gypsum"); math.Abs(si) > 1e-6 {
+		if si, _ := res2.SI("gypsum"); math.Abs(si) > 1e-6 {
 			t.Errorf("%s: re-speciated SI %.3g", model.Name(), si)
 		}
 	}
@@ -107,16 +107,16 @@ func TestGypsumFromMixture(t *testing.T) {
 func TestActiveSetProperties(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
-	cands := []string{"Calcite", "Aragonite", "Dolomite", "Magnesite", "Gypsum", "Anhydrite",
-		"Barite", "Celestite", "Strontianite", "Fluorite", "SiO2(am)", "Halite"}
+	cands := []string{"calcite", "aragonite", "dolomite", "magnesite", "gypsum", "anhydrite",
+		"baryte", "celestine", "strontianite", "fluorite", "amorphous silica", "halite"}
 	rng := rand.New(rand.NewPCG(3, 4))
 	for trial := 0; trial < 10; trial++ {
 		w := randomWater(rng)
 		w.PH = 7.6 + 0.8*rng.Float64()
-		w.SetTotal("Sr+2", 1e-4)
+		w.SetTotal("Sr2+", 1e-4)
 		w.SetTotal("F-", 5e-5)
-		w.SetTotal("Ca+2", 3e-3+5e-3*rng.Float64())
-		w.SetTotal("SO4-2", 5e-3+15e-3*rng.Float64())
+		w.SetTotal("Ca2+", 3e-3+5e-3*rng.Float64())
+		w.SetTotal("SO4 2-", 5e-3+15e-3*rng.Float64())
 		sol := prepare(t, r, w)
 		p, err := r.Precipitate(sol, PrecipOptions{Minerals: cands})
 		if err != nil {
@@ -178,7 +178,7 @@ func TestCCPPDefinition(t *testing.T) {
 	}
 	for _, tc := range tests {
 		w := speciation.Water{TempC: 18, PH: tc.ph}
-		w.SetTotal("Ca+2", tc.ca)
+		w.SetTotal("Ca2+", tc.ca)
 		w.SetTotal("Na+", 1e-3)
 		w.SetTotal("Cl-", 2*tc.ca+1e-3-tc.alk+1e-4)
 		w.SetAlkalinity(tc.alk)
@@ -186,7 +186,7 @@ func TestCCPPDefinition(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		si0, _ := res.SI("Calcite")
+		si0, _ := res.SI("calcite")
 		ccpp, ok, err := r.CCPP(sol, tc.kgwL)
 		if err != nil || !ok {
 			t.Fatalf("%+v: %v %v", tc, ok, err)
@@ -196,14 +196,14 @@ func TestCCPPDefinition(t *testing.T) {
 		}
 		x := ccpp / (2 * CaCO3AlkFactor) / tc.kgwL // mg/L over mg/mol as CaCO3, then per kgw
 		after := sol.Clone()
-		after.setTotal("Ca+2", sol.Total("Ca+2")-x)
+		after.setTotal("Ca2+", sol.Total("Ca2+")-x)
 		after.setTotal(speciation.NameCarbonate, sol.Total(speciation.NameCarbonate)-x)
 		after.Alkalinity -= 2 * x
 		_, res2, err := r.Speciate(after)
 		if err != nil {
 			t.Fatal(err)
 		}
-		if si, _ := res2.SI("Calcite"); math.Abs(si) > 1e-6 {
+		if si, _ := res2.SI("calcite"); math.Abs(si) > 1e-6 {
 			t.Errorf("%+v: CCPP %.4f mg/L; after removal SI %.3g", tc, ccpp, si)
 		}
 	}
@@ -216,7 +216,7 @@ func TestCCPPAgreesWithPrecipitate(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
 	w := speciation.Water{TempC: 25, PH: 8.1}
-	w.SetTotal("Ca+2", 2.5e-3)
+	w.SetTotal("Ca2+", 2.5e-3)
 	w.SetTotal("Na+", 1e-3)
 	w.SetTotal("Cl-", 2e-3)
 	w.SetAlkalinity(4e-3)
@@ -224,7 +224,7 @@ func TestCCPPAgreesWithPrecipitate(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, err := r.Precipitate(sol, PrecipOptions{Minerals: []string{"Calcite"}, KgwPerL: 1})
+	p, err := r.Precipitate(sol, PrecipOptions{Minerals: []string{"calcite"}, KgwPerL: 1})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -251,8 +251,8 @@ func TestActiveSetDropsDolomite(t *testing.T) {
 	db := defaultDB(t)
 	r := New(db, speciation.TruesdellJones{})
 	w := speciation.Water{TempC: 25, PH: 8.3}
-	w.SetTotal("Ca+2", 4e-3)
-	w.SetTotal("Mg+2", 0.15e-3)
+	w.SetTotal("Ca2+", 4e-3)
+	w.SetTotal("Mg2+", 0.15e-3)
 	w.SetTotal("Na+", 2e-3)
 	w.SetTotal("Cl-", 2e-3)
 	w.SetAlkalinity(8e-3)
@@ -260,26 +260,26 @@ func TestActiveSetDropsDolomite(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	sd, _ := res.SI("Dolomite")
-	sc, _ := res.SI("Calcite")
+	sd, _ := res.SI("dolomite")
+	sc, _ := res.SI("calcite")
 	if !(sd > sc && sc > 0) {
 		t.Fatalf("test water: dolomite SI %.2f should exceed calcite SI %.2f > 0", sd, sc)
 	}
-	eq, err := r.Equilibrate(sol, []string{"Calcite", "Dolomite"}, 1)
+	eq, err := r.Equilibrate(sol, []string{"calcite", "dolomite"}, 1)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(eq.Amounts) != 1 || eq.Amounts[0].Mineral != "Calcite" || eq.Amounts[0].MolKgw <= 0 {
+	if len(eq.Amounts) != 1 || eq.Amounts[0].Mineral != "calcite" || eq.Amounts[0].MolKgw <= 0 {
 		t.Fatalf("amounts %+v, want calcite only", eq.Amounts)
 	}
-	if si, _ := eq.Result.SI("Dolomite"); si > 1e-6 {
+	if si, _ := eq.Result.SI("dolomite"); si > 1e-6 {
 		t.Errorf("dolomite SI %.3g after the solve", si)
 	}
-	if si, _ := eq.Result.SI("Calcite"); math.Abs(si) > 1e-6 {
+	if si, _ := eq.Result.SI("calcite"); math.Abs(si) > 1e-6 {
 		t.Errorf("calcite SI %.3g after the solve", si)
 	}
 	// the same answer as calcite alone
-	alone, err := r.Equilibrate(sol, []string{"Calcite"}, 1)
+	alone, err := r.Equilibrate(sol, []string{"calcite"}, 1)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -304,7 +304,7 @@ func TestPHModesAgreeForBalancedWater(t *testing.T) {
 			t.Fatal(err)
 		}
 		m.TempC = 70 // heated: calcite supersaturated
-		p, err := r.Precipitate(m, PrecipOptions{Minerals: []string{"Calcite"}})
+		p, err := r.Precipitate(m, PrecipOptions{Minerals: []string{"calcite"}})
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -14,7 +14,7 @@ type PHMode int
 const (
 	// ConserveAlkalinity (the default) treats total alkalinity, like every component
 	// total, as a conserved quantity: it is the proton balance of the water relative to
-	// CO2(aq), H4SiO4, SO4-2 and F-, so it mixes linearly and changes only by the
+	// CO2(aq), H4SiO4, SO4 2- and F-, so it mixes linearly and changes only by the
 	// alkalinity carried away in a precipitate (2 eq per mol of CaCO3, 0 for BaSO4). The
 	// pH is the one at which the speciated water has that alkalinity with its total
 	// inorganic carbon. A water whose laboratory charge balance is not perfect keeps its
@@ -44,7 +44,7 @@ func (m PHMode) String() string {
 }
 
 // Solution is a water reduced to what is conserved when waters mix, change
-// temperature or lose a precipitate: the component totals (mol/kgw; CO3-2 is total
+// temperature or lose a precipitate: the component totals (mol/kgw; CO3 2- is total
 // inorganic carbon) and the total alkalinity (eq/kgw), at a temperature. PH is the pH
 // of the last speciation (the measured pH for a prepared end-member); it is a start
 // guess, and the held value in HoldPH mode.
@@ -160,7 +160,7 @@ func (r *Reactor) mineralAlk(name string) float64 {
 	m := r.db.Mineral(name)
 	a := 0.0
 	for _, t := range m.Terms {
-		a += t.Nu * r.db.Components[t.Index].Alkalinity
+		a += t.Nu * r.db.Component(t.Index).Alkalinity
 	}
 	return a
 }

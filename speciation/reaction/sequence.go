@@ -10,7 +10,7 @@ import (
 )
 
 // Reagent is what is added step by step in a precipitation sequence: a pure salt
-// (Salt: moles of each component per mole of salt, e.g. Na2SO4 = 2 Na+ + SO4-2; the
+// (Salt: moles of each component per mole of salt, e.g. Na2SO4 = 2 Na+ + SO4 2-; the
 // amount added is in mol per kg of water of the starting water, no water added) or a
 // water (Water, prepared; the amount added is in kg of its water per kg of water of
 // the starting water, and the totals dilute accordingly).
@@ -29,7 +29,7 @@ func (g Reagent) Unit() string {
 }
 
 // ParseSalt builds a salt reagent from a formula of components such as
-// "2 Na+ + SO4-2" (terms joined by " + ", each an optional coefficient and a component
+// "2 Na+ + SO4 2-" (terms joined by " + ", each an optional coefficient and a component
 // of db). The salt must be electrically neutral. An acid may be written with H+
 // ("H+ + Cl-"); a base cannot (OH- is not a component).
 func ParseSalt(db *speciation.Database, name, formula string) (Reagent, error) {
@@ -37,25 +37,25 @@ func ParseSalt(db *speciation.Database, name, formula string) (Reagent, error) {
 	var charge float64
 	for i, term := range strings.Split(formula, " + ") {
 		f := strings.Fields(term)
-		nu := 1.0
-		switch len(f) {
-		case 1:
-		case 2:
-			v, err := strconv.ParseFloat(f[0], 64)
-			if err != nil || !(v > 0) || math.IsInf(v, 0) {
-				return Reagent{}, inputErr(ErrReagent, fmt.Sprintf("%s term %d", name, i+1), term)
-			}
-			nu = v
-		default:
+		if len(f) == 0 {
 			return Reagent{}, inputErr(ErrReagent, fmt.Sprintf("%s term %d", name, i+1), term)
 		}
-		c := f[len(f)-1]
+		nu := 1.0
+		if v, err := strconv.ParseFloat(f[0], 64); err == nil {
+			if !(v > 0) || math.IsInf(v, 0) || len(f) == 1 {
+				return Reagent{}, inputErr(ErrReagent, fmt.Sprintf("%s term %d", name, i+1), term)
+			}
+			nu, f = v, f[1:]
+		}
+		// A name may hold a space before its charge ("SO4 2-").
+		c := strings.Join(f, " ")
 		ci := db.ComponentIndex(c)
 		if ci < 0 || c == speciation.NameH2O {
 			return Reagent{}, inputErr(ErrReagent, fmt.Sprintf("%s term %d (unknown component)", name, i+1), c)
 		}
-		charge += nu * db.Components[ci].Charge
-		g.Salt = append(g.Salt, speciation.ComponentTotal{Component: c, MolKgw: nu})
+		comp := db.Component(ci)
+		charge += nu * comp.Charge
+		g.Salt = append(g.Salt, speciation.ComponentTotal{Component: comp.Name, MolKgw: nu})
 	}
 	if math.Abs(charge) > 1e-12 {
 		return Reagent{}, inputErr(ErrReagent, name+" (not neutral)", formula)
@@ -174,7 +174,7 @@ func (r *Reactor) Sequence(sol Solution, g Reagent, opt SequenceOptions) (*Seque
 		o := Onset{Mineral: m, Amount: x, Clean: true, Result: eq.Result}
 		for _, prev := range onset {
 			for _, t := range r.db.Mineral(prev).Terms {
-				if r.db.Components[t.Index].Charge <= 0 || t.Index == r.db.ComponentIndex(speciation.NameHPlus) {
+				if r.db.Component(t.Index).Charge <= 0 || t.Index == r.db.ComponentIndex(speciation.NameHPlus) {
 					continue
 				}
 				supplied := r.supplied(sol, g, x, t.Component)
@@ -293,7 +293,7 @@ func (r *Reactor) added(sol Solution, g Reagent, x float64) Solution {
 		if t.Component != speciation.NameHPlus {
 			out.setTotal(t.Component, out.Total(t.Component)+x*t.MolKgw)
 		}
-		out.Alkalinity += x * t.MolKgw * r.db.Components[r.db.ComponentIndex(t.Component)].Alkalinity
+		out.Alkalinity += x * t.MolKgw * r.db.Component(r.db.ComponentIndex(t.Component)).Alkalinity
 	}
 	return out
 }

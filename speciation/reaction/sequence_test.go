@@ -8,7 +8,7 @@ import (
 )
 
 // Selective precipitation in the ideal limit (activity coefficients 1, no ion pairs;
-// tinyDB): Na2SO4 added to a water holding Ba+2 and Sr+2. The classic first-year
+// tinyDB): Na2SO4 added to a water holding Ba2+ and Sr2+. The classic first-year
 // exercise (Petrucci et al., General Chemistry, 10th ed., ch. 18, selective
 // precipitation; from memory): each sulfate starts to precipitate when the free
 // sulfate reaches Ksp / [cation]; barite (smaller Ksp) comes first; at the onset of
@@ -33,23 +33,23 @@ func TestIdealSelectivePrecipitation(t *testing.T) {
 		{1e-4, 2e-3, 0.999, false},
 	}
 	for _, tc := range tests {
-		w := idealWater(25, map[string]float64{"Ba+2": tc.ba, "Sr+2": tc.sr, "Cl-": 2 * (tc.ba + tc.sr)})
+		w := idealWater(25, map[string]float64{"Ba2+": tc.ba, "Sr2+": tc.sr, "Cl-": 2 * (tc.ba + tc.sr)})
 		sol := prepare(t, r, w)
-		salt, err := ParseSalt(r.Database(), "Na2SO4", "2 Na+ + SO4-2")
+		salt, err := ParseSalt(r.Database(), "Na2SO4", "2 Na+ + SO4 2-")
 		if err != nil {
 			t.Fatal(err)
 		}
 		seq, err := r.Sequence(sol, salt, SequenceOptions{MaxAmount: 0.01, CleanRemoval: tc.clean,
-			Minerals: []string{"Barite", "Celestite"}})
+			Minerals: []string{"baryte", "celestine"}})
 		if err != nil {
 			t.Fatal(err)
 		}
-		if len(seq.Onsets) != 2 || seq.Onsets[0].Mineral != "Barite" || seq.Onsets[1].Mineral != "Celestite" {
+		if len(seq.Onsets) != 2 || seq.Onsets[0].Mineral != "baryte" || seq.Onsets[1].Mineral != "celestine" {
 			t.Fatalf("%+v: onsets %+v", tc, seq.Onsets)
 		}
 		for i, cation := range []float64{tc.ba, tc.sr} {
 			k := []float64{kBa, kSr}[i]
-			so4 := seq.Onsets[i].Result.Molality("SO4-2")
+			so4 := seq.Onsets[i].Result.Molality("SO4 2-")
 			if !relClose(so4, k/cation, 1e-8) {
 				t.Errorf("%+v %s: free SO4 at onset %.10g, Ksp/[cation] %.10g", tc, seq.Onsets[i].Mineral, so4, k/cation)
 			}
@@ -66,7 +66,7 @@ func TestIdealSelectivePrecipitation(t *testing.T) {
 		}
 		res := seq.Onsets[1].Residual
 		want := kBa * tc.sr / (kSr * tc.ba)
-		if len(res) != 1 || res[0].Component != "Ba+2" || !relClose(res[0].Fraction, want, 1e-7) {
+		if len(res) != 1 || res[0].Component != "Ba2+" || !relClose(res[0].Fraction, want, 1e-7) {
 			t.Errorf("%+v: residual %+v, hand %.6g", tc, res, want)
 		}
 		if seq.Clean != tc.wantClean || seq.Onsets[1].Clean != tc.wantClean {
@@ -80,14 +80,14 @@ func TestIdealSelectivePrecipitation(t *testing.T) {
 // onset of barite is where (Ba0/(1+x)) (x S/(1+x)) = Ksp, solved by hand for x.
 func TestIdealSequenceWithReagentWater(t *testing.T) {
 	r := idealReactor(t)
-	sol := prepare(t, r, idealWater(25, map[string]float64{"Ba+2": 1e-3, "Sr+2": 1e-3, "Cl-": 4e-3}))
-	reag := prepare(t, r, idealWater(25, map[string]float64{"Na+": 0.2, "SO4-2": 0.1}))
+	sol := prepare(t, r, idealWater(25, map[string]float64{"Ba2+": 1e-3, "Sr2+": 1e-3, "Cl-": 4e-3}))
+	reag := prepare(t, r, idealWater(25, map[string]float64{"Na+": 0.2, "SO4 2-": 0.1}))
 	seq, err := r.Sequence(sol, Reagent{Name: "sulfate water", Water: &reag},
-		SequenceOptions{MaxAmount: 1, Minerals: []string{"Barite", "Celestite"}})
+		SequenceOptions{MaxAmount: 1, Minerals: []string{"baryte", "celestine"}})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(seq.Onsets) != 2 || seq.Onsets[0].Mineral != "Barite" || seq.Unit != "kg/kgw" {
+	if len(seq.Onsets) != 2 || seq.Onsets[0].Mineral != "baryte" || seq.Unit != "kg/kgw" {
 		t.Fatalf("onsets %+v unit %s", seq.Onsets, seq.Unit)
 	}
 	// Ba0 S x = Ksp (1+x)^2: x^2 Ksp + x (2 Ksp - Ba0 S) + Ksp = 0, smaller root, written
@@ -100,7 +100,7 @@ func TestIdealSequenceWithReagentWater(t *testing.T) {
 	}
 	// residual as moles: free Ba at the celestite onset times (1 + x), over Ba0
 	o := seq.Onsets[1]
-	ba, _ := o.Result.Total("Ba+2")
+	ba, _ := o.Result.Total("Ba2+")
 	if want := ba * (1 + o.Amount) / 1e-3; !relClose(o.Residual[0].Fraction, want, 1e-12) {
 		t.Errorf("residual %.6g, want %.6g", o.Residual[0].Fraction, want)
 	}
@@ -112,12 +112,12 @@ func TestParseSalt(t *testing.T) {
 		formula string
 		ok      bool
 	}{
-		{"2 Na+ + SO4-2", true},
-		{"Ca+2 + 2 Cl-", true},
+		{"2 Na+ + SO4 2-", true},
+		{"Ca2+ + 2 Cl-", true},
 		{"Na+ + Cl- + H4SiO4", true},
-		{"Na+ + SO4-2", false},  // not neutral
+		{"Na+ + SO4 2-", false},  // not neutral
 		{"2 Na+ + Xy-2", false}, // unknown component
-		{"two Na+ + SO4-2", false},
+		{"two Na+ + SO4 2-", false},
 		{"", false},
 	}
 	for _, tc := range tests {
@@ -134,7 +134,7 @@ func TestParseSalt(t *testing.T) {
 func TestReagentAdditionModesAgree(t *testing.T) {
 	db := defaultDB(t)
 	for _, tc := range []struct{ name, formula string }{
-		{"HCl", "H+ + Cl-"}, {"Na2CO3", "2 Na+ + CO3-2"}, {"CaCl2", "Ca+2 + 2 Cl-"},
+		{"HCl", "H+ + Cl-"}, {"Na2CO3", "2 Na+ + CO3 2-"}, {"CaCl2", "Ca2+ + 2 Cl-"},
 	} {
 		g, err := ParseSalt(db, tc.name, tc.formula)
 		if err != nil {

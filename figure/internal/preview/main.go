@@ -129,8 +129,8 @@ func DemoMap() figure.SIMap {
 		}
 	}
 	return figure.SIMap{
-		Title:   "Calcite saturation index, demo site (invented data)",
-		Caption: "Calcite; sampling round 2026-Q3; SI at the aquifer temperature 18 °C; Truesdell-Jones activities; ordinary kriging. Screening results, not a design.",
+		Title:   "calcite saturation index, demo site (invented data)",
+		Caption: "calcite; sampling round 2026-Q3; SI at the aquifer temperature 18 °C; Truesdell-Jones activities; ordinary kriging. Screening results, not a design.",
 		Grid:    g, Wells: demoWells(),
 		Features: []figure.Feature{
 			{Kind: figure.FeaturePolygon, Name: "site boundary", Coords: [][2]float64{{500100, 4200150}, {502350, 4200100}, {502400, 4201950}, {500150, 4201900}, {500100, 4200150}}},
@@ -142,7 +142,7 @@ func DemoMap() figure.SIMap {
 
 func DemoMapDegrees() figure.SIMap {
 	m := DemoMap()
-	m.Title = "Barite saturation index (degrees, invented data)"
+	m.Title = "baryte saturation index (degrees, invented data)"
 	m.Grid = nil
 	m.Features = nil
 	m.Units = figure.UnitsDegrees
@@ -155,7 +155,7 @@ func DemoMapDegrees() figure.SIMap {
 
 func DemoWellsOnly() figure.SIMap {
 	m := DemoMap()
-	m.Title = "Gypsum SI at wells (no surface)"
+	m.Title = "gypsum SI at wells (no surface)"
 	m.Grid = nil
 	m.HasCV = false
 	for i := range m.Wells {
@@ -177,9 +177,9 @@ func DemoProfile() figure.DepthProfile {
 		Title:   "Saturation index with depth, three well nests (invented data)",
 		Caption: "Round 2026-Q3; in-situ temperature; Truesdell-Jones activities. Grey band: near equilibrium (±0.5, common practice). Screening results, not a design.",
 		Panels: []figure.ProfilePanel{
-			{Mineral: "Calcite", Lines: []figure.ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
-			{Mineral: "Gypsum", Lines: []figure.ProfileLine{mk("Nest A", 0.1, 0.5), mk("Nest B", 0.0, 0.7), mk("Nest C", 0.3, 0.4)}},
-			{Mineral: "Barite", Lines: []figure.ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
+			{Mineral: "calcite", Lines: []figure.ProfileLine{mk("Nest A", 1.2, 0.8), mk("Nest B", 1.0, 0.6), mk("Nest C", 0.7, 0.9)}},
+			{Mineral: "gypsum", Lines: []figure.ProfileLine{mk("Nest A", 0.1, 0.5), mk("Nest B", 0.0, 0.7), mk("Nest C", 0.3, 0.4)}},
+			{Mineral: "baryte", Lines: []figure.ProfileLine{mk("Nest A", 0.2, 2.5), mk("Nest B", 0.4, 2.2), mk("Nest C", 0.1, 2.6)}},
 		},
 	}
 }
@@ -189,7 +189,7 @@ func DemoMixing() figure.Curves {
 	for i, m := range []struct {
 		name    string
 		a, b, c float64
-	}{{"Calcite", 0.3, 1.2, -0.9}, {"Gypsum", -1.2, 0.9, -0.2}, {"Barite", -0.5, 3.4, -3.0}, {"Celestite", -1.4, 1.0, -0.3}} {
+	}{{"calcite", 0.3, 1.2, -0.9}, {"gypsum", -1.2, 0.9, -0.2}, {"baryte", -0.5, 3.4, -3.0}, {"celestine", -1.4, 1.0, -0.3}} {
 		var x, y []float64
 		for f := 0.0; f <= 1.0001; f += 0.05 {
 			x = append(x, f)
@@ -209,7 +209,7 @@ func DemoTemperature() figure.Curves {
 	for _, m := range []struct {
 		name string
 		a, b float64
-	}{{"Calcite", 0.1, 0.012}, {"Anhydrite", -1.0, 0.015}, {"Gypsum", -0.5, -0.002}, {"Barite", 0.4, -0.004}} {
+	}{{"calcite", 0.1, 0.012}, {"anhydrite", -1.0, 0.015}, {"gypsum", -0.5, -0.002}, {"baryte", 0.4, -0.004}} {
 		var x, y []float64
 		for t := 10.0; t <= 90; t += 5 {
 			x = append(x, t)
@@ -224,7 +224,7 @@ func DemoBars() figure.Bars {
 	return figure.Bars{
 		Title: "Precipitation potential per mineral (invented data)", YLabel: "Precipitate (mg/L)",
 		Caption:     "Upper bound: no kinetics, all supersaturation removed. Screening results, not a design.",
-		Labels:      []string{"Calcite", "Gypsum", "Barite", "Celestite", "Siderite"},
+		Labels:      []string{"calcite", "gypsum", "baryte", "celestine", "siderite"},
 		Values:      []float64{42.3, 0, 3.1, 0.8, 12.5},
 		Secondary:   []float64{35.0, 0, 3.0, 0.2, 9.8},
 		PrimaryName: "alone", SecondaryName: "together",

@@ -1,0 +1,76 @@
+package assess_test
+
+import (
+	"bytes"
+	"context"
+	"encoding/csv"
+	"math"
+	"os"
+	"strconv"
+	"testing"
+
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/data"
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
+)
+
+// The interface renames (charge notation, mineral names, column scheme) must not move a
+// single number: every saturation index of the demo, by sample and mineral, equals the
+// one computed before the renames (testdata/demo_si_before_renames.csv, see
+// testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
+// the database accepts on input.
+func TestDemoSIUnchangedByRenames(t *testing.T) {
+	f, err := os.Open("../testdata/demo_si_before_renames.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, err := csv.NewReader(f).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	raw, err := data.Demo.ReadFile("demo/samples.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := hydro.Read(bytes.NewReader(raw), "demo/samples.csv", hydro.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := assess.Run(context.Background(), db, []*hydro.Batch{b}, assess.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	byLine := map[int]*assess.Record{}
+	for i := range recs {
+		byLine[recs[i].Row.Line] = &recs[i]
+	}
+	checked := 0
+	for _, r := range rows[1:] {
+		line, _ := strconv.Atoi(r[0])
+		want, _ := strconv.ParseFloat(r[3], 64)
+		rec := byLine[line]
+		if rec == nil || rec.Result == nil || rec.Row.Sample.ID != r[1] {
+			t.Errorf("line %d (%s): no speciated row", line, r[1])
+			continue
+		}
+		m := db.Mineral(r[2])
+		if m == nil {
+			t.Errorf("old mineral name %q is not accepted", r[2])
+			continue
+		}
+		got, ok := rec.Result.SI(m.Name)
+		if !ok || math.Abs(got-want) > 1e-9 {
+			t.Errorf("%s %s (now %s): SI %v, before the renames %v", r[1], r[2], m.Name, got, want)
+		}
+		checked++
+	}
+	if checked < 1500 {
+		t.Errorf("only %d values compared", checked)
+	}
+}
