@@ -46,7 +46,7 @@ func Example() {
 func ExampleWater_FixByPhase() {
 	db, _ := speciation.Default()
 	w := speciation.Water{TempC: 25, PHFromChargeBalance: true}
-	w.FixByPhase("Ca2+", "calcite", 0)    // SI = 0
+	w.FixByPhase("Ca2+", "calcite", 0)     // SI = 0
 	w.FixByPhase("CO3 2-", "CO2(g)", -3.5) // log10 pCO2 in atm
 	res, err := speciation.NewSolver(db, speciation.Davies{}).Solve(&w)
 	if err != nil {

@@ -115,7 +115,7 @@ func TestParseSalt(t *testing.T) {
 		{"2 Na+ + SO4 2-", true},
 		{"Ca2+ + 2 Cl-", true},
 		{"Na+ + Cl- + H4SiO4", true},
-		{"Na+ + SO4 2-", false},  // not neutral
+		{"Na+ + SO4 2-", false}, // not neutral
 		{"2 Na+ + Xy-2", false}, // unknown component
 		{"two Na+ + SO4 2-", false},
 		{"", false},
