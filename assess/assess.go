@@ -60,10 +60,34 @@ type Record struct {
 	// PHAdjusted is set when a charge-balance adjustment was asked for.
 	Adjusted string
 
-	// Status and Reasons are the final verdict: the reader's, the unit
-	// conversion's, the charge balance's and the solver's together.
-	Status  hydro.Status
-	Reasons []string
+	// Status and Issues are the final verdict: the reader's, the unit
+	// conversion's, the charge balance's, the position check's and the
+	// solver's findings together, typed (see the Code constants).
+	Status hydro.Status
+	Issues []hydro.Issue
+}
+
+// Reasons renders the issues as text, one per issue ("warning: ...").
+func (r *Record) Reasons() []string {
+	out := make([]string, len(r.Issues))
+	for i, is := range r.Issues {
+		out[i] = is.String()
+	}
+	return out
+}
+
+// FirstProblem returns the first warning or error of the record as text,
+// else its first issue, else "".
+func (r *Record) FirstProblem() string {
+	for _, is := range r.Issues {
+		if is.Severity >= hydro.Warning {
+			return is.String()
+		}
+	}
+	if len(r.Issues) > 0 {
+		return r.Issues[0].String()
+	}
+	return ""
 }
 
 // Sample returns the record's sample.
@@ -128,32 +152,47 @@ func worse(a, b hydro.Status) hydro.Status {
 	return a
 }
 
-// Note adds a reason and raises the status to at least st.
-func (r *Record) Note(st hydro.Status, format string, a ...any) {
-	r.Status = worse(r.Status, st)
-	r.Reasons = append(r.Reasons, fmt.Sprintf(format, a...))
+// statusOf is the row status an issue of a severity leads to.
+func statusOf(sev hydro.Severity) hydro.Status {
+	switch sev {
+	case hydro.Error:
+		return hydro.StatusRejected
+	case hydro.Warning:
+		return hydro.StatusWarning
+	}
+	return hydro.StatusOK
+}
+
+// Note adds an issue and raises the status to what its severity asks.
+func (r *Record) Note(sev hydro.Severity, code, format string, a ...any) {
+	r.Add(hydro.Issue{Severity: sev, Code: code, Message: fmt.Sprintf(format, a...)})
+}
+
+// Add adds an issue found elsewhere and raises the status accordingly.
+func (r *Record) Add(is hydro.Issue) {
+	r.Status = worse(r.Status, statusOf(is.Severity))
+	r.Issues = append(r.Issues, is)
 }
 
 func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt Options) {
 	r.Status = r.Row.Status
-	for _, is := range r.Row.Issues {
-		r.Reasons = append(r.Reasons, is.String())
-	}
+	r.Issues = append(r.Issues[:0], r.Row.Issues...)
 	s := &r.Row.Sample
+	checkPosition(r)
 	r.Balance = hydro.ChargeBalance(s)
 	switch {
 	case !r.Balance.Complete && math.Abs(r.Balance.ErrorPct) > IncompleteBalanceLimitPct:
-		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% with ions missing (%v): the analysis is incomplete or wrong", r.Balance.ErrorPct, r.Balance.Missing)
+		r.Note(hydro.Warning, CodeBalanceIncomplete, "charge balance %.1f %% with ions missing (%v): the analysis is incomplete or wrong", r.Balance.ErrorPct, r.Balance.Missing)
 	case !r.Balance.Complete:
 		// Info only: many files carry a partial analysis on purpose.
-		r.Reasons = append(r.Reasons, fmt.Sprintf("info: charge balance incomplete (missing %v)", r.Balance.Missing))
+		r.Note(hydro.Info, CodeBalanceIncomplete, "charge balance incomplete (missing %v)", r.Balance.Missing)
 	case r.Balance.Status == hydro.BalanceFail:
-		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+		r.Note(hydro.Warning, CodeBalanceFail, "charge balance %.1f %% fails Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	case r.Balance.Status == hydro.BalanceWarn:
-		r.Note(hydro.StatusWarning, "warning: charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
+		r.Note(hydro.Warning, CodeBalanceWarn, "charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	}
 	if r.Balance.HasTDSRatio && !r.Balance.TDSRatioOK {
-		r.Note(hydro.StatusWarning, "warning: measured/calculated TDS %.2f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
+		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.2f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
 	}
 	if r.Status == hydro.StatusRejected {
 		return
@@ -161,29 +200,22 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	w, issues := s.Water()
 	r.Water = w
 	for _, is := range issues {
-		switch is.Severity {
-		case hydro.Error:
-			r.Note(hydro.StatusRejected, "%s", is)
-		case hydro.Warning:
-			r.Note(hydro.StatusWarning, "%s", is)
-		default:
-			r.Reasons = append(r.Reasons, is.String())
-		}
+		r.Add(is)
 	}
 	if r.Status == hydro.StatusRejected {
 		return
 	}
 	if !w.HasPH {
-		r.Note(hydro.StatusWarning, "warning: no pH: speciation skipped")
+		r.Note(hydro.Warning, CodeNoPH, "no pH: speciation skipped")
 		return
 	}
 	if w.PHSource == "lab" {
-		r.Reasons = append(r.Reasons, "info: lab pH used (no field pH): it may differ from the pH in the aquifer by CO2 loss")
+		r.Note(hydro.Info, CodeLabPH, "lab pH used (no field pH): it may differ from the pH in the aquifer by CO2 loss")
 	}
 	tempC := w.TempC
 	if !w.HasTemp {
 		tempC = DefaultTempC
-		r.Note(hydro.StatusWarning, "warning: no temperature: speciated at %.0f C", DefaultTempC)
+		r.Note(hydro.Warning, CodeNoTemp, "no temperature: speciated at %.0f C", DefaultTempC)
 	}
 	SpeciationWater(sw, &w, tempC)
 	if opt.BalanceOn != "" {
@@ -197,7 +229,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 			reason = se.Reason
 		}
 		r.SolveError = reason
-		r.Note(hydro.StatusWarning, "warning: speciation failed: %s", reason)
+		r.Note(hydro.Warning, CodeSolveFailed, "speciation failed: %s", reason)
 		return
 	}
 	if !opt.Detail {
@@ -206,30 +238,30 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	r.Result = res
 	if res.Adjusted != "" {
 		r.Adjusted = res.Adjusted
-		r.Reasons = append(r.Reasons, fmt.Sprintf("info: %s total adjusted to %.4g mol/kgw to close the charge balance", res.Adjusted, res.AdjustedTotal))
+		r.Note(hydro.Info, CodeBalanceClosed, "%s total adjusted to %.4g mol/kgw to close the charge balance", res.Adjusted, res.AdjustedTotal)
 	}
 	for _, wmsg := range res.Warnings {
 		if wmsg == speciation.WarnIonicStrength {
-			r.Note(hydro.StatusWarning, "warning: ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
+			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
 			continue
 		}
 		if wmsg == speciation.WarnNoEnthalpy {
 			continue // a property of the data set, stated in the README, not of the sample
 		}
-		r.Reasons = append(r.Reasons, "info: "+wmsg)
+		r.Note(hydro.Info, CodeSolverNote, "%s", wmsg)
 	}
 	_, hasTIC := w.Molal[speciation.NameCarbonate]
 	switch {
 	case !hasTIC && !w.HasAlkalinity:
-		r.Reasons = append(r.Reasons, "info: no alkalinity or carbonate: carbonate minerals and log pCO2 not computed")
+		r.Note(hydro.Info, CodeNoCarbonate, "no alkalinity or carbonate: carbonate minerals and log pCO2 not computed")
 	case !hasTIC && w.AlkalinityEqKgw <= 0:
-		r.Reasons = append(r.Reasons, "info: alkalinity not above 0 (an acid water): carbonate minerals and log pCO2 not computed")
+		r.Note(hydro.Info, CodeNoCarbonate, "alkalinity not above 0 (an acid water): carbonate minerals and log pCO2 not computed")
 	}
 	if math.Abs(res.ChargeBalance) > SpeciatedBalanceLimitPct {
-		r.Note(hydro.StatusWarning, "warning: charge balance after speciation %.1f %%: saturation indices are doubtful", res.ChargeBalance)
+		r.Note(hydro.Warning, CodeSpeciatedBalance, "charge balance after speciation %.1f %%: saturation indices are doubtful", res.ChargeBalance)
 	}
 	if ix := res.Indices; ix.HasLangelier && (res.PH < 6.5 || res.PH > 9.5 || res.IonicStrength > 0.5) {
-		r.Reasons = append(r.Reasons, "info: Langelier and Ryznar indices outside their range (pH 6.5-9.5, ionic strength up to 0.5 mol/kgw)")
+		r.Note(hydro.Info, CodeIndicesRange, "Langelier and Ryznar indices outside their range (pH 6.5-9.5, ionic strength up to 0.5 mol/kgw)")
 	}
 }
 

@@ -85,8 +85,8 @@ func TestRunStatuses(t *testing.T) {
 	}
 	for i, w := range want {
 		r := recs[i]
-		if r.Status != w.st || (r.Result != nil) != w.result || !strings.Contains(strings.Join(r.Reasons, ";"), w.reason) {
-			t.Errorf("%s: status %s, result %v, reasons %v; want %s, %v, %q", r.Sample().ID, r.Status, r.Result != nil, r.Reasons, w.st, w.result, w.reason)
+		if r.Status != w.st || (r.Result != nil) != w.result || !strings.Contains(strings.Join(r.Reasons(), ";"), w.reason) {
+			t.Errorf("%s: status %s, result %v, reasons %v; want %s, %v, %q", r.Sample().ID, r.Status, r.Result != nil, r.Reasons(), w.st, w.result, w.reason)
 		}
 	}
 }
@@ -103,8 +103,8 @@ func TestRunTDSRatio(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	has := func(r Record) bool { return strings.Contains(strings.Join(r.Reasons, ";"), "measured/calculated TDS") }
+	has := func(r Record) bool { return strings.Contains(strings.Join(r.Reasons(), ";"), "measured/calculated TDS") }
 	if has(recs[0]) || !has(recs[1]) || recs[1].Status != hydro.StatusWarning {
-		t.Errorf("TDS check: %v / %v", recs[0].Reasons, recs[1].Reasons)
+		t.Errorf("TDS check: %v / %v", recs[0].Reasons(), recs[1].Reasons())
 	}
 }

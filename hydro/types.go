@@ -50,9 +50,12 @@ const (
 // row's own line (a later line of a long-shape sample), else 0.
 type Issue struct {
 	Severity Severity
-	Column   string
-	Message  string
-	Line     int
+	// Code is a stable, machine-readable name of the kind of finding (e.g.
+	// "balance-fail"); empty where the reader has none.
+	Code    string
+	Column  string
+	Message string
+	Line    int
 }
 
 func (i Issue) String() string {

@@ -12,6 +12,10 @@ const Caution = "These are screening results, not a design. Saturation indices s
 	"uncertainty of the analyses and of the thermodynamic data. Before any decision on well design, drinking " +
 	"water or injection, defer to local codes and to licensed professionals."
 
+// CautionLine is the one-line form of Caution that ends every summary printed on
+// a terminal.
+const CautionLine = "Screening results, not a design: defer to local codes and licensed professionals."
+
 // IndexFigure is a figure shown in index.html: its PNG embedded, and links
 // to its other formats.
 type IndexFigure struct {

@@ -14,6 +14,12 @@ import (
 	"gwsat.dev/gwsat/speciation"
 )
 
+// IsSIColumn reports whether a sample-table header is a mineral's saturation
+// index (ColumnName), not one of the water-engineering indices.
+func IsSIColumn(h string) bool {
+	return strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si"
+}
+
 // ColumnName returns the table column of a mineral's saturation index:
 // the lower-case name with non-alphanumerics as underscores, then "_si"
 // ("amorphous silica" becomes "amorphous_silica_si").
@@ -41,21 +47,6 @@ func SolidMinerals(db *speciation.Database) []string {
 		}
 	}
 	return out
-}
-
-// DepthM returns the sample depth below ground: the reported sample depth,
-// else the middle of the screen, and false when neither is known.
-func DepthM(s *hydro.Sample) (float64, bool) {
-	if s.DepthM.OK {
-		return s.DepthM.V, true
-	}
-	if s.ScreenTopM.OK && s.ScreenBottomM.OK {
-		return (s.ScreenTopM.V + s.ScreenBottomM.V) / 2, true
-	}
-	if s.ScreenTopM.OK {
-		return s.ScreenTopM.V, true
-	}
-	return 0, false
 }
 
 // SubstitutedAnalytes lists the analytes whose value came from the
@@ -102,11 +93,11 @@ func SampleTable(recs []assess.Record, minerals []string) *Table {
 		s := r.Sample()
 		row := []string{
 			Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round),
-			string(r.Status), Text(strings.Join(r.Reasons, "; ")),
+			string(r.Status), Text(strings.Join(r.Reasons(), "; ")),
 			opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
 		}
-		d, ok := DepthM(s)
-		row = append(row, cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
+		d, ok := assess.DepthM(s)
+		row = append(row, Cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
 			opt(s.TempC, 1), opt(s.PH, 2), s.PHSource)
 		if r.Water.KgWaterPerL > 0 {
 			row = append(row, Num(r.Water.TDSMgL, 0), Num(r.Water.DensityKgL, 4), r.Water.DensitySource)
@@ -129,12 +120,12 @@ func SampleTable(recs []assess.Record, minerals []string) *Table {
 			t.Rows = append(t.Rows, row)
 			continue
 		}
-		row = append(row, res.Model, Sig(res.IonicStrength, 4), cond(res.HasLogPCO2, Num(res.LogPCO2, 3)), Num(res.ChargeBalance, 2),
-			cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 2)), cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 2)),
-			cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
+		row = append(row, res.Model, Sig(res.IonicStrength, 4), Cond(res.HasLogPCO2, Num(res.LogPCO2, 3)), Num(res.ChargeBalance, 2),
+			Cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 2)), Cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 2)),
+			Cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
 		for _, m := range minerals {
 			si, ok := res.SI(m)
-			row = append(row, cond(ok, Num(si, 3)))
+			row = append(row, Cond(ok, Num(si, 3)))
 		}
 		t.Rows = append(t.Rows, row)
 	}
@@ -148,7 +139,8 @@ func epsg(c int) string {
 	return strconv.Itoa(c)
 }
 
-func cond(ok bool, s string) string {
+// Cond returns s when ok, else the empty cell.
+func Cond(ok bool, s string) string {
 	if !ok {
 		return ""
 	}
@@ -187,12 +179,21 @@ type jsonRecord struct {
 	Well    string             `json:"well_id,omitempty"`
 	Round   string             `json:"round,omitempty"`
 	Status  string             `json:"status"`
-	Reasons []string           `json:"reasons"`
+	Issues  []jsonIssue        `json:"issues"`
 	Balance *jsonBalance       `json:"charge_balance,omitempty"`
 	Water   map[string]jsonNum `json:"totals_mol_kgw,omitempty"`
 	Alk     *jsonNum           `json:"alkalinity_eq_kgw,omitempty"`
 	Result  *jsonResult        `json:"speciation,omitempty"`
 	Error   string             `json:"speciation_error,omitempty"`
+}
+
+// jsonIssue is a typed finding about a row (hydro.Issue).
+type jsonIssue struct {
+	Severity string `json:"severity"`
+	Code     string `json:"code,omitempty"`
+	Column   string `json:"column,omitempty"`
+	Line     int    `json:"line,omitempty"`
+	Message  string `json:"message"`
 }
 
 type jsonBalance struct {
@@ -235,12 +236,12 @@ func WriteJSON(w io.Writer, recs []assess.Record) error {
 	for i := range recs {
 		r := &recs[i]
 		s := r.Sample()
-		reasons := r.Reasons
-		if reasons == nil {
-			reasons = []string{}
+		issues := make([]jsonIssue, len(r.Issues))
+		for k, is := range r.Issues {
+			issues[k] = jsonIssue{Severity: is.Severity.String(), Code: is.Code, Column: is.Column, Line: is.Line, Message: is.Message}
 		}
 		jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
-			Status: string(r.Status), Reasons: reasons, Error: r.SolveError}
+			Status: string(r.Status), Issues: issues, Error: r.SolveError}
 		if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
 			jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
 		}

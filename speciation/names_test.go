@@ -1,6 +1,10 @@
 package speciation
 
-import "testing"
+import (
+	"errors"
+	"strings"
+	"testing"
+)
 
 // The notation follows IUPAC (charge as number then sign, e.g. Ca2+; IUPAC 2005
 // Red Book IR-3.4, from memory); these cases check that every spelling a user may type
@@ -79,5 +83,34 @@ func TestDatabaseReadOnly(t *testing.T) {
 	sp[0].Terms[0].Nu = 7
 	if db.Species()[0].Terms[0].Nu == 7 {
 		t.Fatal("Species shares memory with the database")
+	}
+}
+
+func TestParseMinerals(t *testing.T) {
+	db, err := Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, err := db.ParseMinerals(" Calcite, barite,calcite,,CALCITE, amorphous_silica ")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []string{"calcite", "baryte", "amorphous silica"}
+	if len(got) != len(want) {
+		t.Fatalf("got %q, want %q", got, want)
+	}
+	for i := range want {
+		if got[i] != want[i] {
+			t.Fatalf("got %q, want %q", got, want)
+		}
+	}
+	for _, bad := range []string{"calcit", "CO2(g)", "unobtainium"} {
+		_, err := db.ParseMinerals(bad)
+		if !errors.Is(err, ErrUnknownMineral) {
+			t.Errorf("%q: error %v", bad, err)
+		}
+	}
+	if _, err := db.ParseMinerals("calcit"); err == nil || !strings.Contains(err.Error(), "did you mean calcite") {
+		t.Errorf("no suggestion: %v", err)
 	}
 }

@@ -1,27 +1,22 @@
-package report
+package site
 
 import (
 	"fmt"
 	"sort"
-	"strings"
 
 	"gonum.org/v1/plot/vg"
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/report"
 )
 
 // groupOf names the Piper group of a sample: its sample type (a "Sample
 // type", "type" or "role" column), else its cluster, else "".
 func groupOf(s *hydro.Sample, clusterColumn string) string {
-	for k, v := range s.Extra {
-		switch strings.ToLower(strings.TrimSpace(k)) {
-		case "sample type", "sample_type", "type", "role":
-			if v = strings.TrimSpace(v); v != "" {
-				return v
-			}
-		}
+	if t := s.Type(); t != "" {
+		return t
 	}
 	return clusterOf(s, clusterColumn)
 }
@@ -30,7 +25,7 @@ func groupOf(s *hydro.Sample, clusterColumn string) string {
 // as reported) on a Piper diagram, grouped by sample type or cluster. Rows
 // that were rejected, or lack a cation or anion sum, are left out and
 // counted by the figure.
-func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
+func PiperFigure(recs []assess.Record, clusterColumn string) (report.Fig, bool) {
 	var pts []figure.PiperPoint
 	for i := range recs {
 		r := &recs[i]
@@ -60,7 +55,7 @@ func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
 		pts = append(pts, p)
 	}
 	if len(pts) == 0 {
-		return Fig{}, false
+		return report.Fig{}, false
 	}
 	// Small groups (end-members) are drawn last, on top of the many
 	// monitoring samples that would hide them.
@@ -69,7 +64,7 @@ func PiperFigure(recs []assess.Record, clusterColumn string) (Fig, bool) {
 		size[p.Group]++
 	}
 	sort.SliceStable(pts, func(i, j int) bool { return size[pts[i].Group] > size[pts[j].Group] })
-	return Fig{
+	return report.Fig{
 		Stem:  "piper",
 		Title: "Piper diagram",
 		Caption: fmt.Sprintf("Major-ion composition of %d samples as percent of the cation and anion sums in meq/L (Piper 1944), alkalinity standing for HCO3 + CO3; mixtures of two waters fall on straight lines between them. Rejected rows are left out.",

@@ -1,4 +1,4 @@
-package report
+package site
 
 import (
 	"errors"
@@ -14,34 +14,11 @@ import (
 	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/report"
 )
 
-// Position returns a sample's position in WGS84 longitude and latitude:
-// latitude/longitude as reported, or easting/northing converted from their
-// EPSG code. The error says why a sample cannot be placed.
-func Position(s *hydro.Sample) (orb.Point, error) {
-	switch {
-	case s.Lat.OK && s.Lon.OK:
-		p := orb.Point{s.Lon.V, s.Lat.V}
-		if err := geo.ValidLonLat(p); err != nil {
-			return p, err
-		}
-		return p, nil
-	case s.Easting.OK && s.Northing.OK:
-		if s.EPSG == 0 {
-			return orb.Point{}, errors.New("easting/northing without an EPSG code (give -epsg)")
-		}
-		p, err := geo.ToLonLat(s.Easting.V, s.Northing.V, s.EPSG)
-		if err != nil {
-			return p, err
-		}
-		return p, geo.ValidLonLat(p)
-	}
-	return orb.Point{}, errors.New("no coordinates")
-}
-
-// SiteOptions choose what BuildSite draws.
-type SiteOptions struct {
+// Options choose what Build draws.
+type Options struct {
 	// Minerals to map and profile; nil chooses those whose SI crosses zero
 	// somewhere on site (at most MaxAutoMinerals, in data order).
 	Minerals []string
@@ -66,15 +43,6 @@ type SiteOptions struct {
 // MaxAutoMinerals caps the minerals chosen automatically.
 const MaxAutoMinerals = 6
 
-// Fig is one figure of the report.
-type Fig struct {
-	Stem    string // file name without extension
-	Title   string
-	Caption string
-	Figure  figure.Figure
-	W, H    vg.Length
-}
-
 // SurfaceRow describes one interpolated surface for the surfaces table.
 type SurfaceRow struct {
 	Mineral, Zone, Round, Method string
@@ -84,11 +52,11 @@ type SurfaceRow struct {
 	Note                         string
 }
 
-// Site is what BuildSite makes: figures, the surfaces table and notes.
+// Site is what Build makes: figures, the surfaces table and notes.
 type Site struct {
 	Minerals []string
 	Zones    []Zone
-	Figures  []Fig
+	Figures  []report.Fig
 	Surfaces []SurfaceRow
 	Placed   int
 	Unplaced []string // "ID (reason)" for rows left off the maps
@@ -109,14 +77,14 @@ type placedRec struct {
 	hasD  bool
 }
 
-// BuildSite composes the SI maps and depth profiles of a run.
-func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site, error) {
+// Build composes the SI maps and depth profiles of a run.
+func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) {
 	site := &Site{}
 	var placed []placedRec
 	for i := range recs {
 		r := &recs[i]
 		s := r.Sample()
-		p, err := Position(s)
+		p, err := assess.Position(s)
 		if err != nil {
 			site.Unplaced = append(site.Unplaced, fmt.Sprintf("%s line %d (%v)", s.ID, r.Row.Line, err))
 			continue
@@ -125,7 +93,7 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 			site.Unplaced = append(site.Unplaced, fmt.Sprintf("%s line %d (%s, no saturation indices)", s.ID, r.Row.Line, r.Status))
 			continue
 		}
-		d, ok := DepthM(s)
+		d, ok := assess.DepthM(s)
 		placed = append(placed, placedRec{rec: r, ll: p, depth: d, hasD: ok})
 	}
 	site.Placed = len(placed)
@@ -208,7 +176,7 @@ func BuildSite(recs []assess.Record, minerals []string, opt SiteOptions) (*Site,
 			if n := noDepthCount(placed); n > 0 && z.Label != noDepthZone {
 				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone figure.", n)
 			}
-			site.Figures = append(site.Figures, Fig{
+			site.Figures = append(site.Figures, report.Fig{
 				Stem: "map_" + slug(m) + "_" + slug(z.Label), Title: fmt.Sprintf("%s, %s", m, z.Label), Caption: cap,
 				Figure: figure.Panels(panels, len(panels)), W: vg.Length(len(panels)) * 14 * vg.Centimeter, H: 13 * vg.Centimeter,
 			})
@@ -393,7 +361,7 @@ func wellLabel(s *hydro.Sample) string {
 }
 
 func slug(s string) string {
-	return strings.TrimSuffix(ColumnName(s), "_si")
+	return strings.TrimSuffix(report.ColumnName(s), "_si")
 }
 
 // clusterOf returns the well cluster of a sample: the value of the named
@@ -413,7 +381,7 @@ func clusterOf(s *hydro.Sample, column string) string {
 
 // profiles draws SI against depth per well cluster, one line per nest
 // (wells within 10 m of each other), for one sampling round.
-func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []Fig {
+func profiles(placed []placedRec, minerals, rounds []string, opt Options) []report.Fig {
 	round := opt.ProfileRound
 	if round == "" && len(rounds) > 0 {
 		round = rounds[len(rounds)-1]
@@ -431,7 +399,7 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 		byCluster[c] = append(byCluster[c], p)
 	}
 	sort.Strings(order)
-	var figs []Fig
+	var figs []report.Fig
 	for _, c := range order {
 		nests := nestsOf(byCluster[c])
 		var panels []figure.ProfilePanel
@@ -474,7 +442,7 @@ func profiles(placed []placedRec, minerals, rounds []string, opt SiteOptions) []
 		if round != "" {
 			title += ", round " + round
 		}
-		figs = append(figs, Fig{
+		figs = append(figs, report.Fig{
 			Stem:  "profile_" + slug(name),
 			Title: title,
 			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest (wells within 10 m of each other), single wells as unconnected markers; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
@@ -560,22 +528,4 @@ func colourLimit(panels []figure.Figure) float64 {
 		}
 	}
 	return math.Max(0.5, math.Ceil(m/0.5)*0.5)
-}
-
-// FlagPositions adds a warning to every record whose coordinates were
-// reported but cannot be placed (out of range, the (0, 0) of blank cells,
-// easting/northing without an EPSG code): such rows stay in every table and
-// are left off figure. Rows with no coordinates at all are not flagged.
-func FlagPositions(recs []assess.Record) {
-	for i := range recs {
-		s := recs[i].Sample()
-		// Only a complete pair is judged here: a half pair means the reader
-		// already dropped (and warned about) the other coordinate.
-		if !(s.Lat.OK && s.Lon.OK || s.Easting.OK && s.Northing.OK) {
-			continue
-		}
-		if _, err := Position(s); err != nil {
-			recs[i].Note(hydro.StatusWarning, "warning: position not usable (%v): left off maps", err)
-		}
-	}
 }

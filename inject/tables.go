@@ -1,24 +1,26 @@
-package report
+package inject
 
 import (
 	"fmt"
 	"strconv"
 
+	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/speciation/reaction"
 )
 
 // SweepTable lists a mixing or temperature sweep: one row per point, a
 // column per mineral SI.
-func SweepTable(sw *reaction.Sweep) *Table {
-	t := &Table{Header: []string{"fraction_b", "temp_c", "ph", "ionic_strength_mol_kgw", "alkalinity_meq_kgw", "log_pco2_atm"}}
+func SweepTable(sw *reaction.Sweep) *report.Table {
+	t := &report.Table{Header: []string{"injectate_share", "temp_c", "ph", "ionic_strength_mol_kgw", "alkalinity_meq_kgw", "log_pco2_atm"}}
 	for _, m := range sw.Minerals {
-		t.Header = append(t.Header, ColumnName(m))
+		t.Header = append(t.Header, report.ColumnName(m))
 	}
 	for _, p := range sw.Points {
-		row := []string{Num(p.Fraction, 3), Num(p.TempC, 1), Num(p.PH, 3), Sig(p.IonicStrength, 4), Num(p.Alkalinity*1000, 3), cond(p.HasLogPCO2, Num(p.LogPCO2, 3))}
+		row := []string{report.Num(p.Fraction, 3), report.Num(p.TempC, 1), report.Num(p.PH, 3), report.Sig(p.IonicStrength, 4), report.Num(p.Alkalinity*1000, 3), report.Cond(p.HasLogPCO2, report.Num(p.LogPCO2, 3))}
 		for i := range sw.Minerals {
-			row = append(row, cond(p.Defined[i], Num(p.SI[i], 3)))
+			row = append(row, report.Cond(p.Defined[i], report.Num(p.SI[i], 3)))
 		}
 		t.Rows = append(t.Rows, row)
 	}
@@ -26,22 +28,12 @@ func SweepTable(sw *reaction.Sweep) *Table {
 }
 
 // MaximaTable lists where each mineral's SI peaks along a sweep.
-func MaximaTable(sw *reaction.Sweep) *Table {
-	t := &Table{Header: []string{"mineral", "fraction_b_at_max", "temp_c_at_max", "si_max", "state_at_max"}}
+func MaximaTable(sw *reaction.Sweep) *report.Table {
+	t := &report.Table{Header: []string{"mineral", "injectate_share_at_max", "temp_c_at_max", "max_si", "state_at_max"}}
 	for _, m := range sw.Maxima() {
-		t.Add(m.Mineral, Num(m.Fraction, 3), Num(m.TempC, 1), Num(m.SI, 3), stateWord(m.SI))
+		t.Add(m.Mineral, report.Num(m.Fraction, 3), report.Num(m.TempC, 1), report.Num(m.SI, 3), assess.State(m.SI))
 	}
 	return t
-}
-
-func stateWord(si float64) string {
-	switch {
-	case si > 0.5:
-		return "supersaturated"
-	case si < -0.5:
-		return "undersaturated"
-	}
-	return "near equilibrium"
 }
 
 // SweepFigure draws SI against the sweep's variable for the minerals whose
@@ -81,8 +73,8 @@ func SweepFigure(sw *reaction.Sweep, title, caption string, temperature bool, mi
 
 // PrecipitationTable lists each supersaturated candidate precipitated alone
 // and all together.
-func PrecipitationTable(p *reaction.Precipitation) *Table {
-	t := &Table{Header: []string{"mineral", "si_before", "alone_mmol_kgw", "alone_mg_l", "together_mmol_kgw", "together_mg_l"}}
+func PrecipitationTable(p *reaction.Precipitation) *report.Table {
+	t := &report.Table{Header: []string{"mineral", "si_before", "alone_mmol_kgw", "alone_mg_l", "together_mmol_kgw", "together_mg_l"}}
 	together := map[string]reaction.Amount{}
 	for _, a := range p.Together.Amounts {
 		together[a.Mineral] = a
@@ -93,24 +85,24 @@ func PrecipitationTable(p *reaction.Precipitation) *Table {
 		}
 		a := eq.Amounts[0]
 		tg := together[a.Mineral]
-		t.Add(a.Mineral, Num(a.SIBefore, 3), Sig(a.MmolKgw, 4), Sig(a.MgL, 4), Sig(tg.MmolKgw, 4), Sig(tg.MgL, 4))
+		t.Add(a.Mineral, report.Num(a.SIBefore, 3), report.Sig(a.MmolKgw, 4), report.Sig(a.MgL, 4), report.Sig(tg.MmolKgw, 4), report.Sig(tg.MgL, 4))
 	}
 	return t
 }
 
 // WaterLeftTable lists the water before and after precipitating the
 // candidates together: pH and component totals.
-func WaterLeftTable(p *reaction.Precipitation) *Table {
-	t := &Table{Header: []string{"quantity", "before", "after_together"}}
-	t.Add("pH", Num(p.Before.PH, 3), Num(p.Together.After.PH, 3))
-	t.Add("temp_c", Num(p.Before.TempC, 1), Num(p.Together.After.TempC, 1))
-	t.Add("alkalinity_meq_kgw", Num(p.Before.Alkalinity*1000, 4), Num(p.Together.After.Alkalinity*1000, 4))
+func WaterLeftTable(p *reaction.Precipitation) *report.Table {
+	t := &report.Table{Header: []string{"quantity", "before", "after_together"}}
+	t.Add("pH", report.Num(p.Before.PH, 3), report.Num(p.Together.After.PH, 3))
+	t.Add("temp_c", report.Num(p.Before.TempC, 1), report.Num(p.Together.After.TempC, 1))
+	t.Add("alkalinity_meq_kgw", report.Num(p.Before.Alkalinity*1000, 4), report.Num(p.Together.After.Alkalinity*1000, 4))
 	after := map[string]float64{}
 	for _, c := range p.Together.After.Totals {
 		after[c.Component] = c.MolKgw
 	}
 	for _, c := range p.Before.Totals {
-		t.Add(c.Component+" (mmol/kgw)", Sig(c.MolKgw*1000, 5), Sig(after[c.Component]*1000, 5))
+		t.Add(c.Component+" (mmol/kgw)", report.Sig(c.MolKgw*1000, 5), report.Sig(after[c.Component]*1000, 5))
 	}
 	return t
 }
@@ -136,8 +128,8 @@ func PrecipitationFigure(p *reaction.Precipitation, title, caption string) figur
 }
 
 // SequenceTable lists the onsets of a precipitation sequence in order.
-func SequenceTable(s *reaction.SequenceResult) *Table {
-	t := &Table{Header: []string{"order", "mineral", "added_" + unitSlug(s.Unit), "residual_of_earlier", "clean"}}
+func SequenceTable(s *reaction.SequenceResult) *report.Table {
+	t := &report.Table{Header: []string{"order", "mineral", "added_" + unitSlug(s.Unit), "residual_of_earlier", "clean"}}
 	for i, o := range s.Onsets {
 		res := ""
 		for j, r := range o.Residual {
@@ -150,7 +142,7 @@ func SequenceTable(s *reaction.SequenceResult) *Table {
 		if i > 0 {
 			clean = strconv.FormatBool(o.Clean)
 		}
-		t.Add(strconv.Itoa(i+1), o.Mineral, Sig(o.Amount, 5), res, clean)
+		t.Add(strconv.Itoa(i+1), o.Mineral, report.Sig(o.Amount, 5), res, clean)
 	}
 	return t
 }
@@ -174,11 +166,11 @@ func unitSlug(u string) string {
 }
 
 // CloggingTable lists the clogging screen per mineral and in total.
-func CloggingTable(c *reaction.CloggingResult) *Table {
-	t := &Table{Header: []string{"mineral", "precipitate_g_per_m3", "density_g_cm3", "density_source", "solid_volume_m3"}}
+func CloggingTable(c *reaction.CloggingResult) *report.Table {
+	t := &report.Table{Header: []string{"mineral", "precipitate_g_per_m3", "density_g_cm3", "density_source", "solid_volume_m3"}}
 	for _, s := range c.Solids {
-		t.Add(s.Mineral, Sig(s.GPerM3, 4), Num(s.DensityGCm3, 3), s.DensitySource, Sig(s.VolumeM3, 4))
+		t.Add(s.Mineral, report.Sig(s.GPerM3, 4), report.Num(s.DensityGCm3, 3), s.DensitySource, report.Sig(s.VolumeM3, 4))
 	}
-	t.Add("total", "", "", "", Sig(c.SolidVolumeM3, 4))
+	t.Add("total", "", "", "", report.Sig(c.SolidVolumeM3, 4))
 	return t
 }
