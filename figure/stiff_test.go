@@ -247,3 +247,21 @@ func TestStiffSkippedAndClipped(t *testing.T) {
 		t.Errorf("invalid single water: error %v, want ErrNoData", err)
 	}
 }
+
+// Stiff diagrams of three invented wells on one page, on a fixed scale of
+// 10 meq/L so that other pages can share it. The Na + K (12 meq/L) and Cl
+// (12.5 meq/L) of W-3 lie beyond the scale and are drawn at its edge.
+func ExampleStiffGrid() {
+	g := StiffGrid{
+		Title: "Stiff diagrams (invented data)",
+		Waters: []StiffWater{
+			{Well: "W-1", Ca: 3.2, Mg: 1.1, Na: 0.9, K: 0.1, HCO3: 4.1, SO4: 0.6, Cl: 0.5},
+			{Well: "W-2", Ca: 1.0, Mg: 0.6, Na: 5.5, K: 0.2, HCO3: 5.2, CO3: 0.3, SO4: 0.9, Cl: 0.9},
+			{Well: "W-3", Ca: 2.0, Mg: 1.8, Na: 11.6, K: 0.4, HCO3: 2.2, SO4: 1.1, Cl: 12.5},
+		},
+		MaxMeqL: 10,
+	}
+	b, err := Render(g, "svg", 18*vg.Centimeter, 8*vg.Centimeter)
+	fmt.Println(err == nil, bytes.Contains(b, []byte("W-3")), g.Skipped())
+	// Output: true true 0
+}
