@@ -17,9 +17,9 @@
 // cation part and the anion part joined by hyphens: "Na-Cl",
 // "Ca-Mg-HCO3", "Na-HCO3-Cl", "Ca-Na-HCO3-SO4". The 50 % criterion is
 // the dominance criterion of the hydrochemical-facies concept of Back
-// (1966, USGS Professional Paper 498-A, from memory), which is also the
-// line between the central and corner fields of the Piper (1944) triangles;
-// naming the two largest ions when none dominates is common practice.
+// (1966, USGS Professional Paper 498-A, from memory); the same 50 % lines
+// divide the Piper (1944) triangles into the dominant-ion fields in common
+// use. Naming the two largest ions when none dominates is common practice.
 // An ion at exactly 50 % is not dominant. When two ions have the same
 // share the one earlier in the order Ca, Mg, Na (cations) or HCO3, SO4, Cl
 // (anions) is taken as the larger.

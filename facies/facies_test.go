@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"strconv"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -214,8 +215,8 @@ func TestSemarangFacies(t *testing.T) {
 		t.Logf("well %s: ours %q (%s), theirs %q; cations Ca/Mg/Na %.0f/%.0f/%.0f %%, anions HCO3/SO4/Cl %.0f/%.0f/%.0f %%",
 			rec[col["id"]], got, f.Type, want, cat[0], cat[1], cat[2], an[0], an[1], an[2])
 		ourC, ourA := f.LargestCation.Word(), f.LargestAnion.Word()
-		cationDiffers := !bytes.HasPrefix([]byte(want), []byte(ourC+" "))
-		anionDiffers := !bytes.HasSuffix([]byte(want), []byte(" "+ourA))
+		cationDiffers := !strings.HasPrefix(want, ourC+" ")
+		anionDiffers := !strings.HasSuffix(want, " "+ourA)
 		if (cationDiffers && gapC > 5) || (anionDiffers && gapA > 5) {
 			t.Errorf("well %s: disagreement without a near-tie (cation gap %.1f, anion gap %.1f points)", rec[col["id"]], gapC, gapA)
 		}

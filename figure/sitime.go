@@ -197,7 +197,7 @@ func (s SITime) Draw(c draw.Canvas) error {
 	titleH := lineHeight(tsty) + 2
 	cols := s.Cols
 	if cols < 1 {
-		cols = stiffCols(len(ps), float64(body.Max.X-body.Min.X), float64(body.Max.Y-body.Min.Y))
+		cols = gridCols(len(ps), float64(body.Max.X-body.Min.X), float64(body.Max.Y-body.Min.Y))
 	}
 	if cols > len(ps) {
 		cols = len(ps)

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"strings"
 
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -183,6 +184,47 @@ func (s Stiff) Draw(c draw.Canvas) error {
 	return nil
 }
 
+// StiffPerPage is the default number of panels per page of
+// StiffGrid.Pages: 30 panels (6 x 5) stay legible on an A4 or letter page
+// in landscape (common practice for small multiples).
+const StiffPerPage = 30
+
+// Pages splits g into pages of at most perPage waters (StiffPerPage when
+// perPage < 1), in order. All pages get the same MaxMeqL: g's own when
+// set, otherwise the scale fitted to all of g's waters, so that diagrams
+// on different pages compare. With more than one page, titles end in
+// " (page i of n)". An empty g gives one page, which draws ErrNoData.
+func (g StiffGrid) Pages(perPage int) []StiffGrid {
+	if perPage < 1 {
+		perPage = StiffPerPage
+	}
+	var good []StiffWater
+	for _, w := range g.Waters {
+		if stiffValid(w) {
+			good = append(good, w)
+		}
+	}
+	scale := g.MaxMeqL
+	if len(good) > 0 {
+		scale = stiffScale(g.MaxMeqL, good)
+	}
+	n := (len(g.Waters) + perPage - 1) / perPage
+	if n == 0 {
+		return []StiffGrid{g}
+	}
+	pages := make([]StiffGrid, 0, n)
+	for i := 0; i < n; i++ {
+		p := g
+		p.Waters = g.Waters[i*perPage : min((i+1)*perPage, len(g.Waters))]
+		p.MaxMeqL = scale
+		if n > 1 {
+			p.Title = strings.TrimSpace(fmt.Sprintf("%s (page %d of %d)", g.Title, i+1, n))
+		}
+		pages = append(pages, p)
+	}
+	return pages
+}
+
 // Skipped counts the waters left out.
 func (g StiffGrid) Skipped() int {
 	n := 0
@@ -215,7 +257,7 @@ func (g StiffGrid) Draw(c draw.Canvas) error {
 	body, legTop, capTop := pg.layout(c)
 	cols := g.Cols
 	if cols < 1 {
-		cols = stiffCols(len(good), float64(body.Max.X-body.Min.X), float64(body.Max.Y-body.Min.Y))
+		cols = gridCols(len(good), float64(body.Max.X-body.Min.X), float64(body.Max.Y-body.Min.Y))
 	}
 	if cols > len(good) {
 		cols = len(good)
@@ -233,9 +275,9 @@ func (g StiffGrid) Draw(c draw.Canvas) error {
 	return nil
 }
 
-// stiffCols chooses the number of columns so that panels come out about
-// 1.5 times as wide as high on a body of the given size.
-func stiffCols(n int, w, h float64) int {
+// gridCols chooses the number of columns for n panels so that they come
+// out about 1.5 times as wide as high on a body of the given size.
+func gridCols(n int, w, h float64) int {
 	best, bestErr := 1, math.Inf(1)
 	for cols := 1; cols <= n; cols++ {
 		rows := (n + cols - 1) / cols

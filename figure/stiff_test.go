@@ -85,14 +85,14 @@ func TestStiffScale(t *testing.T) {
 func TestStiffCols(t *testing.T) {
 	for _, n := range []int{1, 2, 5, 12, 30} {
 		for _, wh := range [][2]float64{{765, 539}, {453, 340}, {300, 800}} {
-			c := stiffCols(n, wh[0], wh[1])
+			c := gridCols(n, wh[0], wh[1])
 			if c < 1 || c > n {
 				t.Errorf("n=%d page %v: %d columns", n, wh, c)
 			}
 		}
 	}
 	// A landscape page takes more columns than a portrait one.
-	if a, b := stiffCols(30, 765, 539), stiffCols(30, 539, 765); a <= b {
+	if a, b := gridCols(30, 765, 539), gridCols(30, 539, 765); a <= b {
 		t.Errorf("landscape %d columns, portrait %d", a, b)
 	}
 }
@@ -264,4 +264,38 @@ func ExampleStiffGrid() {
 	b, err := Render(g, "svg", 18*vg.Centimeter, 8*vg.Centimeter)
 	fmt.Println(err == nil, bytes.Contains(b, []byte("W-3")), g.Skipped())
 	// Output: true true 0
+}
+
+// Pages split the waters in order, keep every water once, and give all
+// pages the scale fitted to all waters.
+func TestStiffPages(t *testing.T) {
+	ws := testStiffWaters() // 12 waters
+	ws[5].Na = 40           // one large value sets the common scale
+	g := StiffGrid{Title: "Stiff", Waters: ws}
+	pages := g.Pages(5)
+	if len(pages) != 3 {
+		t.Fatalf("%d pages, want 3", len(pages))
+	}
+	want := stiffScale(0, ws)
+	var got []string
+	for i, p := range pages {
+		if p.MaxMeqL != want {
+			t.Errorf("page %d: scale %v, want %v", i+1, p.MaxMeqL, want)
+		}
+		if wt := fmt.Sprintf("Stiff (page %d of 3)", i+1); p.Title != wt {
+			t.Errorf("page %d: title %q, want %q", i+1, p.Title, wt)
+		}
+		for _, w := range p.Waters {
+			got = append(got, w.Well)
+		}
+	}
+	if len(got) != len(ws) || got[0] != "MW-01" || got[11] != "MW-12" || len(pages[2].Waters) != 2 {
+		t.Errorf("pages hold %v", got)
+	}
+	if one := g.Pages(0); len(one) != 1 || one[0].Title != "Stiff" || len(one[0].Waters) != 12 {
+		t.Errorf("default page size: %d pages", len(one))
+	}
+	if empty := (StiffGrid{}).Pages(5); len(empty) != 1 {
+		t.Errorf("empty grid: %d pages, want 1", len(empty))
+	}
 }

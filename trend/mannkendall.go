@@ -13,7 +13,8 @@ import (
 // times and values must have the same length of at least MinPoints, hold
 // only finite numbers and span at least two distinct times; the order of
 // the pairs does not matter. Pairs at equal times count as ties (see the
-// package documentation).
+// package documentation). Time and memory grow as n^2 (all pairs are
+// kept for the slope), which suits series of up to a few thousand points.
 func Analyze(times, values []float64, alpha float64) (Result, error) {
 	if len(times) != len(values) {
 		return Result{}, fmt.Errorf("%w: %d times but %d values", ErrInput, len(times), len(values))

@@ -48,6 +48,10 @@ type Result struct {
 	HasExact bool
 	// Alpha is the two-sided significance level used for Direction and the
 	// slope interval.
+	//
+	// Direction is decided on P (the normal approximation) even when the
+	// exact p-value is available, so that it does not change character at
+	// MaxExact points; for n <= 10 callers may prefer PExact.
 	Alpha float64
 	// Direction is Increasing or Decreasing when P < Alpha.
 	Direction Direction
