@@ -27,8 +27,9 @@ type SITimeSeries struct {
 
 // SITime draws SI against time for many wells as small multiples, one
 // panel per well, in reading order, titled with the well. All panels share
-// the time axis and the SI axis, so they compare directly; tick labels are
-// printed on the left column and the bottom row only. Each panel has a
+// the time axis and the SI axis, so they compare directly; SI tick labels
+// are printed on the left column only. Panels need about 4 x 3 cm each to
+// stay legible. Each panel has a
 // shaded near-equilibrium band of half-width Band around SI = 0 (0:
 // DefaultBand; negative: none), a line at SI = 0, the values as markers
 // joined in time order, vertical bars from Low to High, and the trend line
@@ -203,6 +204,11 @@ func (s SITime) Draw(c draw.Canvas) error {
 		cols = len(ps)
 	}
 	rows := (len(ps) + cols - 1) / cols
+	// As many SI ticks as the panel height holds: about one labelled tick
+	// per 2 lines of tick type, between 2 and 5.
+	tickH := lineHeight(textStyle(sizeSmall))
+	panelH := (body.Max.Y-body.Min.Y)/vg.Length(rows) - titleH - 3*tickH
+	nY := max(2, min(5, int(panelH/(2*tickH))))
 	grid := make([][]*plot.Plot, rows)
 	for r := range grid {
 		grid[r] = make([]*plot.Plot, cols)
@@ -222,12 +228,12 @@ func (s SITime) Draw(c draw.Canvas) error {
 		pl.Y.Tick.Label.Font.Size = sizeSmall
 		pl.X.Min, pl.X.Max = t0, t1
 		pl.Y.Min, pl.Y.Max = y0, y1
-		// Labels on the outer panels only: the left column and the lowest
-		// panel of each column.
-		bottom := i+cols >= len(ps)
-		pl.X.Tick.Marker = labelTicks{m: niceTicks{n: 4}, show: bottom}
-		pl.Y.Tick.Marker = labelTicks{m: siTicks{n: 4}, show: col == 0}
-		if bottom {
+		// Time tick labels on every panel, so that every row has the same
+		// height and a panel with none below it still reads; the time axis
+		// title on the last row and SI labels on the left column only.
+		pl.X.Tick.Marker = niceTicks{n: 4}
+		pl.Y.Tick.Marker = labelTicks{m: siTicks{n: nY}, show: col == 0}
+		if r == rows-1 {
 			pl.X.Label.Text = tlabel
 		}
 		if col == 0 {

@@ -13,7 +13,8 @@ import (
 )
 
 // testSITime is invented: nine wells sampled in six rounds, SI drifting
-// around equilibrium, bars of -0.15/+0.2, trend lines on every other well.
+// around equilibrium, bars of -0.15/+0.2, trend lines on every other
+// well.
 func testSITime() SITime {
 	var ss []SITimeSeries
 	for w := 0; w < 9; w++ {
@@ -23,8 +24,10 @@ func testSITime() SITime {
 			v := -0.6 + 0.08*float64(w) + 0.05*float64(k)*float64(w%4-1)
 			tt, si, lo, hi = append(tt, y), append(si, v), append(lo, v-0.15), append(hi, v+0.2)
 		}
+		// The series are straight lines; the trend line runs through them.
+		slope := 0.05 * float64(w%4-1) / 2.5
 		ss = append(ss, SITimeSeries{Well: fmt.Sprintf("MW-%02d", w+1), Time: tt, SI: si, Low: lo, High: hi,
-			HasTrend: w%2 == 0, TrendSlope: 0.02, TrendIntercept: -0.5 - 0.02*1995})
+			HasTrend: w%2 == 0, TrendSlope: slope, TrendIntercept: si[0] - slope*tt[0]})
 	}
 	return SITime{Title: "Calcite SI over time (invented data)", Mineral: "calcite", Series: ss}
 }
