@@ -2,10 +2,12 @@ package trend
 
 import "errors"
 
-// MinPoints is the smallest series Analyze accepts. With fewer points the
-// smallest two-sided p-value the test can reach exceeds 0.05 (n = 4 gives
-// an exact minimum of 2/24 = 0.083, Kendall's null distribution), so the
-// answer would always be "no trend".
+// MinPoints is the smallest series Analyze accepts. The smallest
+// two-sided p-value n untied points can reach is 2/n! (all n! orderings
+// equally likely under no trend): 0.33 for n = 3, so no test is possible,
+// and 0.083 for n = 4, so four points can show a trend only at a
+// significance level above 0.083. Longer records (eight to ten values or
+// more) are common practice for trend statements.
 const MinPoints = 4
 
 var (
