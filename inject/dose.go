@@ -60,7 +60,7 @@ func (p *Planner) Dose(opt DoseOptions) (*DoseResult, error) {
 			name = opt.Salt
 		}
 		if g, err = reaction.ParseSalt(p.db, name, opt.Salt); err != nil {
-			return nil, err
+			return nil, fmt.Errorf("salt to add: %w", err)
 		}
 		if opt.UpTo == 0 {
 			opt.UpTo = 0.1

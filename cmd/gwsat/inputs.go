@@ -2,17 +2,15 @@ package main
 
 import (
 	"bytes"
-	"flag"
 	"fmt"
-	"io"
-	"os"
 	"strings"
+
+	"github.com/spf13/pflag"
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/internal/progress"
-	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/speciation"
 )
 
@@ -23,19 +21,19 @@ const DemoFile = "demo/samples.csv"
 type inputFlags struct {
 	demo      bool
 	nondetect string
-	colmap    string
+	columnMap string
 	epsg      int
 	model     string
-	balanceOn string
+	closeWith string
 }
 
-func (f *inputFlags) register(fs *flag.FlagSet) {
+func (f *inputFlags) register(fs *pflag.FlagSet) {
 	fs.BoolVar(&f.demo, "demo", false, "read the embedded demo data set (invented) instead of files")
 	fs.StringVar(&f.nondetect, "nondetect", "half", "value used for a non-detect: half (half the detection limit), dl (the limit) or zero")
-	fs.StringVar(&f.colmap, "colmap", "", "CSV file mapping headers to parameters (two columns: header,parameter)")
+	fs.StringVar(&f.columnMap, "column-map", "", "CSV file mapping headers to parameters (two columns: header,parameter)")
 	fs.IntVar(&f.epsg, "epsg", 0, "EPSG code of easting/northing columns when the file has none (e.g. 32633)")
 	fs.StringVar(&f.model, "model", "truesdell-jones", "activity model: "+strings.Join(speciation.ModelNames(), ", "))
-	fs.StringVar(&f.balanceOn, "balance-on", "", "adjust this ion (e.g. Cl or Na) so the speciated water is electrically neutral")
+	fs.StringVar(&f.closeWith, "close-balance-with", "", "adjust this ion (e.g. Cl or Na) so the speciated water is electrically neutral")
 }
 
 // readInputs reads the files named in args ("-" for standard input), or the
@@ -43,19 +41,19 @@ func (f *inputFlags) register(fs *flag.FlagSet) {
 func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 	nd, err := hydro.ParseNonDetectPolicy(f.nondetect)
 	if err != nil {
-		return nil, err
+		return nil, fmt.Errorf("--nondetect: %w", err)
 	}
 	opt := hydro.Options{NonDetect: nd, EPSG: f.epsg}
-	if f.colmap != "" {
-		m, err := hydro.ReadColumnMap(f.colmap)
+	if f.columnMap != "" {
+		m, err := hydro.ReadColumnMap(f.columnMap)
 		if err != nil {
-			return nil, err
+			return nil, fmt.Errorf("--column-map: %w", err)
 		}
 		opt.ColumnMap = m
 	}
 	if f.demo {
 		if len(args) > 0 {
-			return nil, fmt.Errorf("give either -demo or files, not both")
+			return nil, fmt.Errorf("give either --demo or files, not both")
 		}
 		raw, err := data.Demo.ReadFile(DemoFile)
 		if err != nil {
@@ -68,7 +66,7 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 		return []*hydro.Batch{b}, nil
 	}
 	if len(args) == 0 {
-		return nil, fmt.Errorf("no input: name one or more CSV files, '-' for standard input, or -demo")
+		return nil, fmt.Errorf("no input: name one or more CSV files, '-' for standard input, or --demo")
 	}
 	var out []*hydro.Batch
 	for _, a := range args {
@@ -89,46 +87,23 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 	return out, nil
 }
 
-// activityModel returns the model named by -model.
+// activityModel returns the model named by --model.
 func (f *inputFlags) activityModel() (speciation.ActivityModel, error) {
 	m, ok := speciation.ModelByName(f.model)
 	if !ok {
-		return nil, fmt.Errorf("unknown activity model %q (choose from %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
+		return nil, fmt.Errorf("--model: unknown activity model %q (choose from %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
 	}
 	return m, nil
 }
 
-// balanceComponent maps a user's ion name ("Cl", "Cl-", "chloride") to a
-// component of the database.
-func balanceComponent(db *speciation.Database, name string) (string, error) {
-	if name == "" {
-		return "", nil
-	}
-	if db.ComponentIndex(name) >= 0 {
-		return name, nil
-	}
-	short := strings.ToLower(strings.TrimRight(name, "+-0123456789"))
-	for _, c := range db.Components() {
-		if strings.ToLower(strings.TrimRight(c.Name, "+-0123456789")) == short && c.Charge != 0 {
-			return c.Name, nil
-		}
-	}
-	return "", fmt.Errorf("-balance-on %q: not an ion of the data (try Cl, Na, SO4, Ca)", name)
-}
-
-// assessAll reads, converts and speciates; it shows progress on a terminal.
-func (f *inputFlags) assessAll(e *env, args []string) ([]*hydro.Batch, []assess.Record, *speciation.Database, error) {
-	return f.assess(e, args, true)
-}
-
-// speciator is what assess.Run needs, set from the flags.
-type speciator struct {
+// chemistry is the data set, model and balance ion chosen by the flags.
+type chemistry struct {
 	db    *speciation.Database
 	model speciation.ActivityModel
 	bal   string
 }
 
-func (f *inputFlags) speciator() (*speciator, error) {
+func (f *inputFlags) chemistry() (*chemistry, error) {
 	model, err := f.activityModel()
 	if err != nil {
 		return nil, err
@@ -137,25 +112,26 @@ func (f *inputFlags) speciator() (*speciator, error) {
 	if err != nil {
 		return nil, err
 	}
-	bal, err := balanceComponent(db, f.balanceOn)
+	bal, err := assess.BalanceComponent(db, f.closeWith)
 	if err != nil {
-		return nil, err
+		return nil, fmt.Errorf("--close-balance-with: %w", err)
 	}
-	return &speciator{db: db, model: model, bal: bal}, nil
+	return &chemistry{db: db, model: model, bal: bal}, nil
 }
 
-func (sp *speciator) options(progress func(), detail bool) assess.Options {
-	return assess.Options{Model: sp.model, BalanceOn: sp.bal, Progress: progress, Detail: detail}
+func (c *chemistry) options(bar *progress.Bar, detail bool) assess.Options {
+	return assess.Options{Model: c.model, BalanceOn: c.bal, Progress: func() { bar.Add(1) }, Detail: detail}
 }
 
-// assess reads and speciates; detail keeps every species of every result
-// (needed for JSON and the species view, costly on large files).
-func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch, []assess.Record, *speciation.Database, error) {
+// assessAll reads and assesses every row, showing progress on a terminal;
+// detail keeps every species of every result (for JSON and the detailed
+// view; costly on large files).
+func (f *inputFlags) assessAll(e *env, args []string, detail bool) ([]*hydro.Batch, []assess.Record, *chemistry, error) {
 	batches, err := f.readInputs(e, args)
 	if err != nil {
 		return nil, nil, nil, err
 	}
-	sp, err := f.speciator()
+	ch, err := f.chemistry()
 	if err != nil {
 		return nil, nil, nil, err
 	}
@@ -164,17 +140,16 @@ func (f *inputFlags) assess(e *env, args []string, detail bool) ([]*hydro.Batch,
 		n += len(b.Rows)
 	}
 	bar := progress.New(stderrFile(e), "speciating", n)
-	recs, err := assess.Run(e.ctx, sp.db, batches, sp.options(func() { bar.Add(1) }, detail))
+	recs, err := assess.Run(e.ctx, ch.db, batches, ch.options(bar, detail))
 	bar.Done()
-	report.FlagPositions(recs)
-	return batches, recs, sp.db, err
+	return batches, recs, ch, err
 }
 
-// stderrFile returns the process's stderr when the command writes there, so
-// the progress bar can ask whether it is a terminal.
-func stderrFile(e *env) io.Writer {
-	if e.stderr == io.Writer(os.Stderr) {
-		return os.Stderr
+// files lists the inputs' names.
+func files(batches []*hydro.Batch) []string {
+	out := make([]string, len(batches))
+	for i, b := range batches {
+		out[i] = b.File
 	}
-	return e.stderr
+	return out
 }

@@ -1,24 +1,27 @@
 package main
 
 import (
-	"bytes"
 	"context"
 	"errors"
-	"flag"
 	"fmt"
-	"gwsat.dev/gwsat/internal/atomicfile"
 	"io"
 	"os"
 	"os/signal"
-	"sort"
+	"regexp"
 	"strings"
+	"syscall"
+
+	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
+
+	"gwsat.dev/gwsat/report"
 )
 
 // Exit codes.
 const (
-	exitOK       = 0 // everything ran; no row rejected
-	exitRejected = 1 // ran, but at least one row was rejected, or writing an output failed
-	exitUsage    = 2 // bad command line or bad input file
+	exitOK     = 0 // the command did its job (rejected rows are reported, not failures)
+	exitFailed = 1 // the job failed in part: an output could not be written, a solve failed, or --fail-on-rejected and a row was rejected
+	exitUsage  = 2 // bad command line or an input file that cannot be read at all
 )
 
 // env carries the streams a command uses, so tests can run commands in process.
@@ -29,18 +32,37 @@ type env struct {
 	stderr io.Writer
 }
 
-type command struct {
-	name    string
-	summary string
-	run     func(e *env, args []string) int
+// exitError ends a command with a code; its message (if any) goes to stderr.
+type exitError struct {
+	code int
+	err  error
 }
 
-var commands []command
+func (e *exitError) Error() string {
+	if e.err == nil {
+		return fmt.Sprintf("exit status %d", e.code)
+	}
+	return e.err.Error()
+}
 
-func register(c command) { commands = append(commands, c) }
+func (e *exitError) Unwrap() error { return e.err }
+
+// usagef is an error of the command line or of an unreadable input (exit 2).
+func usagef(format string, a ...any) error {
+	return &exitError{code: exitUsage, err: fmt.Errorf(format, a...)}
+}
+
+// usageErr wraps err as a usage error (exit 2).
+func usageErr(err error) error { return &exitError{code: exitUsage, err: err} }
+
+// failed is a partial failure (exit 1).
+func failed(err error) error { return &exitError{code: exitFailed, err: err} }
+
+// quietExit ends with a code and no message (the command said what it had to).
+func quietExit(code int) error { return &exitError{code: code} }
 
 func main() {
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 	defer stop()
 	os.Exit(run(ctx, os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
 }
@@ -48,97 +70,75 @@ func main() {
 // run is the whole program behind main, testable in process.
 func run(ctx context.Context, args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	e := &env{ctx: ctx, stdin: stdin, stdout: stdout, stderr: stderr}
-	if len(args) == 0 || args[0] == "help" || args[0] == "-h" || args[0] == "--help" || args[0] == "-help" {
-		if len(args) > 1 {
-			if c := lookup(args[1]); c != nil {
-				return c.run(e, []string{"-help"})
-			}
-		}
-		usage(stderr)
-		if len(args) == 0 {
-			return exitUsage
-		}
+	root := newRoot(e)
+	root.SetArgs(args)
+	root.SetIn(stdin)
+	root.SetOut(stderr) // help and usage go to stderr: stdout carries results
+	root.SetErr(stderr)
+	cmd, err := root.ExecuteC()
+	if err == nil {
 		return exitOK
 	}
-	c := lookup(args[0])
-	if c == nil {
-		fmt.Fprintf(stderr, "gwsat: unknown command %q\n\n", args[0])
-		usage(stderr)
-		return exitUsage
-	}
-	return c.run(e, args[1:])
-}
-
-func lookup(name string) *command {
-	for i := range commands {
-		if commands[i].name == name {
-			return &commands[i]
+	var xe *exitError
+	code := exitUsage // cobra's own errors: unknown command or flag, bad arguments
+	if errors.As(err, &xe) {
+		code = xe.code
+		if xe.err == nil {
+			return code
 		}
 	}
-	return nil
-}
-
-func usage(w io.Writer) {
-	fmt.Fprintln(w, "gwsat: which minerals a groundwater is ready to deposit or dissolve, where, and how much.")
-	fmt.Fprintln(w, "\nUsage: gwsat COMMAND [flags] [FILE ...]\n\nCommands:")
-	cs := append([]command(nil), commands...)
-	sort.Slice(cs, func(i, j int) bool { return cs[i].name < cs[j].name })
-	for _, c := range cs {
-		fmt.Fprintf(w, "  %-12s %s\n", c.name, c.summary)
+	name := "gwsat"
+	if cmd != nil && cmd != root {
+		name = cmd.CommandPath()
 	}
-	fmt.Fprintln(w, "\nRun 'gwsat COMMAND -help' for a command's flags.")
-	fmt.Fprintln(w, "Results are for screening, not a design; defer to local codes and licensed professionals.")
-}
-
-// newFlags returns a flag set that prints its usage to stderr and never exits.
-func newFlags(e *env, name, synopsis string) *flag.FlagSet {
-	fs := flag.NewFlagSet(name, flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	fs.Usage = func() {
-		fmt.Fprintf(e.stderr, "Usage: gwsat %s\n\nFlags:\n", synopsis)
-		fs.PrintDefaults()
+	fmt.Fprintf(stderr, "%s: %s\n", name, userText(err.Error()))
+	if code == exitUsage && cmd != nil && !errors.As(err, &xe) {
+		fmt.Fprintf(stderr, "Run '%s --help' for usage.\n", cmd.CommandPath())
 	}
-	return fs
-}
-
-// parseFlags parses args and maps -help and errors to exit codes; ok is
-// false when the caller should return code.
-func parseFlags(fs *flag.FlagSet, args []string) (code int, ok bool) {
-	if err := fs.Parse(args); err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return exitOK, false
-		}
-		return exitUsage, false
-	}
-	for _, a := range fs.Args() {
-		if len(a) > 1 && a[0] == '-' {
-			fmt.Fprintf(fs.Output(), "gwsat %s: %q after the file names: flags go before the files\n", fs.Name(), a)
-			return exitUsage, false
-		}
-	}
-	return 0, true
-}
-
-// writeFile writes an output atomically; "-" means the command's standard
-// output (buffered, so that nothing is printed when fill fails).
-func (e *env) writeFile(path string, fill func(w io.Writer) error) error {
-	if path == "-" {
-		var buf bytes.Buffer
-		if err := fill(&buf); err != nil {
-			return err
-		}
-		_, err := e.stdout.Write(buf.Bytes())
-		return err
-	}
-	return atomicfile.WriteWith(path, fill)
-}
-
-// failf prints a one-line error for the command and returns code.
-func failf(e *env, code int, format string, a ...any) int {
-	msg := fmt.Sprintf(format, a...)
-	if !strings.HasPrefix(msg, "gwsat") {
-		msg = "gwsat: " + msg
-	}
-	fmt.Fprintln(e.stderr, msg)
 	return code
 }
+
+// packagePrefix matches the package names that the library's error sentinels
+// start with ("speciation: ..."): a user is told what went wrong, not where in
+// the code.
+var packagePrefix = regexp.MustCompile(`\b(hydro|speciation|reaction|inject|assess|geo|figure|report|site|sitereport|atomicfile|outguard|lockfile): `)
+
+// userText is an error message as a user reads it.
+func userText(msg string) string { return packagePrefix.ReplaceAllString(msg, "") }
+
+func newRoot(e *env) *cobra.Command {
+	root := &cobra.Command{
+		Use:   "gwsat",
+		Short: "which minerals a groundwater is ready to deposit or dissolve, where, and how much",
+		Long: "gwsat reads groundwater lab results (CSV), checks them, computes speciation and mineral\n" +
+			"saturation indices, plans injection (blending, warming, deposits, pore filling) and writes\n" +
+			"site-report folders.\n\n" + report.CautionLine,
+		SilenceUsage:  true,
+		SilenceErrors: true,
+		// A bare "gwsat" prints the help and exits 2.
+		RunE: func(c *cobra.Command, args []string) error {
+			if len(args) > 0 {
+				return usagef("unknown command %q%s", args[0], commandHint(c, args[0]))
+			}
+			if err := c.Help(); err != nil {
+				return err
+			}
+			return quietExit(exitUsage)
+		},
+		Args: cobra.ArbitraryArgs,
+	}
+	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return usageErr(err) })
+	root.AddCommand(checkCmd(e), inspectCmd(e), reportCmd(e), injectCmd(e), versionCmd(e))
+	return root
+}
+
+// commandHint suggests a command for a misspelt one.
+func commandHint(c *cobra.Command, name string) string {
+	if s := c.SuggestionsFor(name); len(s) > 0 {
+		return " (did you mean " + strings.Join(s, " or ") + "?)"
+	}
+	return ""
+}
+
+// noFlagsAfter makes flag parsing accept flags anywhere (gwsat check lab.csv -o out.csv).
+func interspersed(fs *pflag.FlagSet) { fs.SetInterspersed(true) }

@@ -47,9 +47,12 @@ func col(t *testing.T, header []string, name string) int {
 // The demo has 96 rows; every one comes out, in order, and the deliberately
 // flawed ones (documented in data/demo/README.md) are flagged.
 func TestCheckDemoAccountsForEveryRow(t *testing.T) {
-	code, out, errs := gwsat(t, "", "check", "-demo")
-	if code != exitRejected {
-		t.Fatalf("exit %d, want %d (the demo has rejected rows); stderr:\n%s", code, exitRejected, errs)
+	code, out, errs := gwsat(t, "", "check", "--demo")
+	if code != exitOK {
+		t.Fatalf("exit %d, want 0 (rejected rows are reported, not failures); stderr:\n%s", code, errs)
+	}
+	if code, _, _ := gwsat(t, "", "check", "--demo", "--fail-on-rejected", "-q"); code != exitFailed {
+		t.Errorf("--fail-on-rejected: exit %d, want %d", code, exitFailed)
 	}
 	recs := readCSV(t, out)
 	if len(recs) != 97 {
@@ -94,8 +97,8 @@ func TestCheckBadInput(t *testing.T) {
 	p := filepath.Join(dir, "lab.csv")
 	os.WriteFile(p, []byte(good), 0o644)
 	code, out, errs := gwsat(t, "", "check", p)
-	if code != exitRejected {
-		t.Fatalf("exit %d, want %d", code, exitRejected)
+	if code != exitOK {
+		t.Fatalf("exit %d, want %d", code, exitOK)
 	}
 	recs := readCSV(t, out)
 	if len(recs) != 4 {
@@ -124,7 +127,7 @@ func TestCheckBadInput(t *testing.T) {
 	if code != exitUsage || !strings.Contains(errs, "header-only.csv") || !strings.Contains(errs, "no data rows") {
 		t.Errorf("header-only file: exit %d, stderr %q", code, errs)
 	}
-	code, _, errs = gwsat(t, "", "check", "-model", "nonsense", p)
+	code, _, errs = gwsat(t, "", "check", "--model", "nonsense", p)
 	if code != exitUsage || !strings.Contains(errs, "nonsense") {
 		t.Errorf("bad model: exit %d, %q", code, errs)
 	}
@@ -149,18 +152,18 @@ func TestCheckStdinLongShape(t *testing.T) {
 	}
 }
 
-func TestSpeciesView(t *testing.T) {
-	code, out, errs := gwsat(t, "", "species", "-demo", "-sample", "A1-D-R3")
+func TestInspectView(t *testing.T) {
+	code, out, errs := gwsat(t, "", "inspect", "--demo", "--sample", "A1-D-R3")
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
-	for _, want := range []string{"CaSO4(aq)", "calcite", "Ionic strength", "Distribution"} {
+	for _, want := range []string{"CaSO4(aq)", "calcite", "ionic strength", "How each constituent is carried", "How far from equilibrium"} {
 		if !strings.Contains(out, want) {
-			t.Errorf("species view lacks %q", want)
+			t.Errorf("inspect view lacks %q", want)
 		}
 	}
-	code, _, errs = gwsat(t, "", "species", "-demo", "-sample", "NOPE")
-	if code != exitUsage || !strings.Contains(errs, "NOPE") {
+	code, _, errs = gwsat(t, "", "inspect", "--demo", "--sample", "A1-D-R4")
+	if code != exitUsage || !strings.Contains(errs, "A1-D-R4") || !strings.Contains(errs, "did you mean") {
 		t.Errorf("unknown sample: exit %d %q", code, errs)
 	}
 }
@@ -172,8 +175,8 @@ func TestReportDemo(t *testing.T) {
 		t.Skip("report renders figures")
 	}
 	dir := t.TempDir()
-	code, _, errs := gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png,svg", "-minerals", "calcite,baryte")
-	if code != exitRejected {
+	code, _, errs := gwsat(t, "", "report", "--demo", "-o", dir, "--formats", "png,svg", "--minerals", "Calcite,barite,calcite")
+	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
 	figs, _ := filepath.Glob(filepath.Join(dir, "figures", "*.png"))
@@ -219,8 +222,8 @@ func TestReportDemo(t *testing.T) {
 
 	// Bad arguments are refused before anything in the folder changes.
 	before, _ := filepath.Glob(filepath.Join(dir, "figures", "*"))
-	for _, bad := range [][]string{{"-porosity", "2"}, {"-aquifer-temp", "150"}, {"-minerals", "CO2(g)"}} {
-		code, _, errs = gwsat(t, "", append([]string{"report", "-demo", "-o", dir}, bad...)...)
+	for _, bad := range [][]string{{"--porosity", "2"}, {"--aquifer-temp", "150"}, {"--minerals", "CO2(g)"}} {
+		code, _, errs = gwsat(t, "", append([]string{"report", "--demo", "-o", dir}, bad...)...)
 		if code != exitUsage {
 			t.Errorf("%v: exit %d (%s), want 2", bad, code, errs)
 		}
@@ -230,8 +233,8 @@ func TestReportDemo(t *testing.T) {
 	}
 
 	// A second report into the same folder leaves no figure of the first.
-	code, _, errs = gwsat(t, "", "report", "-demo", "-o", dir, "-formats", "png", "-minerals", "baryte")
-	if code != exitRejected {
+	code, _, errs = gwsat(t, "", "report", "--demo", "-o", dir, "--formats", "png", "--minerals", "baryte")
+	if code != exitOK {
 		t.Fatalf("second report: exit %d: %s", code, errs)
 	}
 	if old, _ := filepath.Glob(filepath.Join(dir, "figures", "map_calcite_*")); len(old) > 0 {
@@ -280,7 +283,7 @@ func TestReportEscapesUserText(t *testing.T) {
 		"B,W2,30.11,-100.1,7.1,15,61,12,20,2,30,40,180\n"+
 		"C,W3,30.1,-100.11,7.3,15,59,12,20,2,30,40,180\n"), 0o644)
 	out := filepath.Join(dir, "rep")
-	code, _, errs := gwsat(t, "", "report", "-o", out, "-formats", "png", in)
+	code, _, errs := gwsat(t, "", "report", in, "-o", out, "--formats", "png")
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -295,11 +298,11 @@ func TestReportEscapesUserText(t *testing.T) {
 	}
 }
 
-// -balance-on adjusts one ion so the speciated water is neutral: the
+// --close-balance-with adjusts one ion so the speciated water is neutral: the
 // speciated balance column becomes ~0 and the reasons say what was changed.
 func TestCheckBalanceOn(t *testing.T) {
 	in := "Sample,pH,Temp,Ca,Mg,Na,K,Cl,SO4,Alkalinity as CaCO3\nS,7.2,15,60,12,20,2,30,40,180\n"
-	code, out, errs := gwsat(t, in, "check", "-balance-on", "Cl", "-")
+	code, out, errs := gwsat(t, in, "check", "--close-balance-with", "Cl", "-")
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
@@ -312,7 +315,7 @@ func TestCheckBalanceOn(t *testing.T) {
 	if !strings.Contains(recs[1][col(t, h, "reasons")], "Cl- total adjusted") {
 		t.Errorf("reasons %q do not report the adjustment", recs[1][col(t, h, "reasons")])
 	}
-	code, _, errs = gwsat(t, in, "check", "-balance-on", "Xx", "-")
+	code, _, errs = gwsat(t, in, "check", "--close-balance-with", "Xx", "-")
 	if code != exitUsage || !strings.Contains(errs, "Xx") {
 		t.Errorf("unknown ion: exit %d, %q", code, errs)
 	}
