@@ -103,7 +103,9 @@ func TestRunTDSRatio(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	has := func(r Record) bool { return strings.Contains(strings.Join(r.Reasons(), ";"), "measured/calculated TDS") }
+	has := func(r Record) bool {
+		return strings.Contains(strings.Join(r.Reasons(), ";"), "measured/calculated TDS")
+	}
 	if has(recs[0]) || !has(recs[1]) || recs[1].Status != hydro.StatusWarning {
 		t.Errorf("TDS check: %v / %v", recs[0].Reasons(), recs[1].Reasons())
 	}
