@@ -54,8 +54,10 @@ func WriteWith(path string, fill func(w io.Writer) error) (err error) {
 		return err
 	}
 	name := tmp.Name()
+	committed := false
 	defer func() {
-		if err != nil {
+		// Also when fill panics: the panic goes on, the temporary file not.
+		if !committed {
 			tmp.Close()
 			os.Remove(name)
 		}
@@ -76,7 +78,11 @@ func WriteWith(path string, fill func(w io.Writer) error) (err error) {
 	if err = tmp.Close(); err != nil {
 		return fmt.Errorf("atomicfile: %w", err)
 	}
-	return renameIfInFlight(name, path)
+	if err = renameIfInFlight(name, path); err != nil {
+		return err
+	}
+	committed = true
+	return nil
 }
 
 // writeDevice fills a buffer first, so that a failing fill writes nothing.

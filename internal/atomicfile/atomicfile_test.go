@@ -127,3 +127,22 @@ func TestWriteFileDanglingLinkAndDirectory(t *testing.T) {
 		t.Errorf("writing a directory: %v, want ErrIsDir", err)
 	}
 }
+
+// A fill that panics leaves no temporary file; the panic still reaches the caller.
+func TestWriteWithPanicLeavesNothing(t *testing.T) {
+	dir := t.TempDir()
+	func() {
+		defer func() {
+			if recover() == nil {
+				t.Error("the panic was swallowed")
+			}
+		}()
+		WriteWith(filepath.Join(dir, "out.csv"), func(w io.Writer) error {
+			io.WriteString(w, "half")
+			panic("drawing failed")
+		})
+	}()
+	if entries, _ := os.ReadDir(dir); len(entries) != 0 {
+		t.Errorf("left behind: %v", entries)
+	}
+}
