@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 )
 
 // WriteFile writes data to path atomically (see WriteWith).
@@ -82,7 +83,22 @@ func WriteWith(path string, fill func(w io.Writer) error) (err error) {
 		return err
 	}
 	committed = true
+	syncDir(path)
 	return nil
+}
+
+// syncDir makes the rename itself durable by syncing the folder that holds
+// path. It is best effort: some systems cannot open or sync a folder, and the
+// data are already safe in the file.
+func syncDir(path string) {
+	dir, _ := filepath.Split(path)
+	if dir == "" {
+		dir = "."
+	}
+	if d, err := os.Open(dir); err == nil {
+		d.Sync()
+		d.Close()
+	}
 }
 
 // writeDevice fills a buffer first, so that a failing fill writes nothing.
