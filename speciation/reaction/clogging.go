@@ -169,7 +169,7 @@ func Clogging(db *speciation.Database, in CloggingInput) (*CloggingResult, error
 		})
 		out.SolidVolumeM3 += v
 	}
-	if err := finiteResult("total solid volume", out.SolidVolumeM3, "solids", len(in.Solids)); err != nil {
+	if err := finiteResult("total solid volume", out.SolidVolumeM3, "solids", fmt.Sprintf("%d minerals", len(in.Solids))); err != nil {
 		return nil, err
 	}
 	out.SolidVolumeM3PerYr = out.SolidVolumeM3 * 365 / in.Days
