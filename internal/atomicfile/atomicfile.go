@@ -1,7 +1,3 @@
-// Package atomicfile writes output files so that a reader never sees a half
-// file: data go to a temporary file in the destination's directory, which is
-// synced and then renamed over the destination. A failed write leaves the
-// destination as it was (absent or the previous version) and no temporary file.
 package atomicfile
 
 import (
@@ -12,7 +8,7 @@ import (
 	"path/filepath"
 )
 
-// WriteFile writes data to path atomically with permissions 0o644.
+// WriteFile writes data to path atomically (see WriteWith).
 func WriteFile(path string, data []byte) error {
 	return WriteWith(path, func(w io.Writer) error {
 		_, err := w.Write(data)
@@ -23,50 +19,59 @@ func WriteFile(path string, data []byte) error {
 // WriteWith calls fill with a writer for a temporary file next to path and,
 // when fill returns nil, renames the temporary file to path. When fill (or
 // the file system) fails, the temporary file is removed and the error
-// returned; path is not touched.
+// returned; path is not touched. A replaced file keeps its permission bits, a
+// new one gets 0o666 less the umask; a read-only destination is refused with
+// an error wrapping ErrReadOnly.
 func WriteWith(path string, fill func(w io.Writer) error) (err error) {
-	// A symbolic link is followed, so the file it points to is replaced and
-	// the link kept. A device or a named pipe (/dev/null, /dev/stdout, a
-	// FIFO) is written to directly: renaming over it would replace the
-	// device itself. Those writes cannot be atomic, and need not be.
-	if real, err := filepath.EvalSymlinks(path); err == nil {
-		path = real
+	path, err = resolve(path)
+	if err != nil {
+		return err
 	}
-	if fi, err := os.Stat(path); err == nil && !fi.Mode().IsRegular() {
-		if fi.IsDir() {
-			return fmt.Errorf("atomicfile: %s is a directory", path)
-		}
-		var buf bytes.Buffer
-		if err := fill(&buf); err != nil {
+	fi, statErr := os.Stat(path)
+	switch {
+	case statErr == nil && fi.IsDir():
+		return fmt.Errorf("%w: %s", ErrIsDir, path)
+	case statErr == nil && !fi.Mode().IsRegular():
+		// A device or a named pipe (/dev/null, /dev/stdout, a FIFO) is
+		// written to directly: renaming over it would replace the device
+		// itself. Those writes cannot be atomic, and need not be.
+		return writeDevice(path, fill)
+	case statErr == nil:
+		if err := checkWritable(path, fi); err != nil {
 			return err
 		}
-		f, err := os.OpenFile(path, os.O_WRONLY, 0)
-		if err != nil {
-			return fmt.Errorf("atomicfile: %w", err)
-		}
-		if _, err := f.Write(buf.Bytes()); err != nil {
-			f.Close()
-			return fmt.Errorf("atomicfile: %w", err)
-		}
-		return f.Close()
+	case !os.IsNotExist(statErr):
+		return fmt.Errorf("atomicfile: %w", statErr)
 	}
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
+
+	// Replacing: keep the old permission bits. New: let the kernel apply the
+	// umask to 0o666, exactly as for os.Create.
+	createPerm, perm, keep := os.FileMode(0o666), os.FileMode(0), false
+	if statErr == nil {
+		createPerm, perm, keep = 0o600, fi.Mode().Perm(), true
+	}
+	tmp, err := createTemp(path, createPerm)
 	if err != nil {
-		return fmt.Errorf("atomicfile: %w", err)
+		return err
 	}
 	name := tmp.Name()
+	committed := false
 	defer func() {
-		if err != nil {
+		// Also when fill panics: the panic goes on, the temporary file not.
+		if !committed {
 			tmp.Close()
 			os.Remove(name)
 		}
+		forget(name)
 	}()
 	if err = fill(tmp); err != nil {
 		return err
 	}
-	if err = tmp.Chmod(0o644); err != nil {
-		return fmt.Errorf("atomicfile: %w", err)
+	if keep {
+		// Created as 0o600 less the umask; now the old bits exactly.
+		if err = tmp.Chmod(perm); err != nil {
+			return fmt.Errorf("atomicfile: %w", err)
+		}
 	}
 	if err = tmp.Sync(); err != nil {
 		return fmt.Errorf("atomicfile: %w", err)
@@ -74,7 +79,43 @@ func WriteWith(path string, fill func(w io.Writer) error) (err error) {
 	if err = tmp.Close(); err != nil {
 		return fmt.Errorf("atomicfile: %w", err)
 	}
-	if err = os.Rename(name, path); err != nil {
+	if err = renameIfInFlight(name, path); err != nil {
+		return err
+	}
+	committed = true
+	syncDir(path)
+	return nil
+}
+
+// syncDir makes the rename itself durable by syncing the folder that holds
+// path. It is best effort: some systems cannot open or sync a folder, and the
+// data are already safe in the file.
+func syncDir(path string) {
+	dir, _ := filepath.Split(path)
+	if dir == "" {
+		dir = "."
+	}
+	if d, err := os.Open(dir); err == nil {
+		d.Sync()
+		d.Close()
+	}
+}
+
+// writeDevice fills a buffer first, so that a failing fill writes nothing.
+func writeDevice(path string, fill func(w io.Writer) error) error {
+	var buf bytes.Buffer
+	if err := fill(&buf); err != nil {
+		return err
+	}
+	f, err := os.OpenFile(path, os.O_WRONLY, 0)
+	if err != nil {
+		return fmt.Errorf("atomicfile: %w", err)
+	}
+	if _, err := f.Write(buf.Bytes()); err != nil {
+		f.Close()
+		return fmt.Errorf("atomicfile: %w", err)
+	}
+	if err := f.Close(); err != nil {
 		return fmt.Errorf("atomicfile: %w", err)
 	}
 	return nil

@@ -102,3 +102,47 @@ func TestWriteFileLinkAndPipe(t *testing.T) {
 		t.Errorf("the pipe was replaced")
 	}
 }
+
+// A dangling link gets its target created and stays a link, as with os.Create;
+// a directory is refused.
+func TestWriteFileDanglingLinkAndDirectory(t *testing.T) {
+	dir := t.TempDir()
+	link := filepath.Join(dir, "link.csv")
+	if err := os.Symlink("sub/../target.csv", link); err != nil {
+		t.Skip("no symlinks here:", err)
+	}
+	if err := os.Mkdir(filepath.Join(dir, "sub"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := WriteFile(link, []byte("new")); err != nil {
+		t.Fatal(err)
+	}
+	if fi, err := os.Lstat(link); err != nil || fi.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("the link was replaced by a file")
+	}
+	if got, err := os.ReadFile(filepath.Join(dir, "target.csv")); string(got) != "new" {
+		t.Errorf("target holds %q, %v", got, err)
+	}
+	if err := WriteFile(filepath.Join(dir, "sub"), []byte("x")); !errors.Is(err, ErrIsDir) {
+		t.Errorf("writing a directory: %v, want ErrIsDir", err)
+	}
+}
+
+// A fill that panics leaves no temporary file; the panic still reaches the caller.
+func TestWriteWithPanicLeavesNothing(t *testing.T) {
+	dir := t.TempDir()
+	func() {
+		defer func() {
+			if recover() == nil {
+				t.Error("the panic was swallowed")
+			}
+		}()
+		WriteWith(filepath.Join(dir, "out.csv"), func(w io.Writer) error {
+			io.WriteString(w, "half")
+			panic("drawing failed")
+		})
+	}()
+	if entries, _ := os.ReadDir(dir); len(entries) != 0 {
+		t.Errorf("left behind: %v", entries)
+	}
+}

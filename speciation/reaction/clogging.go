@@ -53,18 +53,37 @@ type CloggingResult struct {
 	SolidVolumeM3       float64
 	SolidVolumeM3PerYr  float64
 	PoreVolumeM3        float64 // pi (R^2 - rw^2) L phi
-	FilledFraction      float64 // of that pore volume, over the duration (may exceed 1)
-	FilledFractionPerYr float64
+	FilledFraction      float64 // of that pore volume, over the duration, at most 1
+	FilledFractionPerYr float64 // of that pore volume in 365 days, at most 1
 	// RadiusForFillM: the radius within which the solids of the whole duration would
 	// fill FillFraction of the pore space, sqrt(V / (F pi L phi) + rw^2).
 	RadiusForFillM float64
 	FillFraction   float64
-	Caution        string
+	// FullyClogged: the solids of the duration are at least the pore volume within
+	// RadiusM, so FilledFraction is capped at 1 and the screen reads "fully clogged
+	// within RadiusM after DaysToFull days" instead of a percentage above 100.
+	FullyClogged bool
+	// DaysToFull: days of injection until the solids equal the pore volume within
+	// RadiusM, PoreVolumeM3 / (SolidVolumeM3 / Days), whether or not that happens
+	// within the duration; 0 when nothing precipitates (the pores never fill).
+	DaysToFull float64
+	Caution    string
 }
 
 func nonNeg(field string, v float64) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
 		return inputErr(ErrNegative, field, v)
+	}
+	return nil
+}
+
+// finiteResult refuses a computed quantity that overflowed (or lost all its digits):
+// inputs that are each finite can still be absurd together (a rate of 1e308 m3/day),
+// and such a number must never reach a table or a message. The error names the
+// inputs that produced it.
+func finiteResult(quantity string, v float64, inputs string, value any) error {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return &InputError{Field: inputs, Value: fmt.Sprintf("%v (too large: the %s would overflow)", value, quantity), Err: ErrInput}
 	}
 	return nil
 }
@@ -75,6 +94,11 @@ func nonNeg(field string, v float64) error {
 // within which they would fill FillFraction of it. Densities and molar masses come
 // from db (each mineral's density cites its handbook). The result carries
 // CloggingCaution.
+//
+// The filled fraction never exceeds 1: when the solids reach the pore volume,
+// FullyClogged is set and DaysToFull says when that radius is full. Inputs that are
+// finite but make a computed volume overflow are an *InputError wrapping ErrInput that
+// names them.
 func Clogging(db *speciation.Database, in CloggingInput) (*CloggingResult, error) {
 	if in.Days == 0 {
 		in.Days = 365
@@ -108,6 +132,10 @@ func Clogging(db *speciation.Database, in CloggingInput) (*CloggingResult, error
 		return nil, inputErr(ErrInput, "fill fraction", in.FillFraction)
 	}
 	out := &CloggingResult{InjectedM3: in.RateM3PerDay * in.Days, FillFraction: in.FillFraction, Caution: CloggingCaution}
+	if err := finiteResult("injected volume", out.InjectedM3, "injection rate (m3/day) x duration (days)",
+		fmt.Sprintf("%g x %g", in.RateM3PerDay, in.Days)); err != nil {
+		return nil, err
+	}
 	for i, s := range in.Solids {
 		field := fmt.Sprintf("solids[%d]", i)
 		m := db.Mineral(s.Mineral)
@@ -132,18 +160,48 @@ func Clogging(db *speciation.Database, in CloggingInput) (*CloggingResult, error
 		}
 		vm := m.MolarVolume() // cm3/mol
 		v := mol * out.InjectedM3 * vm * 1e-6
+		if err := finiteResult("solid volume", v, field+" amount x injected volume", fmt.Sprintf("%g mol/m3 x %g m3", mol, out.InjectedM3)); err != nil {
+			return nil, err
+		}
 		out.Solids = append(out.Solids, SolidVolume{
 			Mineral: s.Mineral, MolPerM3: mol, GPerM3: mol * m.MolarMass,
 			DensityGCm3: m.Density, DensitySource: m.DensitySource, MolarVolumeCm3: vm, VolumeM3: v,
 		})
 		out.SolidVolumeM3 += v
 	}
+	if err := finiteResult("total solid volume", out.SolidVolumeM3, "solids", fmt.Sprintf("%d minerals", len(in.Solids))); err != nil {
+		return nil, err
+	}
 	out.SolidVolumeM3PerYr = out.SolidVolumeM3 * 365 / in.Days
+	if err := finiteResult("solid volume per year", out.SolidVolumeM3PerYr, "duration (days)", in.Days); err != nil {
+		return nil, err
+	}
 	L, phi, rw := in.ScreenLengthM, in.Porosity, in.WellRadiusM
 	out.PoreVolumeM3 = math.Pi * (in.RadiusM*in.RadiusM - rw*rw) * L * phi
-	out.FilledFraction = out.SolidVolumeM3 / out.PoreVolumeM3
-	out.FilledFractionPerYr = out.SolidVolumeM3PerYr / out.PoreVolumeM3
+	if err := finiteResult("pore volume", out.PoreVolumeM3, "near-well radius (m) x screen length (m)",
+		fmt.Sprintf("%g x %g", in.RadiusM, in.ScreenLengthM)); err != nil {
+		return nil, err
+	}
+	if !(out.PoreVolumeM3 > 0) {
+		// Radii so small that R^2 - rw^2 underflows: no pore space to compare with.
+		return nil, inputErr(ErrInput, "near-well radius (m), too small for a pore volume", in.RadiusM)
+	}
 	out.RadiusForFillM = math.Sqrt(out.SolidVolumeM3/(in.FillFraction*math.Pi*L*phi) + rw*rw)
+	if err := finiteResult("radius for the fill fraction", out.RadiusForFillM, "solids / (fill fraction x screen length (m) x porosity)",
+		fmt.Sprintf("%g m3 / (%g x %g x %g)", out.SolidVolumeM3, in.FillFraction, L, phi)); err != nil {
+		return nil, err
+	}
+	// A fraction above 1 would read "250 % of the pore space filled", which no pore
+	// space can be: cap it and say instead when the radius is full.
+	out.FilledFraction = math.Min(out.SolidVolumeM3/out.PoreVolumeM3, 1)
+	out.FilledFractionPerYr = math.Min(out.SolidVolumeM3PerYr/out.PoreVolumeM3, 1)
+	out.FullyClogged = out.SolidVolumeM3 >= out.PoreVolumeM3
+	if out.SolidVolumeM3 > 0 {
+		out.DaysToFull = out.PoreVolumeM3 / (out.SolidVolumeM3 / in.Days)
+		if err := finiteResult("days to full clogging", out.DaysToFull, "solids (too little to ever fill the pores)", out.SolidVolumeM3); err != nil {
+			return nil, err
+		}
+	}
 	return out, nil
 }
 

@@ -130,3 +130,120 @@ func TestBadInput(t *testing.T) {
 		}
 	}
 }
+
+// More solid than pore space: the fraction is capped at 1 and the days to full
+// clogging are given instead. Same solids as TestCloggingHandCalculation (27.124245e-6
+// m3 of solid per m3 injected), now within 0.5 m of a 0.1 m well:
+//
+//	pore volume pi (0.5^2 - 0.1^2) x 20 x 0.25 = 1.2 pi = 3.769911 m3
+//	365 days: 4.950175 m3 of solid, 1.313 times the pore volume -> fully clogged
+//	days to full: 3.769911 / (4.950175 / 365) = 277.9735 days
+//	30 days: 0.4068637 m3, 0.1079239 of the pores (not full); per year it would be
+//	  1.313, capped at 1; the days to full are the same 277.9735.
+func TestCloggingCappedWhenFull(t *testing.T) {
+	db := defaultDB(t)
+	tests := []struct {
+		name                            string
+		days                            float64
+		full                            bool
+		volume, filled, perYear, toFull float64
+	}{
+		{"a year, more than full", 365, true, 4.950174680, 1, 1, 277.9735406},
+		{"30 days, per year capped", 30, false, 0.4068636723, 0.1079239410, 1, 277.9735406},
+	}
+	for _, tc := range tests {
+		res, err := Clogging(db, CloggingInput{
+			Solids:       []Solid{{Mineral: "Calcite", MolPerM3: 0.5}, {Mineral: "Gypsum", GPerM3: 20}},
+			RateM3PerDay: 500, Days: tc.days, ScreenLengthM: 20, Porosity: 0.25, RadiusM: 0.5, WellRadiusM: 0.1,
+		})
+		if err != nil {
+			t.Fatalf("%s: %v", tc.name, err)
+		}
+		if res.FullyClogged != tc.full {
+			t.Errorf("%s: FullyClogged = %v, want %v", tc.name, res.FullyClogged, tc.full)
+		}
+		for _, c := range []struct {
+			name      string
+			got, want float64
+		}{
+			{"solid volume", res.SolidVolumeM3, tc.volume},
+			{"pore volume", res.PoreVolumeM3, 1.2 * math.Pi},
+			{"filled fraction", res.FilledFraction, tc.filled},
+			{"filled per year", res.FilledFractionPerYr, tc.perYear},
+			{"days to full", res.DaysToFull, tc.toFull},
+		} {
+			if !relClose(c.got, c.want, 1e-8) {
+				t.Errorf("%s %s: %.10g, hand %.10g", tc.name, c.name, c.got, c.want)
+			}
+		}
+	}
+}
+
+// Nothing precipitates: nothing fills, and DaysToFull stays 0 (never), not +Inf.
+func TestCloggingNoSolids(t *testing.T) {
+	res, err := Clogging(defaultDB(t), CloggingInput{RateM3PerDay: 500, ScreenLengthM: 20, Porosity: 0.25, RadiusM: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res.FullyClogged || res.DaysToFull != 0 || res.FilledFraction != 0 || res.RadiusForFillM != 0 {
+		t.Errorf("no solids gave %+v", res)
+	}
+}
+
+// Finite inputs whose products overflow are errors naming the input, never +Inf in a
+// result; and over rates from 1 to 1e308 m3/day every result that is returned is finite
+// with a filled fraction of at most 1.
+func TestCloggingOverflow(t *testing.T) {
+	db := defaultDB(t)
+	base := CloggingInput{Solids: []Solid{{Mineral: "Calcite", MolPerM3: 1}}, RateM3PerDay: 100,
+		ScreenLengthM: 10, Porosity: 0.2, RadiusM: 1}
+	tests := []struct {
+		name  string
+		edit  func(*CloggingInput)
+		field string // must appear in the error
+	}{
+		{"rate 1e308", func(in *CloggingInput) { in.RateM3PerDay = 1e308 }, "injection rate"},
+		{"amount 1e300 at 1e300 m3/day", func(in *CloggingInput) {
+			in.RateM3PerDay = 1e300
+			in.Solids[0].MolPerM3 = 1e300
+		}, "solids[0]"},
+		{"radius 1e200", func(in *CloggingInput) { in.RadiusM = 1e200 }, "near-well radius"},
+		{"radius 1e-200", func(in *CloggingInput) { in.RadiusM = 1e-200 }, "near-well radius"},
+	}
+	for _, tc := range tests {
+		in := base
+		in.Solids = append([]Solid(nil), base.Solids...)
+		tc.edit(&in)
+		res, err := Clogging(db, in)
+		if !errors.Is(err, ErrInput) || !strings.Contains(err.Error(), tc.field) {
+			t.Errorf("%s: result %+v, error %v; want ErrInput naming %q", tc.name, res, err, tc.field)
+			continue
+		}
+		if strings.Contains(err.Error(), "Inf") || strings.Contains(err.Error(), "NaN") {
+			t.Errorf("%s: message carries a non-finite number: %v", tc.name, err)
+		}
+	}
+	for rate := 1.0; rate <= 1e308; rate *= 1e4 {
+		in := base
+		in.RateM3PerDay = rate
+		res, err := Clogging(db, in)
+		if err != nil {
+			if !errors.Is(err, ErrInput) {
+				t.Errorf("rate %g: error %v, want ErrInput", rate, err)
+			}
+			continue
+		}
+		for _, v := range []float64{res.InjectedM3, res.SolidVolumeM3, res.SolidVolumeM3PerYr, res.PoreVolumeM3,
+			res.FilledFraction, res.FilledFractionPerYr, res.RadiusForFillM, res.DaysToFull} {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				t.Errorf("rate %g: non-finite value in %+v", rate, res)
+			}
+		}
+		if res.FilledFraction > 1 || res.FilledFractionPerYr > 1 {
+			t.Errorf("rate %g: filled fraction %g (per year %g) above 1", rate, res.FilledFraction, res.FilledFractionPerYr)
+		}
+		if res.FullyClogged != (res.SolidVolumeM3 >= res.PoreVolumeM3) {
+			t.Errorf("rate %g: FullyClogged %v with %g m3 of solid in %g m3 of pores", rate, res.FullyClogged, res.SolidVolumeM3, res.PoreVolumeM3)
+		}
+	}
+}
