@@ -92,12 +92,11 @@ func (r *PoreFillResult) Sentences() []string {
 	switch {
 	case c.SolidVolumeM3 <= 0:
 		out = append(out, "Nothing deposits: no pore space would be filled.")
-	case c.FilledFraction >= 1:
-		days := w.Days / c.FilledFraction
-		out = append(out, fmt.Sprintf("The pores within %s m of the well would be fully clogged, after about %s days.", report.Sig(w.RadiusM, 3), report.Sig(days, 3)))
+	case c.FullyClogged:
+		out = append(out, fmt.Sprintf("The pores within %s m of the well would be fully clogged after about %s days of injection.", report.Sig(w.RadiusM, 3), report.Sig(c.DaysToFull, 3)))
 	default:
-		out = append(out, fmt.Sprintf("That fills %s %% of the pore space within %s m of the well (%s %% per year); %.0f %% of it would be filled within %s m.",
-			report.Sig(100*c.FilledFraction, 3), report.Sig(w.RadiusM, 3), report.Sig(100*c.FilledFractionPerYr, 3), 100*c.FillFraction, report.Sig(c.RadiusForFillM, 3)))
+		out = append(out, fmt.Sprintf("That fills %s %% of the pore space within %s m of the well (%s %% per year; full after about %s days); %.0f %% of the porosity would be filled within %s m.",
+			report.Sig(100*c.FilledFraction, 3), report.Sig(w.RadiusM, 3), report.Sig(100*c.FilledFractionPerYr, 3), report.Sig(c.DaysToFull, 3), 100*c.FillFraction, report.Sig(c.RadiusForFillM, 3)))
 	}
 	return append(out, c.Caution)
 }

@@ -20,6 +20,7 @@ import (
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/inject"
 	"gwsat.dev/gwsat/internal/atomicfile"
+	"gwsat.dev/gwsat/internal/lockfile"
 	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/site"
 	"gwsat.dev/gwsat/speciation"
@@ -56,13 +57,18 @@ type Outcome struct {
 	Summary *assess.Summary
 }
 
+// staleAfter is the age beyond which a temporary file of ours in the report
+// folder is taken as left behind by a run that was killed (common practice: no
+// report takes an hour).
+const staleAfter = time.Hour
+
 // Files written by Write besides index.html and the figures.
 var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv"}
 
 // Write computes the site figures and the injection-planning section, then
 // writes the folder. Nothing is written when an argument is wrong. A figure that
 // cannot be drawn is reported in Outcome.FigureErrors and left out of the page.
-func Write(ctx context.Context, opt Options) (*Outcome, error) {
+func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	if opt.Model == nil {
 		opt.Model = speciation.TruesdellJones{}
 	}
@@ -99,6 +105,21 @@ func Write(ctx context.Context, opt Options) (*Outcome, error) {
 	// Everything is computed: now the folder is written.
 	if err := os.MkdirAll(filepath.Join(opt.Dir, "figures"), 0o755); err != nil {
 		return nil, err
+	}
+	release, err := lockfile.Acquire(opt.Dir)
+	if err != nil {
+		return nil, err
+	}
+	defer func() {
+		if rerr := release(); rerr != nil && err == nil {
+			err = rerr
+		}
+	}()
+	for _, d := range []string{opt.Dir, filepath.Join(opt.Dir, "figures")} {
+		// Temporary files a killed run left behind (our own names only).
+		if _, err := atomicfile.CleanStale(d, staleAfter); err != nil {
+			out.Notes = append(out.Notes, err.Error())
+		}
 	}
 	uniqueStems(figs)
 	tbl := report.SampleTable(recs, all)

@@ -44,6 +44,13 @@ func checkCmd(e *env) *cobra.Command {
 			"table row per input row, in input order, with a status and its reasons. A summary goes to\n" +
 			"standard error. Rejected rows are reported, and the command still exits 0 (see --fail-on-rejected).",
 		RunE: func(c *cobra.Command, args []string) error {
+			var g guard
+			if err := g.inputs(args); err != nil {
+				return err
+			}
+			if err := g.outputs(out, jsonOut); err != nil {
+				return err
+			}
 			if jsonOut != "" {
 				return checkInMemory(e, &in, &oc, args, out, jsonOut, showColumns)
 			}
@@ -133,7 +140,7 @@ func finishCheck(e *env, oc *outcomeFlags, batches []*hydro.Batch, sum *assess.S
 		printColumns(e.stderr, batches)
 	}
 	if !oc.quiet {
-		if err := sum.Write(e.stderr, report.CautionLine); err != nil {
+		if err := e.writeSummary(sum); err != nil {
 			return failed(err)
 		}
 	}

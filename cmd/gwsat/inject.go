@@ -60,8 +60,16 @@ func (p *planFlags) register(c *cobra.Command, withFigure bool) {
 	}
 }
 
-// planner reads and assesses the input and returns a planner.
-func (p *planFlags) planner(e *env, args []string) (*inject.Planner, error) {
+// planner checks the outputs against the inputs, reads and assesses the input
+// and returns a planner. extra are the command's other output files.
+func (p *planFlags) planner(e *env, args []string, extra ...string) (*inject.Planner, error) {
+	var g guard
+	if err := g.inputs(args); err != nil {
+		return nil, err
+	}
+	if err := g.outputs(append([]string{p.out, p.figure}, extra...)...); err != nil {
+		return nil, err
+	}
 	_, recs, ch, err := p.in.assessAll(e, args, false)
 	if err != nil {
 		return nil, err
@@ -133,7 +141,7 @@ func blendCmd(e *env) *cobra.Command {
 				}
 				opt.FixedTemp = true
 			}
-			pl, err := p.planner(e, args)
+			pl, err := p.planner(e, args, peaks)
 			if err != nil {
 				return usageErr(err)
 			}
@@ -253,7 +261,7 @@ func depositCmd(e *env) *cobra.Command {
 			if err := checkFigurePath(p.figure); err != nil {
 				return err
 			}
-			pl, err := p.planner(e, args)
+			pl, err := p.planner(e, args, residual)
 			if err != nil {
 				return usageErr(err)
 			}

@@ -23,6 +23,13 @@ func inspectCmd(e *env) *cobra.Command {
 			if id == "" {
 				return usagef("--sample is required")
 			}
+			var g guard
+			if err := g.inputs(args); err != nil {
+				return err
+			}
+			if err := g.outputs(jsonOut); err != nil {
+				return err
+			}
 			_, recs, _, err := in.assessAll(e, args, true)
 			if err != nil {
 				return usageErr(err)

@@ -14,6 +14,8 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 
+	"gwsat.dev/gwsat/internal/atomicfile"
+	"gwsat.dev/gwsat/internal/sanitize"
 	"gwsat.dev/gwsat/report"
 )
 
@@ -62,9 +64,20 @@ func failed(err error) error { return &exitError{code: exitFailed, err: err} }
 func quietExit(code int) error { return &exitError{code: code} }
 
 func main() {
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
-	defer stop()
-	os.Exit(run(ctx, os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
+	// On interrupt or termination, remove the temporary files of the writes in
+	// flight (no half output, no hidden leftovers) and exit as the signal asks.
+	sigs := make(chan os.Signal, 1)
+	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM)
+	go func() {
+		s := <-sigs
+		atomicfile.RemoveInFlight()
+		code := 130
+		if sig, ok := s.(syscall.Signal); ok {
+			code = 128 + int(sig)
+		}
+		os.Exit(code)
+	}()
+	os.Exit(run(context.Background(), os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
 }
 
 // run is the whole program behind main, testable in process.
@@ -91,7 +104,7 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, stderr io.
 	if cmd != nil && cmd != root {
 		name = cmd.CommandPath()
 	}
-	fmt.Fprintf(stderr, "%s: %s\n", name, userText(err.Error()))
+	fmt.Fprintf(stderr, "%s: %s\n", name, sanitize.Terminal(userText(err.Error())))
 	if code == exitUsage && cmd != nil && !errors.As(err, &xe) {
 		fmt.Fprintf(stderr, "Run '%s --help' for usage.\n", cmd.CommandPath())
 	}

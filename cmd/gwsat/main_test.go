@@ -320,3 +320,43 @@ func TestCheckBalanceOn(t *testing.T) {
 		t.Errorf("unknown ion: exit %d, %q", code, errs)
 	}
 }
+
+// An output may never be one of the inputs, whatever the spelling of its path:
+// the same name, a hard link, a symbolic link, and a report folder holding the
+// input are refused with exit 2 before anything is written, and the lab file is
+// left as it was.
+func TestOutputNeverOverwritesInput(t *testing.T) {
+	dir := t.TempDir()
+	lab := filepath.Join(dir, "lab.csv")
+	body := "Sample,pH,Temp,Ca,Mg,Na,K,Cl,SO4,Alkalinity as CaCO3\nS,7.2,15,60,12,20,2,30,40,180\n"
+	if err := os.WriteFile(lab, []byte(body), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	hard := filepath.Join(dir, "hard.csv")
+	soft := filepath.Join(dir, "soft.csv")
+	if err := os.Link(lab, hard); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Symlink(lab, soft); err != nil {
+		t.Fatal(err)
+	}
+	for _, args := range [][]string{
+		{"check", lab, "-o", lab},
+		{"check", lab, "-o", filepath.Join(dir, ".", "sub", "..", "lab.csv")},
+		{"check", lab, "-o", hard},
+		{"check", lab, "-o", soft},
+		{"check", lab, "-o", filepath.Join(dir, "a.csv"), "--json", filepath.Join(dir, "a.csv")},
+		{"check", lab, "--json", lab},
+		{"report", lab, "-o", dir},
+		{"inject", "blend", lab, "--native", "S", "--injectate", "S", "--peaks", lab},
+	} {
+		code, _, errs := gwsat(t, "", args...)
+		if code != exitUsage {
+			t.Errorf("%v: exit %d (%s), want 2", args, code, errs)
+		}
+		got, err := os.ReadFile(lab)
+		if err != nil || string(got) != body {
+			t.Fatalf("%v: the lab file changed", args)
+		}
+	}
+}

@@ -14,7 +14,6 @@ import (
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/inject"
 	"gwsat.dev/gwsat/internal/progress"
-	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/site"
 	"gwsat.dev/gwsat/sitereport"
 )
@@ -62,6 +61,13 @@ func reportCmd(e *env) *cobra.Command {
 			if err != nil {
 				return usageErr(err)
 			}
+			var g guard
+			if err := g.inputs(append(append([]string(nil), args...), siteFile)); err != nil {
+				return err
+			}
+			if err := g.set.AddOutputDir(out); err != nil {
+				return usageErr(err)
+			}
 			batches, recs, ch, err := in.assessAll(e, args, true)
 			if err != nil {
 				return usageErr(err)
@@ -94,7 +100,7 @@ func reportCmd(e *env) *cobra.Command {
 				fmt.Fprintf(e.stderr, "gwsat report: %v (figure left out)\n", fe)
 			}
 			if !oc.quiet {
-				if err := oc2.Summary.Write(e.stderr, report.CautionLine); err != nil {
+				if err := e.writeSummary(oc2.Summary); err != nil {
 					return failed(err)
 				}
 				fmt.Fprintf(e.stderr, "  report: %s (%d %s; open index.html)\n", oc2.Index, oc2.Figures, plural(oc2.Figures, "figure", "figures"))
