@@ -11,7 +11,7 @@ import (
 
 // demoWater returns a demo sample converted for speciation.
 func demoWater(b *testing.B, id string) speciation.Water {
-	raw, err := data.Demo.ReadFile("demo/samples.csv")
+	raw, err := data.Demo().ReadFile("demo/samples.csv")
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -59,7 +59,7 @@ func BenchmarkSolveDemoNativeWater(b *testing.B) {
 // BenchmarkRunDemo is the whole per-row workflow (charge balance, unit
 // conversion, speciation) over the 96 demo rows.
 func BenchmarkRunDemo(b *testing.B) {
-	raw, _ := data.Demo.ReadFile("demo/samples.csv")
+	raw, _ := data.Demo().ReadFile("demo/samples.csv")
 	batch, err := hydro.Read(bytes.NewReader(raw), "samples.csv", hydro.Options{})
 	if err != nil {
 		b.Fatal(err)

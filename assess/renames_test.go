@@ -30,7 +30,7 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	raw, err := data.Demo.ReadFile("demo/samples.csv")
+	raw, err := data.Demo().ReadFile("demo/samples.csv")
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -2,7 +2,9 @@ package data
 
 import "embed"
 
-// Demo holds the invented demo site: samples.csv, site.geojson and README.md.
-//
 //go:embed demo
-var Demo embed.FS
+var demo embed.FS
+
+// Demo returns the invented demo site: demo/samples.csv, demo/site.geojson and
+// demo/README.md (read-only).
+func Demo() embed.FS { return demo }

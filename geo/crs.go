@@ -75,7 +75,7 @@ func init() {
 			// UTM definition: central meridian 6z-183, k0 0.9996, false
 			// easting 500 km, false northing 0 (north) or 10 000 km (south);
 			// NIMA TM8358.2 (1989) `from memory`, standard values.
-			t, err := NewTransverseMercator(WGS84, float64(6*z-183), 0, 0.9996, 500000, fn)
+			t, err := NewTransverseMercator(WGS84(), float64(6*z-183), 0, 0.9996, 500000, fn)
 			if err != nil {
 				panic(err)
 			}

@@ -15,13 +15,26 @@ type Ellipsoid struct {
 // Snyder (1987), USGS PP 1395, table 1; Bessel 1841 and International 1924
 // as used by Vincenty (1975), Survey Review 23(176). All `from memory`, but
 // each is also checked indirectly by the projection and geodesic tests.
-var (
-	WGS84         = Ellipsoid{Name: "WGS84", A: 6378137, F: 1 / 298.257223563}
-	GRS80         = Ellipsoid{Name: "GRS80", A: 6378137, F: 1 / 298.257222101}
-	Clarke1866    = Ellipsoid{Name: "Clarke 1866", A: 6378206.4, F: 1 - 6356583.8/6378206.4}
-	Bessel1841    = Ellipsoid{Name: "Bessel 1841", A: 6377397.155, F: 1 / 299.1528128}
-	International = Ellipsoid{Name: "International 1924", A: 6378388, F: 1 / 297.0}
-)
+// They are functions so that no caller can change them for every other.
+func WGS84() Ellipsoid { return Ellipsoid{Name: "WGS84", A: 6378137, F: 1 / 298.257223563} }
+
+// GRS80 is the Geodetic Reference System 1980 ellipsoid.
+func GRS80() Ellipsoid { return Ellipsoid{Name: "GRS80", A: 6378137, F: 1 / 298.257222101} }
+
+// Clarke1866 is the Clarke 1866 ellipsoid.
+func Clarke1866() Ellipsoid {
+	return Ellipsoid{Name: "Clarke 1866", A: 6378206.4, F: 1 - 6356583.8/6378206.4}
+}
+
+// Bessel1841 is the Bessel 1841 ellipsoid.
+func Bessel1841() Ellipsoid {
+	return Ellipsoid{Name: "Bessel 1841", A: 6377397.155, F: 1 / 299.1528128}
+}
+
+// International is the International 1924 (Hayford) ellipsoid.
+func International() Ellipsoid {
+	return Ellipsoid{Name: "International 1924", A: 6378388, F: 1 / 297.0}
+}
 
 // B returns the semi-minor axis in metres.
 func (e Ellipsoid) B() float64 { return e.A * (1 - e.F) }

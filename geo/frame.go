@@ -45,7 +45,7 @@ func NewLocalFrame(points []orb.Point) LocalFrame {
 	// Keep the origin off the poles, where the latitude of origin is
 	// degenerate for a transverse Mercator.
 	c[1] = math.Max(-89.9, math.Min(89.9, c[1]))
-	tm, err := NewTransverseMercator(WGS84, c[0], c[1], 1, 0, 0)
+	tm, err := NewTransverseMercator(WGS84(), c[0], c[1], 1, 0, 0)
 	if err != nil {
 		panic(err) // unreachable: centre is finite and in range
 	}

@@ -95,7 +95,7 @@ func validGeodesicPoint(p orb.Point) error {
 // DistanceOK returns the WGS84 geodesic distance in metres between two
 // [lon, lat] points and an error for invalid points or non-convergence.
 func DistanceOK(a, b orb.Point) (float64, error) {
-	s, _, _, err := Geodesic(WGS84, a, b)
+	s, _, _, err := Geodesic(WGS84(), a, b)
 	return s, err
 }
 

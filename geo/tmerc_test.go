@@ -21,7 +21,7 @@ import (
 // y = 4 484 124.4 m. `from memory`; the printed values carry 0.1 m, so the
 // tolerance is half of that.
 func TestSnyderTransverseMercatorExample(t *testing.T) {
-	tm, err := NewTransverseMercator(Clarke1866, -75, 0, 0.9996, 0, 0)
+	tm, err := NewTransverseMercator(Clarke1866(), -75, 0, 0.9996, 0, 0)
 	if err != nil {
 		t.Fatal(err)
 	}

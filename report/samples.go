@@ -62,9 +62,11 @@ func SubstitutedAnalytes(s *hydro.Sample) []string {
 	return out
 }
 
-// SampleColumns are the fixed columns of the sample table, before the
+// SampleColumns returns the fixed columns of the sample table, before the
 // saturation-index columns. The README documents each.
-var SampleColumns = []string{
+func SampleColumns() []string { return append([]string(nil), sampleColumns...) }
+
+var sampleColumns = []string{
 	"file", "line", "sample_id", "well_id", "round", "status", "reasons",
 	"latitude", "longitude", "easting_m", "northing_m", "epsg",
 	"depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m",
@@ -84,7 +86,7 @@ func opt(v hydro.Value, prec int) string {
 // SampleTable builds the main table: one row per record, in order, with a
 // saturation-index column per mineral.
 func SampleTable(recs []assess.Record, minerals []string) *Table {
-	t := &Table{Header: append([]string(nil), SampleColumns...)}
+	t := &Table{Header: SampleColumns()}
 	for _, m := range minerals {
 		t.Header = append(t.Header, ColumnName(m))
 	}

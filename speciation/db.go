@@ -259,7 +259,7 @@ var (
 // It is parsed once and shared.
 func Default() (*Database, error) {
 	defaultOnce.Do(func() {
-		defaultDB, defaultErr = ParseDatabase(Thermo)
+		defaultDB, defaultErr = ParseDatabase(thermo)
 	})
 	return defaultDB, defaultErr
 }

@@ -2,9 +2,10 @@
 // natural water, the activities of the species, and the saturation state of the water
 // with respect to minerals and CO2 gas.
 //
-// A Database (Default for the embedded data set Thermo (speciation/thermo.txt), or ParseDatabase for
-// any text in gwsat's own format, described at the top of data/thermo.txt) holds
-// Components, the basis the laboratory reports in (Ca2+, SO4 2-, CO3 2- for total inorganic
+// A Database (Default for the embedded data set, Thermo, or ParseDatabase for any
+// text in gwsat's own format, described at the top of speciation/thermo.txt) holds
+// Components (read-only copies through Components, Species and Minerals), the basis
+// the laboratory reports in (Ca2+, SO4 2-, CO3 2- for total inorganic
 // carbon, H4SiO4 for silica, ...), aqueous Species formed from them, and Minerals (and
 // gases) written as dissolution reactions, each with log K at 25 C, a temperature function
 // (LogKFunc: analytic or van 't Hoff) and its published source. A Water gives temperature,

@@ -8,7 +8,7 @@ import (
 // FuzzParseDatabase: any text either parses or is rejected with a *DataError; never a
 // panic. Seeds: the embedded data set and the parser-test header.
 func FuzzParseDatabase(f *testing.F) {
-	f.Add(Thermo)
+	f.Add(Thermo())
 	f.Add(tinyHeader)
 	f.Add(fluoriteDB)
 	f.Add("[mineral X]\nreaction = - +\n")

@@ -581,7 +581,7 @@ func TestEquilibratePrecipitation(t *testing.T) {
 // reverse order (each entry runs from its header to the next header).
 func reverseComponents(t *testing.T) string {
 	t.Helper()
-	lines := strings.Split(Thermo, "\n")
+	lines := strings.Split(Thermo(), "\n")
 	var blocks []string
 	var cur []string
 	for _, l := range lines {

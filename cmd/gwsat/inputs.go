@@ -55,7 +55,7 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 		if len(args) > 0 {
 			return nil, fmt.Errorf("give either --demo or files, not both")
 		}
-		raw, err := data.Demo.ReadFile(DemoFile)
+		raw, err := data.Demo().ReadFile(DemoFile)
 		if err != nil {
 			return nil, err
 		}

@@ -174,7 +174,7 @@ func siteFeatures(path string, demo bool) ([]geo.SiteFeature, error) {
 		}
 		return feats, nil
 	case demo:
-		raw, err := data.Demo.ReadFile(DemoSite)
+		raw, err := data.Demo().ReadFile(DemoSite)
 		if err != nil {
 			return nil, err
 		}

@@ -25,7 +25,7 @@ func versionCmd(e *env) *cobra.Command {
 					}
 				}
 			}
-			fmt.Fprintf(e.stdout, "gwsat %s\nthermodynamic data sha256 %x\n", v, sha256.Sum256([]byte(speciation.Thermo)))
+			fmt.Fprintf(e.stdout, "gwsat %s\nthermodynamic data sha256 %x\n", v, sha256.Sum256([]byte(speciation.Thermo())))
 			return nil
 		},
 	}

@@ -78,7 +78,7 @@ func TestDeterministic(t *testing.T) {
 func TestEmbeddedIsFresh(t *testing.T) {
 	_, want := demo(t)
 	for name, w := range want {
-		got, err := fs.ReadFile(data.Demo, "demo/"+name)
+		got, err := fs.ReadFile(data.Demo(), "demo/"+name)
 		if err != nil {
 			t.Fatalf("embedded demo/%s: %v", name, err)
 		}
