@@ -1,0 +1,15 @@
+module example.org/gwsatuser
+
+go 1.24.0
+
+require gwsat.dev/gwsat v0.0.0
+
+require (
+	github.com/gocarina/gocsv v0.0.0-20240520201108-78e41c74b4b1 // indirect
+	github.com/paulmach/orb v0.14.0 // indirect
+	go.mongodb.org/mongo-driver/v2 v2.5.0 // indirect
+	golang.org/x/tools v0.36.0 // indirect
+	gonum.org/v1/gonum v0.17.0 // indirect
+)
+
+replace gwsat.dev/gwsat => ../..
