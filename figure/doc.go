@@ -1,6 +1,6 @@
-// Package maps draws the figures of gwsat: saturation-index maps, depth
-// profiles, mixing and temperature curves, bar charts and Piper diagrams,
-// on gonum.org/v1/plot.
+// Package figure draws the figures of gwsat: saturation-index maps, depth
+// profiles, blending and temperature curves, bar charts, Piper and Stiff
+// diagrams and SI against time, on gonum.org/v1/plot.
 //
 // The package draws what it is given and imports none of gwsat's other
 // packages. Each kind of figure is a plain input type: [SIMap] (an
@@ -10,7 +10,10 @@
 // per mineral), [Curves] (SI against mixing fraction or temperature, one
 // [Series] per mineral), [Bars] (for example precipitation potential per
 // mineral) and [Piper] (the trilinear major-ion diagram of Piper 1944, one
-// [PiperPoint] per sample). Every one of them is a [Figure]; [Panels] tiles several figures
+// [PiperPoint] per sample), [Stiff] and [StiffGrid] (Stiff 1951 polygons of
+// the major ions per well, small multiples on a shared scale, paged by
+// [StiffGrid.Pages]) and [SITime] (SI against time per well with interval
+// bars and the near-equilibrium band). Every one of them is a [Figure]; [Panels] tiles several figures
 // on one page, and [Render] draws a figure into PNG (300 dpi), SVG (fonts
 // embedded) or PDF bytes, turning drawing panics into errors. Callers write
 // the bytes to files themselves, atomically.

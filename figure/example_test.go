@@ -68,7 +68,7 @@ func ExampleDepthProfile() {
 func ExampleBars() {
 	_, err := figure.Render(figure.Bars{Labels: []string{"calcite"}, Values: []float64{math.NaN()}}, "png", 10*vg.Centimeter, 8*vg.Centimeter)
 	fmt.Println(err)
-	// Output: maps: no data to draw: bar chart "" has no finite value
+	// Output: figure: no data to draw: bar chart "" has no finite value
 }
 
 // The colour of SI = 0 is the near-white neutral of the scale.

@@ -20,13 +20,13 @@ import (
 // Errors returned by the package.
 var (
 	// ErrNoData reports a figure with nothing to draw.
-	ErrNoData = errors.New("maps: no data to draw")
+	ErrNoData = errors.New("figure: no data to draw")
 	// ErrFormat reports an output format other than png, svg or pdf.
-	ErrFormat = errors.New("maps: unknown output format")
+	ErrFormat = errors.New("figure: unknown output format")
 	// ErrSize reports a non-positive or non-finite page size.
-	ErrSize = errors.New("maps: invalid figure size")
+	ErrSize = errors.New("figure: invalid figure size")
 	// ErrInput reports malformed input (mismatched lengths, bad grid shape).
-	ErrInput = errors.New("maps: invalid input")
+	ErrInput = errors.New("figure: invalid input")
 )
 
 // PNGDPI is the resolution of rendered PNG images, in dots per inch.
@@ -61,7 +61,7 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 	defer func() {
 		if r := recover(); r != nil {
 			out = nil
-			err = fmt.Errorf("maps: drawing failed: %v", r)
+			err = fmt.Errorf("figure: drawing failed: %v", r)
 		}
 	}()
 	var cw vg.CanvasWriterTo
@@ -87,7 +87,7 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 	}
 	var buf bytes.Buffer
 	if _, err := cw.WriteTo(&buf); err != nil {
-		return nil, fmt.Errorf("maps: encoding %s: %w", format, err)
+		return nil, fmt.Errorf("figure: encoding %s: %w", format, err)
 	}
 	return buf.Bytes(), nil
 }

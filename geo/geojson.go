@@ -41,7 +41,7 @@ func WriteSamples(w io.Writer, pts []PointFeature) error {
 		}
 		bw.WriteString("\n{\"type\":\"Feature\"")
 		if f.ID != "" {
-			id, _ := json.Marshal(f.ID)
+			id, _ := json.Marshal(f.ID) // a string always marshals
 			bw.WriteString(`,"id":`)
 			bw.Write(id)
 		}
@@ -65,7 +65,7 @@ func WriteSamples(w io.Writer, pts []PointFeature) error {
 			if k > 0 {
 				bw.WriteByte(',')
 			}
-			key, _ := json.Marshal(pr.Key)
+			key, _ := json.Marshal(pr.Key) // a string always marshals
 			val, err := json.Marshal(cleanValue(pr.Value))
 			if err != nil {
 				return fmt.Errorf("geo: feature %d: property %q: %w", i, pr.Key, err)

@@ -101,7 +101,7 @@ func NewKriging(points []orb.Point, vals []float64, opt KrigingOptions) (*Krigin
 	}
 	k.inv = mat.NewDense(n+1, n+1, nil)
 	if err := lu.SolveTo(k.inv, false, id); err != nil {
-		return nil, fmt.Errorf("%w: %v", ErrIllConditioned, err)
+		return nil, fmt.Errorf("%w: %w", ErrIllConditioned, err)
 	}
 	rhs := mat.NewVecDense(n+1, append(zs, 0))
 	var w mat.VecDense

@@ -183,25 +183,6 @@ func siteFeatures(path string, demo bool) ([]geo.SiteFeature, error) {
 	return nil, nil
 }
 
-// parseIncreasing reads a comma-separated list of increasing numbers.
-func parseIncreasing(s string) ([]float64, error) {
-	if strings.TrimSpace(s) == "" {
-		return nil, nil
-	}
-	var out []float64
-	for _, f := range strings.Split(s, ",") {
-		v, err := strconv.ParseFloat(strings.TrimSpace(f), 64)
-		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil, fmt.Errorf("%q is not a finite number", f)
-		}
-		if len(out) > 0 && v <= out[len(out)-1] {
-			return nil, fmt.Errorf("values must increase")
-		}
-		out = append(out, v)
-	}
-	return out, nil
-}
-
 // defaultID returns the demo's sample when --demo is set and none was given.
 func defaultID(demo bool, id, demoID string) string {
 	if id == "" && demo {

@@ -282,6 +282,8 @@ func (r *Reactor) bisectOnset(lo, hi float64, m string, set []string, tol float6
 func (r *Reactor) added(sol Solution, g Reagent, x float64) Solution {
 	if g.Water != nil {
 		f := x / (1 + x)
+		// f = x/(1+x) lies in [0, 1) for x >= 0, the only fractions MixSolutions
+		// accepts, so it cannot fail here.
 		m, _ := MixSolutions(sol, *g.Water, f)
 		m.TempC = sol.TempC
 		return m
