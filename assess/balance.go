@@ -8,7 +8,7 @@ import (
 )
 
 // BalanceComponent maps a user's ion name for closing the charge balance ("Cl",
-// "Cl-", "SO4", "Ca+2") to a charged component of the database; "" gives "".
+// "Cl-", "SO4", "Ca2+", or the same with the sign first) to a charged component of the database; "" gives "".
 func BalanceComponent(db *speciation.Database, name string) (string, error) {
 	if strings.TrimSpace(name) == "" {
 		return "", nil

@@ -154,7 +154,7 @@ type Database struct {
 }
 
 // ComponentIndex returns the index of the named component, or -1. Names are matched
-// after CanonicalName, so "Ca+2" and "SO4^2-" find Ca2+ and SO4 2-.
+// after CanonicalName, so "SO4^2-" and the sign-first spellings find SO4 2-.
 func (db *Database) ComponentIndex(name string) int {
 	if i, ok := db.compIndex[name]; ok {
 		return i

@@ -11,7 +11,7 @@ import (
 // subscript and the charge cannot be confused: Ca2+, Na+, SO4 2-, CO3 2-, HCO3-.
 //
 // It accepts the spellings a user may type and maps them to that form: the
-// sign-then-number form ("Ca+2", "SO4-2"), a caret ("SO4^2-", "Ca^2+"), Unicode
+// sign-then-number form (the sign written before the charge number), a caret ("SO4^2-", "Ca^2+"), Unicode
 // superscripts and subscripts ("Ca²⁺", "SO₄²⁻"), and surrounding spaces. A name it does
 // not recognise as charged is returned trimmed and otherwise unchanged. A charge written
 // without a separator after a formula ending in a digit ("SO42-") is ambiguous and left
@@ -25,7 +25,7 @@ func CanonicalName(s string) string {
 		s = fromScript(s)
 	}
 	s = strings.ReplaceAll(s, "^", " ")
-	// Sign then number: "Ca+2", "SO4-2".
+	// Sign then number, e.g. calcium written "Ca", "+", "2".
 	if n := len(s); n >= 3 && isDigit(s[n-1]) && (s[n-2] == '+' || s[n-2] == '-') && s[n-3] != ' ' && s[n-3] != '+' && s[n-3] != '-' {
 		base, sign, num := strings.TrimSpace(s[:n-2]), s[n-2:n-1], s[n-1:]
 		if num == "1" {
