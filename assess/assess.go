@@ -179,7 +179,24 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	r.Issues = append(r.Issues[:0], r.Row.Issues...)
 	s := &r.Row.Sample
 	checkPosition(r)
+	if r.Status == hydro.StatusRejected {
+		return
+	}
+	w, issues := s.Water()
+	r.Water = w
+	for _, is := range issues {
+		r.Add(is)
+	}
+	checkPlausible(r, &w)
+	if r.Status == hydro.StatusRejected {
+		return
+	}
 	r.Balance = hydro.ChargeBalance(s)
+	if !finite(r.Balance.ErrorPct) || !finite(r.Balance.CationsMeqL) || !finite(r.Balance.AnionsMeqL) {
+		r.Balance = hydro.Balance{}
+		r.Note(hydro.Error, CodeNotFinite, "charge balance cannot be computed: a value is too large")
+		return
+	}
 	switch {
 	case !r.Balance.Complete && math.Abs(r.Balance.ErrorPct) > IncompleteBalanceLimitPct:
 		r.Note(hydro.Warning, CodeBalanceIncomplete, "charge balance %.1f %% with ions missing (%v): the analysis is incomplete or wrong", r.Balance.ErrorPct, r.Balance.Missing)
@@ -192,18 +209,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.Note(hydro.Warning, CodeBalanceWarn, "charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	}
 	if r.Balance.HasTDSRatio && !r.Balance.TDSRatioOK {
-		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.2f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
-	}
-	if r.Status == hydro.StatusRejected {
-		return
-	}
-	w, issues := s.Water()
-	r.Water = w
-	for _, is := range issues {
-		r.Add(is)
-	}
-	if r.Status == hydro.StatusRejected {
-		return
+		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.3f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
 	}
 	if !w.HasPH {
 		r.Note(hydro.Warning, CodeNoPH, "no pH: speciation skipped")
@@ -257,6 +263,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	case !hasTIC && w.AlkalinityEqKgw <= 0:
 		r.Note(hydro.Info, CodeNoCarbonate, "alkalinity not above 0 (an acid water): carbonate minerals and log pCO2 not computed")
 	}
+	checkPCO2(r, res)
 	if math.Abs(res.ChargeBalance) > SpeciatedBalanceLimitPct {
 		r.Note(hydro.Warning, CodeSpeciatedBalance, "charge balance after speciation %.1f %%: saturation indices are doubtful", res.ChargeBalance)
 	}
@@ -264,6 +271,8 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.Note(hydro.Info, CodeIndicesRange, "Langelier and Ryznar indices outside their range (pH 6.5-9.5, ionic strength up to 0.5 mol/kgw)")
 	}
 }
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // SpeciationWater fills dst from a converted lab sample: its temperature
 // (tempC, since a missing one is the caller's choice), pH, component

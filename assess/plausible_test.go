@@ -1,0 +1,89 @@
+package assess
+
+import (
+	"context"
+	"strings"
+	"testing"
+
+	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/speciation"
+)
+
+func assessCSV(t *testing.T, csv string) []Record {
+	t.Helper()
+	b, err := hydro.Read(strings.NewReader(csv), "p.csv", hydro.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := Run(context.Background(), db, []*hydro.Batch{b}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return recs
+}
+
+func hasCode(r *Record, code string) bool {
+	for _, is := range r.Issues {
+		if is.Code == code {
+			return true
+		}
+	}
+	return false
+}
+
+// A pH typed 2.06 for 7.06 with a normal alkalinity (180 mg/L as CaCO3): to carry
+// 3.6 meq/kg of alkalinity as HCO3- at pH 2, where HCO3-/CO2(aq) = K1/a(H+) =
+// 10^-6.35/10^-2.06 (Plummer & Busenberg 1982, K1 at 25 C), the water would need
+// about 10^4.3 times more CO2(aq) than HCO3-, i.e. tens of mol/kg of CO2: a partial
+// pressure of hundreds of atm. A groundwater at 20 m holds at most 1 + 20/10.33 atm
+// (hydrostatics), so the row is a warning naming the likely cause.
+func TestPHTypoWithAlkalinityIsWarned(t *testing.T) {
+	head := "Sample,Depth (m),pH,Temp,Ca,Mg,Na,K,Cl,SO4,Alkalinity as CaCO3\n"
+	recs := assessCSV(t, head+"typo,20,2.06,15,60,12,20,2,30,40,180\nfine,20,7.06,15,60,12,20,2,30,40,180\n")
+	if !hasCode(&recs[0], CodePCO2) || recs[0].Status != hydro.StatusWarning {
+		t.Errorf("pH 2.06: status %s, issues %v", recs[0].Status, recs[0].Reasons())
+	}
+	if !strings.Contains(strings.Join(recs[0].Reasons(), ";"), "typing error in pH or alkalinity") {
+		t.Errorf("the warning must name the likely cause: %v", recs[0].Reasons())
+	}
+	if hasCode(&recs[1], CodePCO2) {
+		t.Errorf("pH 7.06 flagged: %v", recs[1].Reasons())
+	}
+}
+
+// Totals beyond the solubility of the most soluble salt are rejected with the
+// column named: 400 g/L of calcium is 10 mol/kg water, above the 8.8 mol/kg of a
+// saturated Ca(NO3)2 solution (CRC Handbook, from memory); values too large to
+// compute with never reach a number.
+func TestBeyondNaturalWaterRejected(t *testing.T) {
+	head := "Sample,pH,Temp,Ca (mg/L),Mg,Na,K,Cl (mg/L),SO4,Alkalinity as CaCO3\n"
+	recs := assessCSV(t, head+
+		"huge,7.2,15,1e308,12,20,2,30,40,180\n"+
+		"salty,7.2,15,400000,12,20,2,30,40,180\n"+
+		"brine,7.2,15,60,12,20,2,180000,40,180\n")
+	for i, r := range recs[:2] {
+		if r.Status != hydro.StatusRejected || r.Result != nil {
+			t.Errorf("row %d: status %s", i, r.Status)
+		}
+		if i == 0 {
+			continue // rejected by the unit conversion already, which names its own column
+		}
+		found := false
+		for _, is := range r.Issues {
+			if is.Severity == hydro.Error && is.Column == "Ca (mg/L)" {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("row %d: no error naming the Ca column: %v", i, r.Reasons())
+		}
+	}
+	// 180 g/L of chloride is about 5.5 mol/kg water: a brine, not an error.
+	if hasCode(&recs[2], CodeBeyondNature) {
+		t.Errorf("a plausible brine rejected: %v", recs[2].Reasons())
+	}
+}
