@@ -5,8 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"runtime"
-	"sync"
 
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/speciation"
@@ -96,50 +94,15 @@ func (r *Record) Sample() *hydro.Sample { return &r.Row.Sample }
 // Run assesses every row of the batches, in order. It returns one record per
 // row; the error is only for a cancelled context.
 func Run(ctx context.Context, db *speciation.Database, batches []*hydro.Batch, opt Options) ([]Record, error) {
-	if opt.Model == nil {
-		opt.Model = speciation.TruesdellJones{}
-	}
-	var recs []Record
+	n := 0
 	for _, b := range batches {
-		for _, row := range b.Rows {
-			recs = append(recs, Record{File: b.File, Row: row})
-		}
+		n += len(b.Rows)
 	}
-	workers := opt.Workers
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
-	jobs := make(chan int)
-	var wg sync.WaitGroup
-	var mu sync.Mutex
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			solver := speciation.NewSolver(db, opt.Model)
-			var sw speciation.Water
-			for i := range jobs {
-				assessOne(&recs[i], solver, &sw, opt)
-				if opt.Progress != nil {
-					mu.Lock()
-					opt.Progress()
-					mu.Unlock()
-				}
-			}
-		}()
-	}
-	var err error
-feed:
-	for i := range recs {
-		select {
-		case jobs <- i:
-		case <-ctx.Done():
-			err = ctx.Err()
-			break feed
-		}
-	}
-	close(jobs)
-	wg.Wait()
+	recs := make([]Record, 0, n)
+	err := Stream(ctx, db, BatchItems(batches), opt, func(r *Record) error {
+		recs = append(recs, *r)
+		return nil
+	})
 	return recs, err
 }
 

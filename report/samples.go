@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"io"
 	"math"
 	"sort"
@@ -234,45 +233,49 @@ func ptr(ok bool, v float64) *jsonNum {
 
 // WriteJSON writes every record with its full speciation as a JSON array.
 func WriteJSON(w io.Writer, recs []assess.Record) error {
-	out := make([]jsonRecord, 0, len(recs))
+	jw := NewJSONWriter(w)
 	for i := range recs {
-		r := &recs[i]
-		s := r.Sample()
-		issues := make([]jsonIssue, len(r.Issues))
-		for k, is := range r.Issues {
-			issues[k] = jsonIssue{Severity: is.Severity.String(), Code: is.Code, Column: is.Column, Line: is.Line, Message: is.Message}
+		if err := jw.Write(&recs[i]); err != nil {
+			return err
 		}
-		jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
-			Status: string(r.Status), Issues: issues, Error: r.SolveError}
-		if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
-			jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
-		}
-		if len(r.Water.Molal) > 0 {
-			jr.Water = map[string]jsonNum{}
-			for k, v := range r.Water.Molal {
-				jr.Water[k] = jsonNum(v)
-			}
-			jr.Alk = ptr(r.Water.HasAlkalinity, r.Water.AlkalinityEqKgw)
-		}
-		if res := r.Result; res != nil {
-			x := &jsonResult{Model: res.Model, TempC: jsonNum(res.TempC), PH: jsonNum(res.PH), IonicStrength: jsonNum(res.IonicStrength),
-				LogPCO2: ptr(res.HasLogPCO2, res.LogPCO2), ChargeBalance: jsonNum(res.ChargeBalance), SI: map[string]jsonNum{},
-				Langelier: ptr(res.Indices.HasLangelier, res.Indices.Langelier), Ryznar: ptr(res.Indices.HasLangelier, res.Indices.Ryznar),
-				LarsonSkold: ptr(res.Indices.HasLarsonSkold, res.Indices.LarsonSkold), Warnings: res.Warnings, Iterations: res.Iterations}
-			for _, m := range res.Minerals {
-				x.SI[m.Name] = jsonNum(m.SI)
-			}
-			for _, sp := range res.Species {
-				x.Species = append(x.Species, jsonSpecies{sp.Name, jsonNum(sp.Molality), jsonNum(sp.Gamma), jsonNum(sp.Activity)})
-			}
-			for _, sh := range res.Distribution {
-				x.Distribution = append(x.Distribution, jsonShare{sh.Component, sh.Species, jsonNum(sh.Percent)})
-			}
-			jr.Result = x
-		}
-		out = append(out, jr)
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(out)
+	return jw.Close()
+}
+
+// jsonRecordOf is the JSON form of one record.
+func jsonRecordOf(r *assess.Record) jsonRecord {
+	s := r.Sample()
+	issues := make([]jsonIssue, len(r.Issues))
+	for k, is := range r.Issues {
+		issues[k] = jsonIssue{Severity: is.Severity.String(), Code: is.Code, Column: is.Column, Line: is.Line, Message: is.Message}
+	}
+	jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
+		Status: string(r.Status), Issues: issues, Error: r.SolveError}
+	if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+		jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
+	}
+	if len(r.Water.Molal) > 0 {
+		jr.Water = map[string]jsonNum{}
+		for k, v := range r.Water.Molal {
+			jr.Water[k] = jsonNum(v)
+		}
+		jr.Alk = ptr(r.Water.HasAlkalinity, r.Water.AlkalinityEqKgw)
+	}
+	if res := r.Result; res != nil {
+		x := &jsonResult{Model: res.Model, TempC: jsonNum(res.TempC), PH: jsonNum(res.PH), IonicStrength: jsonNum(res.IonicStrength),
+			LogPCO2: ptr(res.HasLogPCO2, res.LogPCO2), ChargeBalance: jsonNum(res.ChargeBalance), SI: map[string]jsonNum{},
+			Langelier: ptr(res.Indices.HasLangelier, res.Indices.Langelier), Ryznar: ptr(res.Indices.HasLangelier, res.Indices.Ryznar),
+			LarsonSkold: ptr(res.Indices.HasLarsonSkold, res.Indices.LarsonSkold), Warnings: res.Warnings, Iterations: res.Iterations}
+		for _, m := range res.Minerals {
+			x.SI[m.Name] = jsonNum(m.SI)
+		}
+		for _, sp := range res.Species {
+			x.Species = append(x.Species, jsonSpecies{sp.Name, jsonNum(sp.Molality), jsonNum(sp.Gamma), jsonNum(sp.Activity)})
+		}
+		for _, sh := range res.Distribution {
+			x.Distribution = append(x.Distribution, jsonShare{sh.Component, sh.Species, jsonNum(sh.Percent)})
+		}
+		jr.Result = x
+	}
+	return jr
 }
