@@ -1,5 +1,7 @@
 package speciation
 
+import "math"
+
 // This file holds what the data reader records about redox: the alkalinity of a
 // species whose reference level is not that of its components, and which component's
 // oxidation state the electrons of a reaction change.
@@ -80,3 +82,26 @@ func (db *Database) Electrons(si int, component int) (float64, bool) {
 // ElectronIndex returns the index of the electron component e-, or -1 when the data
 // set has no redox reactions.
 func (db *Database) ElectronIndex() int { return db.electron }
+
+// StateTotal returns the part of a component's total (mol/kgw) in res carried by
+// species whose oxidation state differs from the component's by electrons per unit
+// (Database.Electrons): StateTotal(res, "Fe2+", -1) is dissolved Fe(III),
+// StateTotal(res, "SO4 2-", 8) total dissolved sulfide. Species of res unknown to db
+// are ignored.
+func (db *Database) StateTotal(res *Result, component string, electrons float64) float64 {
+	ci := db.ComponentIndex(component)
+	if ci < 0 || res == nil {
+		return 0
+	}
+	tot := 0.0
+	for i := range res.Species {
+		si := db.SpeciesIndex(res.Species[i].Name)
+		if si < 0 {
+			continue
+		}
+		if e, ok := db.Electrons(si, ci); ok && math.Abs(e-electrons) < 1e-9 {
+			tot += nuOf(db.species[si].Terms, ci) * res.Species[i].Molality
+		}
+	}
+	return tot
+}
