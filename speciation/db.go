@@ -109,10 +109,10 @@ type Species struct {
 	Alkalinity float64
 	// redox attributes the electrons of the formation reaction to the component whose
 	// oxidation state they change (e.g. -1 on Fe2+ for Fe3+ and its complexes).
-	redox      []Term
-	Reaction   string
-	TempNote   string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
-	Line       int
+	redox    []Term
+	Reaction string
+	TempNote string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	Line     int
 }
 
 // Mineral is a solid or a gas written as its dissolution into components.

@@ -18,7 +18,6 @@ const (
 // NoteNoRedox states what a water without a pe lacks (see Result.RedoxSkipped).
 const NoteNoRedox = "no redox information: oxide and sulfide SIs not computed"
 
-
 // fill writes the converged state into res.
 func (s *Solver) fill(res *Result, w *Water) {
 	db := s.db
