@@ -23,15 +23,15 @@ type PESource int
 
 // Sources of a pe.
 const (
-	PENone      PESource = iota // no redox information
-	PEGiven                     // pe given as such
-	PEFromEh                    // Eh on the hydrogen scale
-	PEFromORP                   // ORP against a named reference electrode, converted to Eh
-	PEFromO2                    // dissolved oxygen, the O2(aq)/H2O couple
-	PEFromFe                    // Fe(II)/Fe(III) couple
-	PEFromN                     // NO3-/NH4+ couple
-	PEFromS                     // SO4 2-/HS- couple
-	PEFromPhase                 // equilibrium with a phase (Water.FixByPhase on e-)
+	PESourceNone  PESource = iota // no redox information
+	PESourceGiven                 // pe given as such
+	PESourceEh                    // Eh on the hydrogen scale
+	PESourceORP                   // ORP against a named reference electrode, converted to Eh
+	PESourceO2                    // dissolved oxygen, the O2(aq)/H2O couple
+	PESourceFe                    // Fe(II)/Fe(III) couple
+	PESourceN                     // NO3-/NH4+ couple
+	PESourceS                     // SO4 2-/HS- couple
+	PESourcePhase                 // equilibrium with a phase (Water.FixByPhase on e-)
 )
 
 var peSourceNames = [...]string{"none", "pe", "Eh", "ORP", "O2/H2O", "Fe(III)/Fe(II)", "NO3-/NH4+", "SO4 2-/HS-", "phase"}

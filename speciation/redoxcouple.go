@@ -33,10 +33,10 @@ type coupleDef struct {
 }
 
 var couples = map[Couple]coupleDef{
-	CoupleO2: {component: NameH2O, electrons: 4, marker: "O2(aq)", src: PEFromO2},
-	CoupleFe: {component: "Fe2+", electrons: 1, redState: 0, oxState: -1, marker: "Fe3+", src: PEFromFe},
-	CoupleN:  {component: "NO3-", electrons: 8, redState: 8, oxState: 0, marker: "NH4+", src: PEFromN},
-	CoupleS:  {component: "SO4 2-", electrons: 8, redState: 8, oxState: 0, marker: "HS-", src: PEFromS},
+	CoupleO2: {component: NameH2O, electrons: 4, marker: "O2(aq)", src: PESourceO2},
+	CoupleFe: {component: "Fe2+", electrons: 1, redState: 0, oxState: -1, marker: "Fe3+", src: PESourceFe},
+	CoupleN:  {component: "NO3-", electrons: 8, redState: 8, oxState: 0, marker: "NH4+", src: PESourceN},
+	CoupleS:  {component: "SO4 2-", electrons: 8, redState: 8, oxState: 0, marker: "HS-", src: PESourceS},
 }
 
 // String names the couple.

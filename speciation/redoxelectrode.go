@@ -118,16 +118,16 @@ func EhMVFromORP(orpMV float64, ref ReferenceElectrode, tempC float64) (float64,
 	return orpMV + e, nil
 }
 
-// PEFromORPReading converts an ORP reading against ref at tempC to pe, with its source
-// (PEFromORP, or PEFromEh when ref is the hydrogen electrode).
-func PEFromORPReading(orpMV float64, ref ReferenceElectrode, tempC float64) (float64, PESource, error) {
+// PEFromORP converts an ORP reading against ref at tempC to pe, with its source
+// (PESourceORP, or PESourceEh when ref is the hydrogen electrode).
+func PEFromORP(orpMV float64, ref ReferenceElectrode, tempC float64) (float64, PESource, error) {
 	eh, err := EhMVFromORP(orpMV, ref, tempC)
 	if err != nil {
-		return 0, PENone, err
+		return 0, PESourceNone, err
 	}
-	src := PEFromORP
+	src := PESourceORP
 	if ref == ElectrodeSHE {
-		src = PEFromEh
+		src = PESourceEh
 	}
 	return PEFromEhMV(eh, tempC), src, nil
 }
