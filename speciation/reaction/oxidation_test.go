@@ -85,11 +85,11 @@ func TestOxidationO2Balance(t *testing.T) {
 	// mix) the demand 50/4 = 12.5 umol/kg is met: 137.5 left, no Fe(II). With 20 (10 in
 	// the mix) all O2 goes and oxidises 40 umol/kg: 10 umol/kg Fe(II) left.
 	for _, tc := range []struct {
-		o2         float64
-		o2Left     float64
-		feLeft     float64
-		ferrihydr  float64 // mol/kgw
-		wantPE     bool
+		o2        float64
+		o2Left    float64
+		feLeft    float64
+		ferrihydr float64 // mol/kgw
+		wantPE    bool
 	}{
 		{300e-6, 150e-6 - 50e-6/4, 0, 50e-6, true},
 		{20e-6, 0, 50e-6 - 4*10e-6, 40e-6, false},
