@@ -266,3 +266,33 @@ func TestPEInput(t *testing.T) {
 		t.Error("PESource names")
 	}
 }
+
+// The electron can instead be fixed by a phase: O2(g) at 0.21 atm gives the pe of
+// air-saturated water, 20.75 - pH + 1/4 log 0.21 = 13.58 at pH 7 (Stumm & Morgan
+// 1996, ch. 8; from memory), within 0.06 (the data give pe0 20.80); ferrihydrite at
+// SI = 0 holds its SI.
+func TestPEFixedByPhase(t *testing.T) {
+	s := NewSolver(mustDefault(t), TruesdellJones{})
+	w := dilute()
+	w.FixByPhase(NameElectron, NameO2Gas, math.Log10(0.21))
+	res, err := s.Solve(&w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := 20.75 - 7 + 0.25*math.Log10(0.21); !res.HasPE || math.Abs(res.PE-want) > 0.06 || math.Abs(res.LogPO2-math.Log10(0.21)) > 1e-9 {
+		t.Errorf("pe %.4f (want %.3f), log pO2 %.4f", res.PE, want, res.LogPO2)
+	}
+	w = nativeWater()
+	w.FixByPhase(NameElectron, "ferrihydrite", 0)
+	res, err = s.Solve(&w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if si, ok := res.SI("ferrihydrite"); !ok || math.Abs(si) > 1e-9 || !res.HasPE {
+		t.Errorf("ferrihydrite SI %.3g, pe %v", si, res.PE)
+	}
+	w.SetPE(3)
+	if _, err := s.Solve(&w); !errors.Is(err, ErrInput) {
+		t.Errorf("pe and a phase on e-: %v", err)
+	}
+}

@@ -132,6 +132,8 @@ func (w *Water) Clone() Water {
 // whose reactions contain the electron (Fe(III) species, O2(aq), HS-, NH4+, the
 // Fe(III) and Mn(III/IV) oxides, the sulfides) exist only in a water with a pe; the
 // total of Fe2+ is then total iron, of SO4 2- total sulfur, of NO3- total nitrogen.
+// Instead of a pe, the electron may be fixed by a phase: FixByPhase("e-", "O2(g)",
+// log10 pO2) or FixByPhase("e-", "ferrihydrite", 0).
 func (w *Water) SetPE(pe float64) { w.pe, w.hasPE = pe, true }
 
 // PE returns the pe set by SetPE.
