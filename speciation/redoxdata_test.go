@@ -1,6 +1,7 @@
 package speciation
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -245,5 +246,62 @@ func TestWaterStabilityWarnings(t *testing.T) {
 		if got != tc.warn || !res.HasPE || res.PE != tc.pe {
 			t.Errorf("pe %g: warning %q, pe %v", tc.pe, got, res.PE)
 		}
+	}
+}
+
+// Alkalinity reference levels of the redox species: HS- counts 1 (HS- + H+ = H2S),
+// H2S(aq) 0, NH4+ 0 and NH3(aq) 1, O2(aq) 0, Fe3+ 0 and Fe(OH)2+ 2 (as FeOH+ counts 1).
+func TestRedoxAlkalinity(t *testing.T) {
+	db := mustDefault(t)
+	for _, tc := range []struct {
+		name string
+		alk  float64
+	}{{"HS-", 1}, {"H2S(aq)", 0}, {"NH4+", 0}, {"NH3(aq)", 1}, {"O2(aq)", 0}, {"Fe3+", 0}, {"Fe(OH)2+", 2}, {"FeOH+", 1}, {"HCO3-", 1}} {
+		if got := db.species[db.SpeciesIndex(tc.name)].Alkalinity; got != tc.alk {
+			t.Errorf("%s: alkalinity %g, want %g", tc.name, got, tc.alk)
+		}
+	}
+}
+
+// Electrons written beside two components cannot be given to one oxidation state.
+func TestRedoxParseRejects(t *testing.T) {
+	const base = "[component H2O]\ncharge = 0\n[component H+]\ncharge = 1\nion_size = 9\n[component e-]\ncharge = -1\n" +
+		"[component Fe2+]\ncharge = 2\nion_size = 6\n[component Mn2+]\ncharge = 2\nion_size = 6\n"
+	_, err := ParseDatabase(base + "[species FeMn5+]\nreaction = Fe2+ + Mn2+ - e-\ncharge = 5\nion_size = 5\nlog10_k_25c = 0\nenthalpy = none\n")
+	if !errors.Is(err, ErrInvalidParameter) {
+		t.Errorf("ambiguous electrons: %v", err)
+	}
+	db, err := ParseDatabase(base + "[species Fe3+]\nreaction = Fe2+ - e-\ncharge = 3\nion_size = 9\nlog10_k_25c = -13.02\nenthalpy = none\n")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if db.ElectronIndex() < 0 || db.SpeciesIndex("e-") >= 0 {
+		t.Errorf("e- component %d, free species %d", db.ElectronIndex(), db.SpeciesIndex("e-"))
+	}
+}
+
+// With a pe, a warm start gives what a cold start gives (within the tolerance),
+// across the native-water variants at several pe values.
+func TestPEWarmStart(t *testing.T) {
+	db := mustDefault(t)
+	warm, cold := NewSolver(db, TruesdellJones{}), NewSolver(db, TruesdellJones{})
+	cold.WarmStart = false
+	for i, w := range nativeVariants(24) {
+		w.SetPE(-3 + 0.5*float64(i%12))
+		rw, err := warm.Solve(&w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rc, err := cold.Solve(&w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for k := range rc.Species {
+			a, b := rw.Species[k].Molality, rc.Species[k].Molality
+			if math.Abs(a-b) > 1e-8*math.Max(math.Abs(b), 1e-30) && math.Abs(a-b) > 1e-25 {
+				t.Errorf("water %d %s: warm %.10g cold %.10g", i, rc.Species[k].Name, a, b)
+			}
+		}
+		checkFinite(t, "pe water", rw)
 	}
 }
