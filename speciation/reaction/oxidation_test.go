@@ -183,3 +183,51 @@ func TestOxidationRejects(t *testing.T) {
 		}
 	}
 }
+
+// PrepareRedox splits a sulfidic water: the sulfide it reports plus the sulfate left
+// (species sums: within the solver tolerance, 1e-9 relative here)
+// in the Solution is the sulfur given; O2 is nil at pe -3; without a pe the redox
+// input is empty. Oxidising it with an oxygenated water takes the sulfide first
+// (8 electrons, 2 O2 per S).
+func TestPrepareRedox(t *testing.T) {
+	db := defaultDB(t)
+	r := New(db, speciation.TruesdellJones{})
+	w := speciation.Water{TempC: 15, PH: 7.0}
+	w.SetTotal("Na+", 4e-3)
+	w.SetTotal("Cl-", 2e-3)
+	w.SetTotal("Ca2+", 1e-3)
+	w.SetTotal("SO4 2-", 1e-3)
+	w.SetTotal("Fe2+", 5e-6)
+	w.SetAlkalinity(4e-3)
+	w.SetPE(-3.3)
+	sol, in, res, err := r.PrepareRedox(&w)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if in.Sulfide <= 0 || math.Abs(in.Sulfide+sol.Total("SO4 2-")-1e-3) > 1e-12 || in.O2 > 1e-30 {
+		t.Errorf("sulfide %.4g + sulfate %.4g (total 1e-3), O2 %.3g", in.Sulfide, sol.Total("SO4 2-"), in.O2)
+	}
+	if !res.HasPE || sol.Total("Fe2+") != 5e-6 {
+		t.Errorf("pe %v, Fe %.3g", res.HasPE, sol.Total("Fe2+"))
+	}
+	inj := speciation.Water{TempC: 15, PH: 7.5}
+	inj.SetTotal("Na+", 4e-3)
+	inj.SetTotal("Cl-", 2e-3)
+	inj.SetTotal("Ca2+", 1e-3)
+	inj.SetAlkalinity(4e-3)
+	a, ra, _, err := r.PrepareRedox(&inj)
+	if err != nil || ra != (RedoxInput{}) {
+		t.Fatalf("no pe: %+v %v", ra, err)
+	}
+	ra.O2 = 300e-6
+	ox, err := r.Oxidize(a, sol, ra, in, 0.5, 15, OxidationOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if ox.Steps[0].Reductant != "sulfide" || math.Abs(ox.Steps[0].Consumed-2*ox.Steps[0].Oxidised) > 1e-18 || ox.Left.Sulfide != 0 {
+		t.Errorf("steps %+v, left %+v", ox.Steps, ox.Left)
+	}
+	if got := ox.After.Total("SO4 2-"); math.Abs(got-0.5e-3) > 1e-12 {
+		t.Errorf("sulfate after %.6g, want 0.5e-3 (all sulfur of the mixture)", got)
+	}
+}
