@@ -11,9 +11,10 @@ import (
 // order of OxidationOrder.
 const OxidationOrderBasis = "reductants are oxidised in the order of their redox couples' pe at " +
 	"neutral pH, lowest first (the redox ladder: SO4 2-/HS- near pe -3.6, Fe(OH)3/Fe2+ near 0 to 2, " +
-	"MnO2/Mn2+ near 9 at pH 7; Stumm & Morgan 1996, Aquatic Chemistry, ch. 8); Mn(II) is also the " +
-	"slowest to react with O2 without catalysis (years at pH below 8.5, Diem & Stumm 1984, from " +
-	"memory), while Fe(II) reacts in minutes at pH 7 (Stumm & Lee 1961). Oxidants are used O2 first, " +
+	"MnO2/Mn2+ near 10 at pH 7 with 1e-5 mol/kg of each metal; Stumm & Morgan 1996, Aquatic Chemistry, " +
+	"ch. 8); Mn(II) is also the slowest to react with O2 without catalysis (years at pH below 8.5, " +
+	"Diem & Stumm 1984, GCA 48, 1571), while Fe(II) reacts in minutes at pH 7 (Stumm & Lee 1961, " +
+	"Ind. Eng. Chem. 53, 143; both from memory). Oxidants are used O2 first, " +
 	"then nitrate (reduced to N2). Sulfide is taken to sulfate, Fe(II) to ferrihydrite Fe(OH)3 and " +
 	"Mn(II) to MnO2, all of it: an upper bound for a screen"
 
