@@ -305,3 +305,34 @@ func TestPEWarmStart(t *testing.T) {
 		checkFinite(t, "pe water", rw)
 	}
 }
+
+// The electron as a master variable, by hand (ideal activities, 25 C, pH 2, Fe 1e-6
+// mol/kg with NaCl): at pe = log K(Fe2+ = Fe3+ + e-) = 13.02 the free Fe3+ and Fe2+ are
+// equal, so Fe(III)/Fe(II) = (1 + 10^(-2.19 + 2) + 10^(-5.76 + 4) + 10^(-14.30 + 6)
+// + 10^(-21.71 + 8) + FeCl2+ 10^1.48 x 1e-3) / (1 + 10^(-9.5 + 2)) with Stefansson's
+// (2007) constants (the dimer is below 1e-6 of Fe(III) at this iron); one pe unit
+// higher multiplies it by 10.
+func TestFeIIIFractionByHand(t *testing.T) {
+	s := NewSolver(mustDefault(t), Ideal{})
+	ratio := func(pe float64) float64 {
+		w := Water{TempC: 25, PH: 2}
+		w.SetTotal("Fe2+", 1e-6)
+		w.SetTotal("Na+", 1e-3)
+		w.SetTotal("Cl-", 1e-3)
+		w.SetPE(pe)
+		res, err := s.Solve(&w)
+		if err != nil {
+			t.Fatal(err)
+		}
+		db := s.Database()
+		return db.StateTotal(res, "Fe2+", -1) / db.StateTotal(res, "Fe2+", 0)
+	}
+	p := math.Pow
+	want := (1 + p(10, -0.19) + p(10, -1.76) + p(10, -8.30) + p(10, -13.71) + p(10, 1.48)*1e-3) / (1 + p(10, -7.5))
+	if got := ratio(13.02); math.Abs(got/want-1) > 0.002 {
+		t.Errorf("Fe(III)/Fe(II) at pe 13.02: %.5f, by hand %.5f", got, want)
+	}
+	if r := ratio(14.02) / ratio(13.02); math.Abs(r-10) > 0.01 {
+		t.Errorf("one pe unit: x%.4f", r)
+	}
+}
