@@ -103,9 +103,16 @@ type Species struct {
 	Source     string
 	Confidence string
 	Master     int // index of the component this is the free ion of, or -1
-	Reaction   string
-	TempNote   string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
-	Line       int
+	// Alkalinity is the equivalents of total alkalinity per mole: the sum over the
+	// reaction's terms (components and earlier species), or the entry's own
+	// "alkalinity" key where its reference level differs (HS-, NH4+, O2(aq)).
+	Alkalinity float64
+	// redox attributes the electrons of the formation reaction to the component whose
+	// oxidation state they change (e.g. -1 on Fe2+ for Fe3+ and its complexes).
+	redox    []Term
+	Reaction string
+	TempNote string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	Line     int
 }
 
 // Mineral is a solid or a gas written as its dissolution into components.
@@ -151,6 +158,8 @@ type Database struct {
 	calcite      int
 	hco3         int // species index of HCO3- or -1
 	co3          int
+	electron     int // index of the electron component e- or -1
+	o2gas        int // index of O2(g) in Minerals or -1
 }
 
 // ComponentIndex returns the index of the named component, or -1. Names are matched
@@ -247,6 +256,13 @@ const (
 	NameCarbonate = "CO3 2-"
 	NameCO2Gas    = "CO2(g)"
 	NameCalcite   = "calcite"
+	// NameElectron is the electron component: its activity is fixed by the pe of the
+	// water (Water.SetPE), and species and minerals that contain it exist only when
+	// a pe is given.
+	NameElectron = "e-"
+	// NameO2Gas is oxygen gas, whose partial pressure marks the upper stability limit
+	// of water.
+	NameO2Gas = "O2(g)"
 )
 
 var (
@@ -284,6 +300,7 @@ func ParseDatabase(text string) (*Database, error) {
 		speciesIndex: map[string]int{},
 		mineralIndex: map[string]int{},
 		water:        -1, hplus: -1, carbonate: -1, co2gas: -1, calcite: -1, hco3: -1, co3: -1,
+		electron: -1, o2gas: -1,
 	}
 	seen := map[string]int{}
 	// Components first (they may appear anywhere in the file, but usually lead it).
@@ -324,15 +341,20 @@ func ParseDatabase(text string) (*Database, error) {
 	if i, ok := db.compIndex[NameCarbonate]; ok {
 		db.carbonate = i
 	}
-	// Free-ion species for every non-solvent component.
+	if i, ok := db.compIndex[NameElectron]; ok {
+		db.electron = i
+	}
+	// Free-ion species for every non-solvent component (the electron has none: it is
+	// a bookkeeping component, not a dissolved species).
 	for _, e := range entries {
-		if e.kind != "component" || e.name == NameH2O {
+		if e.kind != "component" || e.name == NameH2O || e.name == NameElectron {
 			continue
 		}
 		ci := db.compIndex[e.name]
 		s := Species{Name: e.name, Charge: db.components[ci].Charge, Master: ci,
 			Terms: []Term{{Component: e.name, Index: ci, Nu: 1}}, Reaction: e.name,
-			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition"}
+			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition",
+			Alkalinity: db.components[ci].Alkalinity}
 		if err := e.ionParams(&s); err != nil {
 			return nil, err
 		}
@@ -358,6 +380,9 @@ func ParseDatabase(text string) (*Database, error) {
 				return nil, err
 			}
 			s.Terms, s.LogK, s.LogK25, s.TempNote = terms, fn, logk25, note
+			if s.Alkalinity, s.redox, err = db.speciesAlkalinityRedox(e); err != nil {
+				return nil, err
+			}
 			s.Reaction = e.fields["reaction"]
 			s.Source, s.Confidence = e.fields["source"], e.fields["confidence"]
 			if err := db.checkCharge(e, terms, s.Charge); err != nil {
@@ -398,6 +423,9 @@ func ParseDatabase(text string) (*Database, error) {
 	}
 	if i, ok := db.mineralIndex[NameCO2Gas]; ok && db.minerals[i].Gas {
 		db.co2gas = i
+	}
+	if i, ok := db.mineralIndex[NameO2Gas]; ok && db.minerals[i].Gas {
+		db.o2gas = i
 	}
 	db.calcite = db.MineralIndex(NameCalcite)
 	for alias, name := range mineralAliases {

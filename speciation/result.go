@@ -109,6 +109,19 @@ type Result struct {
 
 	Indices  Indices
 	Warnings []string
+
+	// PE is the pe of the solve (-log10 a(e-)); valid when HasPE (a pe was given or
+	// the electron was fixed by a phase). Without it, species and minerals whose
+	// reactions contain the electron are absent.
+	PE    float64
+	HasPE bool
+	// LogPO2 is log10 of the O2 partial pressure (atm) in equilibrium with the water;
+	// valid when HasLogPO2 (a pe was given).
+	LogPO2    float64
+	HasLogPO2 bool
+	// RedoxSkipped is true when a mineral was left out only because the water has
+	// no pe: its other components were present (NoteNoRedox).
+	RedoxSkipped bool
 }
 
 // SI returns the saturation index of the named mineral, and false if it was not
