@@ -12,7 +12,7 @@ import (
 // redox was added.
 func withoutRedox(t *testing.T) *Database {
 	t.Helper()
-	blocks := strings.Split(Thermo, "\n[")
+	blocks := strings.Split(Thermo(), "\n[")
 	dropped := map[string]bool{"e-": true}
 	var keep []string
 	for i, b := range blocks {
