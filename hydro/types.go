@@ -50,9 +50,12 @@ const (
 // row's own line (a later line of a long-shape sample), else 0.
 type Issue struct {
 	Severity Severity
-	Column   string
-	Message  string
-	Line     int
+	// Code says what kind of issue it is, for programs (see the CodeXxx
+	// constants); Message says it for people.
+	Code    Code
+	Column  string
+	Message string
+	Line    int
 }
 
 func (i Issue) String() string {
@@ -129,11 +132,11 @@ type Row struct {
 	Issues []Issue
 }
 
-func (r *Row) add(sev Severity, line int, col, format string, args ...any) {
+func (r *Row) add(sev Severity, code Code, line int, col, format string, args ...any) {
 	if line == r.Line {
 		line = 0
 	}
-	r.Issues = append(r.Issues, Issue{Severity: sev, Column: col, Line: line, Message: fmt.Sprintf(format, args...)})
+	r.Issues = append(r.Issues, Issue{Severity: sev, Code: code, Column: col, Line: line, Message: fmt.Sprintf(format, args...)})
 }
 
 // settle sets Status from the worst issue.

@@ -275,8 +275,9 @@ type Solution struct {
 	KgWaterPerL float64
 }
 
-// Dilute is a solution of density 1 kg/L holding 1 kg water per litre.
-var Dilute = Solution{DensityKgL: 1, KgWaterPerL: 1}
+// Dilute returns a solution of density 1 kg/L holding 1 kg water per
+// litre. It is a function so that no caller can change it for the others.
+func Dilute() Solution { return Solution{DensityKgL: 1, KgWaterPerL: 1} }
 
 // MmolL returns the measurement in millimoles of the analyte per litre of
 // solution (for alkalinity, milliequivalents per litre: alkalinity given in

@@ -82,12 +82,12 @@ func (s *Sample) constituentSumMgL() float64 {
 			if _, ok := s.Analytes["HCO3"]; ok {
 				continue
 			}
-			if mm, err := m.MmolL(Dilute); err == nil {
+			if mm, err := m.MmolL(Dilute()); err == nil {
 				sum += mm * mmHCO3
 			}
 			continue
 		}
-		if v, err := m.MgL(Dilute); err == nil {
+		if v, err := m.MgL(Dilute()); err == nil {
 			sum += v
 		}
 	}
@@ -103,12 +103,12 @@ func (s *Sample) Water() (Water, []Issue) {
 	w := Water{Molal: map[string]float64{}, DensityKgL: sol.DensityKgL, DensitySource: src, TDSMgL: tds, TDSCalculated: tdsCalc,
 		TempC: s.TempC.V, HasTemp: s.TempC.OK, PH: s.PH.V, HasPH: s.PH.OK, PHSource: s.PHSource}
 	if !(sol.KgWaterPerL > 0.1) {
-		issues = append(issues, Issue{Severity: Error, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
+		issues = append(issues, Issue{Severity: Error, Code: CodeNoWater, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
 		return w, issues
 	}
 	w.KgWaterPerL = sol.KgWaterPerL
 	if tdsCalc && tds > 0 && src == DensityFromTDS {
-		issues = append(issues, Issue{Severity: Info, Message: fmt.Sprintf("TDS not reported: density estimated from the sum of the reported constituents, %.0f mg/L", tds)})
+		issues = append(issues, Issue{Severity: Info, Code: CodeDensityEstimate, Message: fmt.Sprintf("TDS not reported: density estimated from the sum of the reported constituents, %.0f mg/L", tds)})
 	}
 	for _, k := range AnalyteKeys() {
 		m, ok := s.Analytes[k]
@@ -121,12 +121,12 @@ func (s *Sample) Water() (Water, []Issue) {
 			comp = "CO3 2-"
 		}
 		if comp == "" && k != "Alk" && k != "HCO3" && k != "CO3" {
-			issues = append(issues, Issue{Severity: Info, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})
+			issues = append(issues, Issue{Severity: Info, Code: CodeNotComponent, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})
 			continue
 		}
 		mm, err := m.MmolL(sol)
 		if err != nil {
-			issues = append(issues, Issue{Severity: Error, Column: m.Column, Message: err.Error()})
+			issues = append(issues, Issue{Severity: Error, Code: CodeConversion, Column: m.Column, Message: err.Error()})
 			continue
 		}
 		molal := mm / 1000 / sol.KgWaterPerL
