@@ -17,10 +17,11 @@ type cell struct {
 }
 
 var (
-	reNDWords   = regexp.MustCompile(`^(nd|n\.d\.?|n\.d|n/d|bdl|bql|blq|<dl|<lod|<mdl|<rl|<loq|<pql|<ql|notdetected|belowdetection|belowdetectionlimit|<detectionlimit|<)$`)
+	reNDWords   = regexp.MustCompile(`^(nd|n\.d\.?|n\.d|n/d|bdl|bql|blq|<dl|<lod|<lor|<mdl|<rl|<mrl|<loq|<pql|<ql|<rdl|notdetected|belowdetection|belowdetectionlimit|<detectionlimit|<reportinglimit|<)$`)
+	reNumLess   = regexp.MustCompile(`^([0-9.,eE+-]+)\s*<$`)
 	reNDWithNum = regexp.MustCompile(`^(?:nd|n\.d\.?|bdl|<)\s*[(<]?\s*([0-9.,eE+-]+)\s*\)?$`)
 	reNumQual   = regexp.MustCompile(`^([0-9.,eE+-]+)\s*([a-zA-Z]{1,2}\*?)$`)
-	missingWord = map[string]bool{"-": true, "--": true, "---": true, "—": true, "n/a": true, "na": true, "nan": true, "nm": true, "ns": true, "notmeasured": true, "notanalysed": true, "notanalyzed": true, "null": true, "none": true, "?": true}
+	missingWord = map[string]bool{"-": true, "--": true, "---": true, "—": true, "–": true, "n/a": true, "na": true, "n.a.": true, "n.a": true, "n.m.": true, "n.s.": true, "notsampled": true, "nan": true, "nm": true, "ns": true, "notmeasured": true, "notanalysed": true, "notanalyzed": true, "null": true, "none": true, "?": true}
 )
 
 // ndQualifiers are qualifier codes meaning "not detected".
@@ -62,6 +63,14 @@ func parseConcCell(raw string, decComma bool) (cell, error) {
 		return cell{value: v}, nil
 	} else if err == errAmbiguous {
 		return cell{}, err
+	}
+	if m := reNumLess.FindStringSubmatch(s); m != nil {
+		// "0.5 <": the qualifier written after the number.
+		v, err := parseNum(m[1], decComma)
+		if err != nil {
+			return cell{}, err
+		}
+		return cell{nonDetect: true, hasDL: true, value: v, qualifier: "<"}, nil
 	}
 	if m := reNumQual.FindStringSubmatch(s); m != nil {
 		v, err := parseNum(m[1], decComma)

@@ -6,10 +6,20 @@ import (
 	"strings"
 )
 
+// concIn is one analyte cell with what the reader knows about its column.
+type concIn struct {
+	col, name     string // column named in issues; parameter as written
+	sp            colSpec
+	raw, qual, dl string // value, qualifier and detection-limit cells
+	unitSrc       string // HeaderMapping.UnitSource of the unit in sp
+	colDL         float64
+}
+
 // setConc reads one analyte cell (with its qualifier and detection-limit
-// cells) into the row. col is the column named in issues, name the
-// parameter as written.
-func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw, qual, dlRaw string) {
+// cells) into the row. It reports whether a value was stored in a unit
+// that was assumed.
+func (rd *reader) setConc(row *Row, line int, in concIn) (assumed bool) {
+	col, name, sp, raw, qual, dlRaw := in.col, in.name, in.sp, in.raw, in.qual, in.dl
 	a := analytes[sp.Param]
 	// In the long shape the column is "Value": name the parameter too.
 	pre := ""
@@ -22,17 +32,24 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 		if errors.Is(err, errAmbiguous) {
 			msg = fmt.Sprintf("%sambiguous number %q (thousands separator or decimal comma?)", pre, raw)
 		}
-		row.add(Error, CodeNotNumber, line, col, "%s", msg)
-		return
+		code := CodeNotNumber
+		if errors.Is(err, errAmbiguous) {
+			code = CodeAmbiguousNumber
+		}
+		row.add(Error, code, line, col, "%s", msg)
+		return false
 	}
 	qual = strings.TrimSpace(qual)
 	if c.missing && !(qual != "" && ndQualifiers[strings.ToLower(qual)]) {
-		return
+		if raw != "" {
+			row.add(Info, CodeMissing, line, col, "%s%q read as not analysed", pre, raw)
+		}
+		return false
 	}
 	u := sp.Unit
 	if sp.UnitErr != "" {
 		row.add(Error, CodeUnknownUnit, line, col, "%sunknown unit %q", pre, sp.UnitErr)
-		return
+		return false
 	}
 	if u.Conc == "" {
 		u.Conc = MgL
@@ -42,9 +59,9 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 	}
 	if err := a.checkUnit(u); err != nil {
 		row.add(Error, CodeUnitNotUsable, line, col, "%sunit %s: %v", pre, u, err)
-		return
+		return false
 	}
-	m := Measurement{Unit: u, Raw: raw, Param: sp.Param, Column: name, Qualifier: c.qualifier}
+	m := Measurement{Unit: u, Raw: raw, Param: sp.Param, Column: name, Qualifier: c.qualifier, ReportedUnit: sp.UnitRaw, UnitSource: in.unitSrc}
 	if qual != "" {
 		m.Qualifier = qual
 		if ndQualifiers[strings.ToLower(qual)] {
@@ -63,12 +80,17 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 	}
 	if c.value < 0 {
 		row.add(Error, CodeNegative, line, col, "%snegative concentration %s", pre, raw)
-		return
+		return false
 	}
 	if c.nonDetect {
 		m.NonDetect = true
 		if c.hasDL {
 			m.DetectionLimit = c.value
+		}
+		if m.DetectionLimit == 0 && in.colDL > 0 {
+			// "ND" or "<LOR" without a number: the column's limit (a
+			// limits row or Options.DetectionLimits).
+			m.DetectionLimit = in.colDL
 		}
 		m.Substituted = true
 		switch {
@@ -93,5 +115,15 @@ func (rd *reader) setConc(row *Row, line int, col, name string, sp colSpec, raw,
 			row.add(Info, CodeQualifier, line, col, "%slab qualifier %q", pre, m.Qualifier)
 		}
 	}
-	row.Sample.Analytes[sp.Param] = m
+	key := sp.Param
+	if key == keyNaK {
+		key, m.Param, m.SodiumPlusPotassium = "Na", "Na", true
+		row.add(Info, CodeNaPlusK, line, col, "%sNa and K reported together: the sum taken as Na (mass as Na) for the charge balance and speciation; K not reported separately", pre)
+	}
+	if old, dup := row.Sample.Analytes[key]; dup {
+		row.add(Warning, CodeRepeated, line, col, "%s%s also given in column %q; that value kept", pre, key, old.Column)
+		return false
+	}
+	row.Sample.Analytes[key] = m
+	return in.unitSrc == UnitAssumed
 }

@@ -1,6 +1,7 @@
 package hydro
 
 import (
+	"errors"
 	"strconv"
 	"strings"
 )
@@ -30,9 +31,13 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 		return
 	case clDate:
 		s.SampledAtRaw = raw
-		t, err := parseDate(raw, rd.dateOrder)
+		t, err := parseDate(raw, rd.dateOrder[col], rd.date1904)
 		if err != nil {
-			row.add(Warning, CodeBadDate, line, col, "%s%v", pre, err)
+			code := CodeBadDate
+			if errors.Is(err, errAmbiguousDate) {
+				code = CodeAmbiguousDate
+			}
+			row.add(Warning, code, line, col, "%s%v", pre, err)
 			return
 		}
 		s.SampledAt = t
@@ -76,6 +81,17 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 	}
 	v, err := parseNum(raw, rd.decComma)
 	if err != nil {
+		if c, cerr := parseConcCell(raw, rd.decComma); cerr == nil && (c.missing || c.nonDetect) {
+			// A missing or censored field value is a missing value: the
+			// row stays usable (a pH or temperature is worth a warning,
+			// since speciation needs them).
+			msev := Info
+			if sp.Class == clPH || sp.Class == clTemp {
+				msev = Warning
+			}
+			row.add(msev, CodeMissing, line, col, "%s%q read as not measured", pre, raw)
+			return
+		}
 		row.add(sev, CodeNotNumber, line, col, "%snot a number: %q", pre, raw)
 		return
 	}
@@ -89,9 +105,13 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 			row.add(Error, CodeOutOfRange, line, col, "%stemperature %g C outside 0-100 C", pre, v)
 			return
 		}
-		s.TempC = Some(v)
+		s.TempC, s.TempSource = Some(v), TempFromLab
 	case pPHField, pPHLab:
 		if v < 0 || v > 14 {
+			if rd.mvLike[col] {
+				row.add(Warning, CodeImplausible, line, col, "%spH %g outside 0-14: the column looks like a potential in mV; pH left empty; confirm the column (map it to Eh or ORP in a column map if it is one)", pre, v)
+				return
+			}
 			row.add(Error, CodeOutOfRange, line, col, "%spH %g outside 0-14", pre, v)
 			return
 		}
@@ -134,6 +154,16 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 			v -= 360
 		}
 		s.Lon = Some(v)
+	case pDO:
+		if v < 0 {
+			row.add(Warning, CodeNegative, line, col, "%snegative dissolved oxygen %g; ignored", pre, v)
+			return
+		}
+		s.DissolvedOxygenMgL = Some(v)
+	case pEh:
+		s.EhMV = Some(v)
+	case pORP:
+		s.ORPMV = Some(v)
 	case pEasting:
 		s.Easting = Some(v)
 	case pNorthing:

@@ -8,19 +8,36 @@ import (
 
 // reader holds the state of one Read.
 type reader struct {
-	file       string
-	opt        Options
-	delim      rune
-	decComma   bool
-	dateOrder  byte
+	file     string
+	opt      Options
+	delim    rune
+	decComma bool
+	workbook bool
+	date1904 bool
+	// dateOrder is the order of slash dates per date column header: 'd',
+	// 'm' or 0 (undecided).
+	dateOrder  map[string]byte
 	header     []string
 	headerLine int
 	specs      []colSpec
 	mapping    []HeaderMapping
-	shape      Shape
-	idCol      int   // column of the sample id
-	qualCol    []int // per analyte column: its qualifier column or -1
-	dlCol      []int // per analyte column: its detection-limit column or -1
+	// longMapping lists the parameter names met in a long file.
+	longMapping []HeaderMapping
+	shape       Shape
+	idCol       int   // column of the sample id
+	qualCol     []int // per analyte column: its qualifier column or -1
+	dlCol       []int // per analyte column: its detection-limit column or -1
+	// unitSrc is where each column's unit came from (HeaderMapping.UnitSource).
+	unitSrc []string
+	// colDL is a detection limit per column from a limits row or
+	// Options.DetectionLimits, 0 when none.
+	colDL []float64
+	// mvLike marks pH columns (by header) whose values are mostly outside
+	// 0-14, as a potential in mV would be.
+	mvLike map[string]bool
+	// rowUnitCol is the wide-shape column that gives the unit per row, -1
+	// when none.
+	rowUnitCol int
 	// long shape
 	paramCol, valueCol, unitCol, lqualCol, ldlCol int
 }
@@ -41,10 +58,14 @@ func (rd *reader) mapHeader() error {
 		if v, ok := cmap[strings.ToLower(h)]; ok {
 			rd.specs[i] = specFromMap(h, v)
 			rd.specs[i].Note = "from column map"
+			if parseHeader(v).UnitRaw != "" {
+				rd.specs[i].UnitSrc = UnitFromColumnMap
+			}
 			continue
 		}
 		rd.specs[i] = parseHeader(h)
 	}
+	rd.companions()
 	// First occurrence of a parameter wins; later ones are kept unmapped.
 	first := map[string]int{}
 	for i := range rd.specs {
@@ -109,10 +130,17 @@ func (rd *reader) mapHeader() error {
 	if rd.paramCol >= 0 && rd.valueCol >= 0 && nAnalyte == 0 {
 		rd.shape = Long
 	}
+	rd.rowUnitCol = -1
 	if rd.shape == Wide {
-		// long-shape structure columns mean nothing in a wide file
+		// A unit column in a wide file gives the unit of each row; the
+		// other long-shape structure columns mean nothing there.
 		for i := range rd.specs {
 			if c := rd.specs[i].Class; c >= clLongParam {
+				if c == clLongUnit && i == rd.unitCol {
+					rd.rowUnitCol = i
+					rd.specs[i].Note = "unit of each row's analytes that have no unit of their own"
+					continue
+				}
 				rd.specs[i] = colSpec{}
 			}
 		}
@@ -138,8 +166,13 @@ func (rd *reader) mapHeader() error {
 			rd.dlCol[j] = i
 		}
 	}
-	for i, h := range rd.header {
-		rd.mapping = append(rd.mapping, mappingFor(i+1, h, rd.specs[i]))
+	rd.unitSrc = make([]string, n)
+	rd.colDL = make([]float64, n)
+	for i, sp := range rd.specs {
+		rd.unitSrc[i] = rd.initialUnitSource(sp)
+		if v, ok := lookupFold(rd.opt.DetectionLimits, rd.header[i]); ok && v > 0 {
+			rd.colDL[i] = v
+		}
 	}
 	looksCSV := n > 1
 	if !looksCSV {
@@ -211,8 +244,8 @@ func headerUnits(h string) []string {
 	return us
 }
 
-func mappingFor(col int, h string, s colSpec) HeaderMapping {
-	m := HeaderMapping{Column: col, Header: h, Note: s.Note}
+func mappingFor(col int, h string, s colSpec, src string) HeaderMapping {
+	m := HeaderMapping{Column: col, Header: h, Note: s.Note, UnitSource: src}
 	if s.Param == "" {
 		if m.Note == "" {
 			m.Note = "not recognised; kept in Extra"
@@ -233,8 +266,17 @@ func mappingFor(col int, h string, s colSpec) HeaderMapping {
 	case s.Class == clConc && s.Sub == "":
 		u := s.Unit
 		if u.Conc == "" {
+			switch src {
+			case UnitPerRow:
+				m.Unit = "per row"
+				addNote("unit from the unit column of each row (mg/L where it is blank)")
+				return m
+			case UnitConfirmed:
+				addNote("no unit given: mg/L assumed, as confirmed")
+			default:
+				addNote("no unit given: mg/L assumed; every row using it gets a warning until the unit is stated or confirmed")
+			}
 			u.Conc = MgL
-			addNote("no unit given: mg/L assumed")
 		}
 		if u.As == "" && analytes[s.Param].DefaultAs != "" && isMass(u.Conc) {
 			u.As = analytes[s.Param].DefaultAs

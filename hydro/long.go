@@ -14,8 +14,11 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 	var curID string
 	specCache := map[string]colSpec{}
 	mapped := map[string]bool{}
+	var assumed []string
 	flush := func() {
 		if row != nil {
+			rd.warnAssumed(row, row.Line, assumed)
+			assumed = nil
 			rd.finishSample(row)
 			rows = append(rows, *row)
 		}
@@ -62,6 +65,7 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 						row.add(Warning, CodeConflict, line, rd.header[i], "%q differs from %q on line %d; first kept", c, old, firstLine["x:"+rd.header[i]])
 					} else if !ok {
 						s.Extra[rd.header[i]] = c
+						s.ExtraColumns = append(s.ExtraColumns, ExtraColumn{Header: rd.header[i], Value: c})
 						firstLine["x:"+rd.header[i]] = line
 					}
 				}
@@ -78,7 +82,10 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 			}
 			firstLine[sp.Param] = line
 			if sp.Class == clConc {
-				rd.setConc(row, line, rd.header[i], rd.header[i], sp, c, "", "")
+				in := concIn{col: rd.header[i], name: rd.header[i], sp: sp, raw: c, unitSrc: rd.unitSrc[i], colDL: rd.colDL[i]}
+				if rd.setConc(row, line, in) {
+					assumed = append(assumed, rd.header[i])
+				}
 			} else {
 				rd.setField(row, line, rd.header[i], rd.header[i], sp, c)
 			}
@@ -110,16 +117,21 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 		}
 		if !mapped[ck] {
 			mapped[ck] = true
-			m := mappingFor(rd.paramCol+1, name, sp)
+			src := UnitFromCell
+			if unit == "" {
+				src = rd.initialUnitSource(sp)
+			}
+			m := mappingFor(rd.paramCol+1, name, sp, src)
 			if unit != "" && m.Note == "not recognised; kept in Extra" {
 				m.Unit = unit
 			}
-			rd.mapping = append(rd.mapping, m)
+			rd.longMapping = append(rd.longMapping, m)
 		}
 		if sp.Param == "" {
 			if val != "" {
 				row.add(Warning, CodeUnknownParameter, line, rd.header[rd.paramCol], "unknown parameter %q: kept in Extra", name)
 				s.Extra[name] = strings.TrimSpace(val + " " + unit)
+				s.ExtraColumns = append(s.ExtraColumns, ExtraColumn{Header: name, Value: s.Extra[name]})
 			}
 			continue
 		}
@@ -135,7 +147,14 @@ func (rd *reader) readLong(recs [][]string, lines []int) []Row {
 			continue
 		}
 		if sp.Class == clConc {
-			rd.setConc(row, line, valCol, name, sp, val, get(rd.lqualCol), get(rd.ldlCol))
+			src := UnitFromCell
+			if unit == "" {
+				src = rd.initialUnitSource(sp)
+			}
+			in := concIn{col: valCol, name: name, sp: sp, raw: val, qual: get(rd.lqualCol), dl: get(rd.ldlCol), unitSrc: src}
+			if rd.setConc(row, line, in) {
+				assumed = append(assumed, name)
+			}
 		} else {
 			rd.setField(row, line, valCol, name, sp, val)
 		}

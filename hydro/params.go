@@ -22,6 +22,8 @@ const (
 	clInt                  // EPSG code
 	clDate
 	clScreen // free-text interval
+	clDO     // dissolved oxygen, mg/L
+	clMV     // redox potential, mV
 	// long-shape structure columns
 	clLongParam
 	clLongValue
@@ -56,6 +58,9 @@ const (
 	pSpecCond     = "SpecCond"
 	pTDS          = "TDS"
 	pDensity      = "Density"
+	pDO           = "DissolvedOxygen"
+	pEh           = "Eh"
+	pORP          = "ORP"
 	pParameter    = "Parameter"
 	pValue        = "Value"
 	pUnit         = "Unit"
@@ -93,11 +98,14 @@ var fieldDefs = map[string]fieldDef{
 	pSpecCond:     {clEC, "ec spc specificconductance spcond conductivity cond sc ec25 electricalconductivity specificconductivity spcondmeasured fieldec labec"},
 	pTDS:          {clTDS, "tds totaldissolvedsolids dissolvedsolids tdsmeasured tds180 residueonevaporation"},
 	pDensity:      {clDensity, "density rho specificgravity sg"},
+	pDO:           {clDO, "do dissolvedoxygen oxygen o2 do2 dissolvedo2 fielddo"},
+	pEh:           {clMV, "eh redox redoxpotential ehshe ehmv"},
+	pORP:          {clMV, "orp oxidationreductionpotential orpmv"},
 	pParameter:    {clLongParam, "parameter analyte determinand constituent characteristic characteristicname component param variable compound test analysis parametername analytename"},
 	pValue:        {clLongValue, "value result concentration conc resultvalue measuredvalue reading resultnumeric"},
 	pUnit:         {clLongUnit, "unit units uom resultunit unitofmeasure unitcode"},
 	pQualifier:    {clLongQual, "qualifier qual flag remark remarkcode resultqualifier qualifiercode lessthan detectionflag"},
-	pDL:           {clLongDL, "detectionlimit dl mdl rl reportinglimit lod mrl pql methoddetectionlimit"},
+	pDL:           {clLongDL, "detectionlimit dl mdl rl reportinglimit lod loq lor mrl pql methoddetectionlimit limitofreporting"},
 }
 
 // analyteAliases: normalised spelling -> analyte key and implied basis.
@@ -113,6 +121,7 @@ func init() {
 	add("Mg", "", "mg magnesium")
 	add("Na", "", "na sodium")
 	add("K", "", "k potassium")
+	add(keyNaK, "", "nak naplusk nakasna sodiumpluspotassium sodiumandpotassium sodiumpotassium alkalis")
 	add("Sr", "", "sr strontium")
 	add("Ba", "", "ba barium")
 	add("Fe", "", "fe iron fe2 feii ferrous")
@@ -160,6 +169,7 @@ type colSpec struct {
 	FUnit   fieldUnit
 	UnitRaw string // unit text found, "" if none
 	UnitErr string // unit text that could not be understood
+	UnitSrc string // where the unit came from when not the header
 	Note    string
 }
 
@@ -179,7 +189,7 @@ var (
 	reCharge    = regexp.MustCompile(`^(.*?)(\d?[+-]+|[+-]+\d?)$`)
 	fillerWords = map[string]bool{"dissolved": true, "diss": true, "dis": true, "filtered": true, "filt": true, "total": true, "tot": true, "conc": true, "concentration": true, "measured": true}
 	subWords    = map[string]string{"qualifier": "qualifier", "qual": "qualifier", "flag": "qualifier", "q": "qualifier", "remark": "qualifier",
-		"dl": "dl", "mdl": "dl", "rl": "dl", "lod": "dl", "detectionlimit": "dl", "reportinglimit": "dl"}
+		"dl": "dl", "mdl": "dl", "rl": "dl", "lod": "dl", "lor": "dl", "loq": "dl", "detectionlimit": "dl", "reportinglimit": "dl"}
 )
 
 // lookupName finds the parameter for a list of name tokens.
@@ -232,7 +242,7 @@ func isAnyUnit(s string) bool {
 	if _, ok := parseConcUnit(s); ok {
 		return true
 	}
-	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees} {
+	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees, clMV} {
 		if _, ok := parseFieldUnit(c, s); ok {
 			return true
 		}
@@ -448,6 +458,18 @@ func parseFieldUnit(c class, s string) (fieldUnit, bool) {
 			return fieldUnit{"kg/L", identity}, true
 		case "kgm3":
 			return fieldUnit{"kg/m3", scale(0.001)}, true
+		}
+	case clDO:
+		switch k {
+		case "", "mgl", "mgo2l", "ppm":
+			return fieldUnit{"mg/L", identity}, true
+		}
+	case clMV:
+		switch k {
+		case "", "mv":
+			return fieldUnit{"mV", identity}, true
+		case "v":
+			return fieldUnit{"V", scale(1000)}, true
 		}
 	case clPH:
 		switch k {

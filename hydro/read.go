@@ -9,31 +9,63 @@ import (
 	"strings"
 )
 
-// ReadFile reads a lab file from disk; see Read.
+// ReadFile reads a lab file from disk: a workbook (.xlsx, see ReadExcel)
+// or CSV text (see Read), told apart by the file's first bytes.
 func ReadFile(path string, opt Options) (*Batch, error) {
 	f, err := os.Open(path)
 	if err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v", ErrRead, err)}
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
-	defer f.Close()
-	return Read(f, path, opt)
+	b, err := readAny(f, path, opt)
+	if cerr := f.Close(); cerr != nil && err == nil {
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
+	}
+	return b, err
 }
 
-// Read reads a lab file of wide or long shape. file names the input in
-// messages. The error is only for problems with the file as a whole (see
-// the ErrXxx sentinels, wrapped in a *ReadError); every row-level problem
-// is reported in its Row.
+// Read reads a lab file of wide or long shape from CSV text. file names the
+// input in messages. The error is only for problems with the file as a
+// whole (see the ErrXxx sentinels, wrapped in a *ReadError); every
+// row-level problem is reported in its Row.
 func Read(r io.Reader, file string, opt Options) (*Batch, error) {
+	raw, err := readLimited(r, file, opt)
+	if err != nil {
+		return nil, err
+	}
+	return readCSVBytes(raw, file, opt)
+}
+
+// readAny reads a workbook or CSV text.
+func readAny(r io.Reader, file string, opt Options) (*Batch, error) {
+	raw, err := readLimited(r, file, opt)
+	if err != nil {
+		return nil, err
+	}
+	if isZip(raw) {
+		return readExcelBytes(raw, file, opt)
+	}
+	return readCSVBytes(raw, file, opt)
+}
+
+func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
 	limit := opt.MaxBytes
 	if limit <= 0 {
 		limit = 256 << 20
 	}
 	raw, err := io.ReadAll(io.LimitReader(r, limit+1))
 	if err != nil {
-		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: %v", ErrRead, err)}
+		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
 	if int64(len(raw)) > limit {
 		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: larger than %d bytes", ErrRead, limit)}
+	}
+	return raw, nil
+}
+
+// readCSVBytes splits CSV text into a grid of cells and reads it.
+func readCSVBytes(raw []byte, file string, opt Options) (*Batch, error) {
+	if isZip(raw) {
+		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: a workbook or other zip archive; read .xlsx files with ReadExcel or ReadFile", ErrNotCSV)}
 	}
 	text, err := normalise(raw)
 	if err != nil {
@@ -51,10 +83,7 @@ func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 	cr.FieldsPerRecord = -1
 	cr.LazyQuotes = true
 	cr.TrimLeadingSpace = delim != '\t'
-	var recs [][]string
-	var lines []int
-	brokenAt := -1
-	var brokenErr *csv.ParseError
+	g := &grid{file: file, delim: delim}
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
@@ -63,17 +92,19 @@ func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 		if err != nil {
 			var pe *csv.ParseError
 			if !errors.As(err, &pe) {
-				return nil, &ReadError{File: file, Err: fmt.Errorf("%w: %v", ErrRead, err)}
+				return nil, &ReadError{File: file, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 			}
-			if len(recs) == 0 {
-				return nil, &ReadError{File: file, Line: pe.StartLine, Column: pe.Column, Err: fmt.Errorf("%w: %v", ErrNotCSV, pe.Err)}
+			if len(g.recs) == 0 {
+				return nil, &ReadError{File: file, Line: pe.StartLine, Column: pe.Column, Err: fmt.Errorf("%w: %w", ErrNotCSV, pe.Err)}
 			}
 			// A quoting error after the header: the rows read so far stand;
 			// the rest of the file cannot be split into rows, and is
 			// reported as one rejected row.
-			brokenAt, brokenErr = pe.StartLine, pe
+			g.brokenAt = pe.StartLine
+			g.broken = fmt.Sprintf("CSV quoting error at line %d, column %d: %v; the rest of the file is unreadable", pe.Line, pe.Column, pe.Err)
 			break
 		}
+		// FieldPos cannot fail for field 0 of a record just read.
 		line, _ := cr.FieldPos(0)
 		for i := range rec {
 			rec[i] = trimCell(rec[i])
@@ -84,33 +115,16 @@ func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 			// an empty line: not a row.
 			continue
 		}
-		recs = append(recs, rec)
-		lines = append(lines, line)
+		g.recs = append(g.recs, rec)
+		g.lines = append(g.lines, line)
 	}
-	if len(recs) == 0 {
+	if len(g.recs) == 0 {
 		return nil, &ReadError{File: file, Err: ErrEmpty}
 	}
-	rd := &reader{file: file, opt: opt, delim: delim, header: recs[0], headerLine: lines[0]}
-	if err := rd.mapHeader(); err != nil {
-		return nil, err
-	}
-	rd.decComma = decideDecimal(opt.DecimalSep, delim, recs[1:], rd)
-	rd.dateOrder = rd.decideDateOrder(recs[1:])
-	b := &Batch{File: file, Shape: rd.shape, Delimiter: delim, DecimalComma: rd.decComma, Mapping: rd.mapping}
-	if rd.shape == Long {
-		b.Rows = rd.readLong(recs[1:], lines[1:])
-		b.Mapping = rd.mapping
-	} else {
-		b.Rows = rd.readWide(recs[1:], lines[1:])
-	}
-	if brokenAt > 0 {
-		r := Row{Line: brokenAt, Sample: newSample()}
-		r.add(Error, CodeQuoting, r.Line, "", "CSV quoting error at line %d, column %d: %v; the rest of the file is unreadable", brokenErr.Line, brokenErr.Column, brokenErr.Err)
-		b.Rows = append(b.Rows, r)
-	}
-	markDuplicates(b.Rows)
-	for i := range b.Rows {
-		b.Rows[i].settle()
-	}
-	return b, nil
+	return readGrid(g, opt)
+}
+
+// isZip says whether raw starts like a zip archive (an .xlsx workbook).
+func isZip(raw []byte) bool {
+	return len(raw) >= 4 && raw[0] == 'P' && raw[1] == 'K' && raw[2] == 3 && raw[3] == 4
 }

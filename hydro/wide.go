@@ -42,32 +42,71 @@ func (rd *reader) readWide(recs [][]string, lines []int) []Row {
 				break
 			}
 		}
-		for i, c := range rec {
-			if i >= len(rd.specs) {
-				break
+		rowUnit := ""
+		if rd.rowUnitCol >= 0 && rd.rowUnitCol < len(rec) {
+			rowUnit = rec[rd.rowUnitCol]
+		}
+		var assumed []string
+		for i := range rd.specs {
+			c := ""
+			if i < len(rec) {
+				c = rec[i]
 			}
 			sp := rd.specs[i]
-			if sp.Param == "" || sp.Sub != "" {
-				if sp.Param == "" && c != "" {
+			if sp.Param == "" {
+				if rd.header[i] != "" || c != "" {
+					s.ExtraColumns = append(s.ExtraColumns, ExtraColumn{Header: rd.header[i], Value: c})
+				}
+				if c != "" {
 					s.Extra[rd.header[i]] = c
 				}
 				continue
 			}
+			if sp.Sub != "" || i == rd.rowUnitCol || i >= len(rec) {
+				continue
+			}
 			if sp.Class == clConc {
-				q, dl := "", ""
+				in := concIn{col: rd.header[i], name: rd.header[i], sp: sp, raw: c, unitSrc: rd.unitSrc[i], colDL: rd.colDL[i]}
 				if j := rd.qualCol[i]; j >= 0 && j < len(rec) {
-					q = rec[j]
+					in.qual = rec[j]
 				}
 				if j := rd.dlCol[i]; j >= 0 && j < len(rec) {
-					dl = rec[j]
+					in.dl = rec[j]
 				}
-				rd.setConc(&row, row.Line, rd.header[i], rd.header[i], sp, c, q, dl)
+				if in.unitSrc == UnitPerRow {
+					in.sp, in.unitSrc = rd.rowUnitSpec(sp, rowUnit)
+				}
+				if rd.setConc(&row, row.Line, in) {
+					assumed = append(assumed, rd.header[i])
+				}
 				continue
 			}
 			rd.setField(&row, row.Line, rd.header[i], rd.header[i], sp, c)
 		}
+		rd.warnAssumed(&row, row.Line, assumed)
 		rd.finishSample(&row)
 		rows = append(rows, row)
 	}
 	return rows
+}
+
+// rowUnitSpec gives an analyte column without a unit of its own the unit
+// of the row's unit cell; a blank unit cell leaves mg/L assumed.
+func (rd *reader) rowUnitSpec(sp colSpec, unit string) (colSpec, string) {
+	if unit == "" {
+		if rd.opt.ConfirmUnits {
+			return sp, UnitConfirmed
+		}
+		return sp, UnitAssumed
+	}
+	return withUnit(sp, unit), UnitPerRow
+}
+
+// warnAssumed adds one warning naming the analyte columns of a row whose
+// mg/L was assumed.
+func (rd *reader) warnAssumed(row *Row, line int, cols []string) {
+	if len(cols) == 0 {
+		return
+	}
+	row.add(Warning, CodeUnitAssumed, line, cols[0], "no unit given for %s: mg/L assumed; state the unit (header, units row, unit column or column map) or confirm it", strings.Join(cols, ", "))
 }
