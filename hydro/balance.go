@@ -101,6 +101,9 @@ func ChargeBalance(s *Sample) Balance {
 	}
 	b.Complete = true
 	for _, k := range requiredIons {
+		if k == "K" && s.Analytes["Na"].SodiumPlusPotassium {
+			continue // K is inside the Na value
+		}
 		if _, ok := s.Analytes[k]; !ok {
 			b.Complete = false
 			b.Missing = append(b.Missing, k)

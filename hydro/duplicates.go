@@ -62,15 +62,19 @@ func markDuplicates(rows []Row) {
 			}
 		}
 	}
+	// One sample id on two sampling events (rounds, or dates when the
+	// file has no round) is one well sampled twice, not a duplicate.
 	at := map[string][]int{}
-	for _, r := range rows {
-		if r.Sample.ID != "" {
-			at[r.Sample.ID] = append(at[r.Sample.ID], r.Line)
+	key := func(s *Sample) string { return s.ID + "\x00" + s.Event }
+	for i := range rows {
+		if rows[i].Sample.ID != "" {
+			k := key(&rows[i].Sample)
+			at[k] = append(at[k], rows[i].Line)
 		}
 	}
 	for i := range rows {
-		ls := at[rows[i].Sample.ID]
-		if len(ls) < 2 {
+		ls := at[key(&rows[i].Sample)]
+		if rows[i].Sample.ID == "" || len(ls) < 2 {
 			continue
 		}
 		var others []string
@@ -79,6 +83,10 @@ func markDuplicates(rows []Row) {
 				others = append(others, strconv.Itoa(l))
 			}
 		}
-		rows[i].add(Warning, CodeDuplicateID, rows[i].Line, "", "sample id %q also used on line %s; rows kept apart", rows[i].Sample.ID, strings.Join(others, ", "))
+		what := "sample id %q also used on line %s; rows kept apart"
+		if rows[i].Sample.Event != "" {
+			what = "sample id %q of the same event also used on line %s; rows kept apart"
+		}
+		rows[i].add(Warning, CodeDuplicateID, rows[i].Line, "", what, rows[i].Sample.ID, strings.Join(others, ", "))
 	}
 }

@@ -23,10 +23,10 @@ func ReadExcel(r io.Reader, file string, opt Options) (*Batch, error) {
 	if err != nil {
 		return nil, err
 	}
-	return readExcelBytes(raw, file, opt)
+	return readExcelBytes(raw, file, opt, false)
 }
 
-func readExcelBytes(raw []byte, file string, opt Options) (b *Batch, err error) {
+func readExcelBytes(raw []byte, file string, opt Options, fieldSheet bool) (b *Batch, err error) {
 	f, err := excelize.OpenReader(bytes.NewReader(raw))
 	if err != nil {
 		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: not a readable workbook: %w", ErrRead, err)}
@@ -55,7 +55,7 @@ func readExcelBytes(raw []byte, file string, opt Options) (b *Batch, err error) 
 	if err := fillMerged(rows, merged); err != nil {
 		return nil, &ReadError{File: file, Field: sheet, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
-	g := &grid{file: file, sheet: sheet, workbook: true, date1904: props.Date1904 != nil && *props.Date1904}
+	g := &grid{file: file, sheet: sheet, workbook: true, date1904: props.Date1904 != nil && *props.Date1904, fieldSheet: fieldSheet}
 	width := 0
 	for _, r := range rows {
 		width = max(width, len(r))

@@ -23,6 +23,9 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 			s.ID = raw
 		case pWellID:
 			s.WellID = raw
+			if rd.idFromWell {
+				s.ID = raw
+			}
 		case pRound:
 			s.Round = raw
 		case pTime:

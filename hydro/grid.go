@@ -18,6 +18,8 @@ type grid struct {
 	// records (0: none), broken the reason.
 	brokenAt int
 	broken   string
+	// fieldSheet: a file of field measurements, which needs no analyte.
+	fieldSheet bool
 }
 
 // readGrid finds the header (skipping a preamble), a units row and a
@@ -27,7 +29,7 @@ func readGrid(g *grid, opt Options) (*Batch, error) {
 		return nil, &ReadError{File: g.file, Err: err}
 	}
 	h := findHeader(g.recs, opt.ColumnMap)
-	rd := &reader{file: g.file, opt: opt, delim: g.delim, header: g.recs[h], headerLine: g.lines[h], workbook: g.workbook, date1904: g.date1904}
+	rd := &reader{file: g.file, opt: opt, delim: g.delim, header: g.recs[h], headerLine: g.lines[h], workbook: g.workbook, date1904: g.date1904, fieldSheet: g.fieldSheet}
 	b := &Batch{File: g.file, Sheet: g.sheet, Delimiter: g.delim, HeaderLine: g.lines[h]}
 	for k := 0; k < h; k++ {
 		b.Skipped = append(b.Skipped, SkippedLine{Line: g.lines[k], Kind: SkipPreamble, Cells: g.recs[k]})

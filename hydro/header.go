@@ -25,6 +25,8 @@ type reader struct {
 	longMapping []HeaderMapping
 	shape       Shape
 	idCol       int   // column of the sample id
+	idFromWell  bool  // the sample id is the well id (no sample-id column)
+	fieldSheet  bool  // reading field measurements: no analyte needed
 	qualCol     []int // per analyte column: its qualifier column or -1
 	dlCol       []int // per analyte column: its detection-limit column or -1
 	// unitSrc is where each column's unit came from (HeaderMapping.UnitSource).
@@ -110,10 +112,18 @@ func (rd *reader) mapHeader() error {
 	}
 	if rd.idCol >= 0 {
 		rd.specs[rd.idCol].Param = pSampleID
+	} else if j := has(pWellID); j >= 0 {
+		// No sample-id column: the well id names the sample, and the
+		// sampling date (or round) tells its events apart.
+		rd.idCol, rd.idFromWell = j, true
+		rd.specs[j].Note = joinNote(rd.specs[j].Note, "no sample-id column: the well id, with the date or round, names each sample")
 	}
 	// A pH with no field/lab mark is the lab pH unless a lab pH column exists.
 	if j := has(pPH); j >= 0 {
-		if has(pPHLab) < 0 {
+		if rd.fieldSheet && has(pPHField) < 0 {
+			rd.specs[j].Param = pPHField
+			rd.specs[j].Note = "pH of a field sheet: taken as field pH"
+		} else if has(pPHLab) < 0 {
 			rd.specs[j].Param = pPHLab
 			rd.specs[j].Note = "pH not marked field or lab: taken as lab pH"
 		} else {
@@ -190,7 +200,7 @@ func (rd *reader) mapHeader() error {
 		}
 		return rd.fatal(fmt.Errorf("%w (looked for a header such as \"Sample ID\", \"sample\", \"no\" or \"id\")", ErrNoSampleID), 0, "")
 	}
-	if rd.shape == Wide && nAnalyte == 0 {
+	if rd.shape == Wide && nAnalyte == 0 && !rd.fieldSheet {
 		if rd.paramCol >= 0 || rd.valueCol >= 0 {
 			missing, col := "parameter", rd.valueCol
 			if rd.paramCol >= 0 {

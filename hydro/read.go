@@ -16,7 +16,7 @@ func ReadFile(path string, opt Options) (*Batch, error) {
 	if err != nil {
 		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
-	b, err := readAny(f, path, opt)
+	b, err := readAny(f, path, opt, false)
 	if cerr := f.Close(); cerr != nil && err == nil {
 		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
 	}
@@ -32,19 +32,19 @@ func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 	if err != nil {
 		return nil, err
 	}
-	return readCSVBytes(raw, file, opt)
+	return readCSVBytes(raw, file, opt, false)
 }
 
 // readAny reads a workbook or CSV text.
-func readAny(r io.Reader, file string, opt Options) (*Batch, error) {
+func readAny(r io.Reader, file string, opt Options, fieldSheet bool) (*Batch, error) {
 	raw, err := readLimited(r, file, opt)
 	if err != nil {
 		return nil, err
 	}
 	if isZip(raw) {
-		return readExcelBytes(raw, file, opt)
+		return readExcelBytes(raw, file, opt, fieldSheet)
 	}
-	return readCSVBytes(raw, file, opt)
+	return readCSVBytes(raw, file, opt, fieldSheet)
 }
 
 func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
@@ -63,7 +63,7 @@ func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
 }
 
 // readCSVBytes splits CSV text into a grid of cells and reads it.
-func readCSVBytes(raw []byte, file string, opt Options) (*Batch, error) {
+func readCSVBytes(raw []byte, file string, opt Options, fieldSheet bool) (*Batch, error) {
 	if isZip(raw) {
 		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: a workbook or other zip archive; read .xlsx files with ReadExcel or ReadFile", ErrNotCSV)}
 	}
@@ -83,7 +83,7 @@ func readCSVBytes(raw []byte, file string, opt Options) (*Batch, error) {
 	cr.FieldsPerRecord = -1
 	cr.LazyQuotes = true
 	cr.TrimLeadingSpace = delim != '\t'
-	g := &grid{file: file, delim: delim}
+	g := &grid{file: file, delim: delim, fieldSheet: fieldSheet}
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
