@@ -38,6 +38,10 @@ func readGrid(g *grid, opt Options) (*Batch, error) {
 		return nil, err
 	}
 	recs, lines := g.recs[h+1:], g.lines[h+1:]
+	if len(recs) > 0 && rd.isHeaderRepeat(recs[0]) {
+		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipHeaderRow, Cells: recs[0]})
+		recs, lines = recs[1:], lines[1:]
+	}
 	if len(recs) > 0 && rd.shape == Wide && rd.applyUnitsRow(recs[0], lines[0]) {
 		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipUnitsRow, Cells: recs[0]})
 		b.UnitsLine = lines[0]

@@ -69,7 +69,8 @@ var limitWords = map[string]bool{
 func (rd *reader) isUnitsRow(rec []string) bool {
 	conc := 0
 	for i, c := range rec {
-		if c == "" {
+		if c == "" || i < len(rd.header) && c == rd.header[i] {
+			// blank, or a merged header cell repeated
 			continue
 		}
 		if _, err := parseNum(c, false); err == nil {
@@ -107,7 +108,7 @@ func (rd *reader) applyUnitsRow(rec []string, line int) bool {
 		return false
 	}
 	for i, c := range rec {
-		if c == "" || i >= len(rd.specs) || unitWords[unitKey(c)] {
+		if c == "" || i >= len(rd.specs) || unitWords[unitKey(c)] || c == rd.header[i] {
 			continue
 		}
 		sp := rd.specs[i]
@@ -165,6 +166,10 @@ func (rd *reader) applyLimitsRow(rec []string, line int) bool {
 	return true
 }
 
+// qualifierHeaders are the headers of a qualifier column standing beside
+// its value column (a "Remark" column is free text, not one of them).
+var qualifierHeaders = map[string]bool{"q": true, "qual": true, "qualifier": true, "qualifiers": true, "flag": true, "flags": true, "labqualifier": true, "resultqualifier": true, "qualifiercode": true}
+
 // companions turns a qualifier or detection-limit column standing right of
 // an analyte column ("Ca, Q, Mg, Q" or "Ca, Flag, DL") into that analyte's
 // companion column.
@@ -172,7 +177,7 @@ func (rd *reader) companions() {
 	for i := 1; i < len(rd.specs); i++ {
 		sub := ""
 		switch k := alnum(rd.header[i]); {
-		case rd.specs[i].Class == clLongQual, k == "q":
+		case qualifierHeaders[k]:
 			sub = "qualifier"
 		case rd.specs[i].Class == clLongDL:
 			sub = "dl"
@@ -223,4 +228,20 @@ func joinNote(a, b string) string {
 		return b
 	}
 	return a + "; " + b
+}
+
+// isHeaderRepeat says whether rec only repeats header cells: the second
+// row of a header whose cells were merged down.
+func (rd *reader) isHeaderRepeat(rec []string) bool {
+	n := 0
+	for i, c := range rec {
+		if c == "" {
+			continue
+		}
+		if i >= len(rd.header) || c != rd.header[i] {
+			return false
+		}
+		n++
+	}
+	return n > 0
 }

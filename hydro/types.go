@@ -128,6 +128,9 @@ type SkipKind string
 const (
 	// SkipPreamble: a line above the header (title, client, lab number).
 	SkipPreamble SkipKind = "preamble"
+	// SkipHeaderRow: a row under the header that only repeats it (cells
+	// merged down over two rows).
+	SkipHeaderRow SkipKind = "header continued"
 	// SkipUnitsRow: the row under the header that gives the units.
 	SkipUnitsRow SkipKind = "units row"
 	// SkipLimitsRow: a row of detection or reporting limits under the
