@@ -33,11 +33,11 @@ type columnMapEntry struct {
 func ReadColumnMap(path string) (map[string]string, error) {
 	raw, err := os.ReadFile(path)
 	if err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v", ErrRead, err)}
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
 	text, err := normalise(raw)
 	if err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v", ErrColumnMap, err)}
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrColumnMap, err)}
 	}
 	if strings.TrimSpace(text) == "" {
 		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrColumnMap, ErrEmpty)}
@@ -54,7 +54,7 @@ func ReadColumnMap(path string) (map[string]string, error) {
 	cr.FieldsPerRecord = -1
 	var entries []columnMapEntry
 	if err := gocsv.UnmarshalCSV(cr, &entries); err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %v (want the header line \"header,parameter\")", ErrColumnMap, err)}
+		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w (want the header line \"header,parameter\")", ErrColumnMap, err)}
 	}
 	first := strings.SplitN(text, "\n", 2)[0]
 	if !strings.Contains(strings.ToLower(first), "header") || !strings.Contains(strings.ToLower(first), "parameter") {
