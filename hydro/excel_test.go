@@ -69,8 +69,8 @@ func TestReadExcelSheetsAndCells(t *testing.T) {
 	}
 }
 
-// ReadFile tells a workbook from CSV text by its bytes; a missing file is
-// fs.ErrNotExist underneath.
+// ReadFile and Read tell a workbook from CSV text by its bytes; a missing
+// file is fs.ErrNotExist underneath.
 func TestReadFileKinds(t *testing.T) {
 	dir := t.TempDir()
 	raw := workbook(t, []string{"S"}, map[string]map[string]any{"S": rowsToCells(t, 1, [][]any{{"Sample", "Ca (mg/L)"}, {"A", 1}})}, nil, false)
@@ -87,7 +87,10 @@ func TestReadFileKinds(t *testing.T) {
 	if !errors.Is(err, fs.ErrNotExist) || !errors.Is(err, ErrRead) || !errors.As(err, &re) {
 		t.Errorf("missing file: %v", err)
 	}
-	if _, err := Read(bytes.NewReader(raw), "lab.csv", Options{}); !errors.Is(err, ErrNotCSV) {
+	if b, err := Read(bytes.NewReader(raw), "-", Options{}); err != nil || len(b.Rows) != 1 {
 		t.Errorf("workbook given to Read: %v", err)
+	}
+	if _, err := Read(bytes.NewReader([]byte("PK\x03\x04 not a workbook")), "x.xlsx", Options{}); !errors.Is(err, ErrRead) {
+		t.Errorf("broken zip: %v", err)
 	}
 }

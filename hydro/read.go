@@ -9,8 +9,7 @@ import (
 	"strings"
 )
 
-// ReadFile reads a lab file from disk: a workbook (.xlsx, see ReadExcel)
-// or CSV text (see Read), told apart by the file's first bytes.
+// ReadFile reads a lab file from disk; see Read.
 func ReadFile(path string, opt Options) (*Batch, error) {
 	f, err := os.Open(path)
 	if err != nil {
@@ -23,16 +22,13 @@ func ReadFile(path string, opt Options) (*Batch, error) {
 	return b, err
 }
 
-// Read reads a lab file of wide or long shape from CSV text. file names the
-// input in messages. The error is only for problems with the file as a
+// Read reads a lab file of wide or long shape from CSV text (or from an
+// .xlsx workbook, recognised by its first bytes, as ReadExcel). file names
+// the input in messages. The error is only for problems with the file as a
 // whole (see the ErrXxx sentinels, wrapped in a *ReadError); every
 // row-level problem is reported in its Row.
 func Read(r io.Reader, file string, opt Options) (*Batch, error) {
-	raw, err := readLimited(r, file, opt)
-	if err != nil {
-		return nil, err
-	}
-	return readCSVBytes(raw, file, opt, false)
+	return readAny(r, file, opt, false)
 }
 
 // readAny reads a workbook or CSV text.
@@ -64,9 +60,6 @@ func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
 
 // readCSVBytes splits CSV text into a grid of cells and reads it.
 func readCSVBytes(raw []byte, file string, opt Options, fieldSheet bool) (*Batch, error) {
-	if isZip(raw) {
-		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: a workbook or other zip archive; read .xlsx files with ReadExcel or ReadFile", ErrNotCSV)}
-	}
 	text, err := normalise(raw)
 	if err != nil {
 		return nil, &ReadError{File: file, Err: err}
