@@ -29,7 +29,7 @@ func ReadExcel(r io.Reader, file string, opt Options) (*Batch, error) {
 func readExcelBytes(raw []byte, file string, opt Options, fieldSheet bool) (b *Batch, err error) {
 	f, err := excelize.OpenReader(bytes.NewReader(raw))
 	if err != nil {
-		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: not a readable workbook: %w", ErrRead, err)}
+		return nil, &ReadError{File: file, Err: fmt.Errorf("%w (nor a readable workbook: %w)", ErrNotCSV, err)}
 	}
 	defer func() {
 		if cerr := f.Close(); cerr != nil && err == nil {

@@ -90,7 +90,7 @@ func TestReadFileKinds(t *testing.T) {
 	if b, err := Read(bytes.NewReader(raw), "-", Options{}); err != nil || len(b.Rows) != 1 {
 		t.Errorf("workbook given to Read: %v", err)
 	}
-	if _, err := Read(bytes.NewReader([]byte("PK\x03\x04 not a workbook")), "x.xlsx", Options{}); !errors.Is(err, ErrRead) {
+	if _, err := Read(bytes.NewReader([]byte("PK\x03\x04 not a workbook")), "x.xlsx", Options{}); !errors.Is(err, ErrNotCSV) {
 		t.Errorf("broken zip: %v", err)
 	}
 }

@@ -259,10 +259,24 @@ func bareKey(h string) string {
 	return ""
 }
 
+// A column name longer than maxHeaderLen bytes or with more than
+// maxHeaderWords separators is not read as a parameter (the longest names
+// met, such as "Alkalinity, total as CaCO3 (mg/L at 25 C)", are well
+// within: common practice).
+const (
+	maxHeaderLen   = 120
+	maxHeaderWords = 12
+)
+
 // parseHeader works out what a column header (or a long-shape parameter
 // name) means.
 func parseHeader(h string) colSpec {
 	h = strings.TrimSpace(strings.Trim(strings.TrimSpace(h), `"'`))
+	if len(h) > maxHeaderLen || strings.Count(h, " ")+strings.Count(h, "_") > maxHeaderWords {
+		// A sentence, not a column name; also keeps the search below
+		// (which tries every split of the words) small.
+		return colSpec{}
+	}
 	var units []string
 	var extraName []string
 	for _, m := range reBracket.FindAllStringSubmatch(h, -1) {
