@@ -21,7 +21,7 @@ var (
 	reNumLess   = regexp.MustCompile(`^([0-9.,eE+-]+)\s*<$`)
 	reNDWithNum = regexp.MustCompile(`^(?:nd|n\.d\.?|bdl|<)\s*[(<]?\s*([0-9.,eE+-]+)\s*\)?$`)
 	reNumQual   = regexp.MustCompile(`^([0-9.,eE+-]+)\s*([a-zA-Z]{1,2}\*?)$`)
-	missingWord = map[string]bool{"-": true, "--": true, "---": true, "—": true, "–": true, "n/a": true, "na": true, "n.a.": true, "n.a": true, "n.m.": true, "n.s.": true, "notsampled": true, "nan": true, "nm": true, "ns": true, "notmeasured": true, "notanalysed": true, "notanalyzed": true, "null": true, "none": true, "?": true}
+	missingWord = map[string]bool{"-": true, "--": true, "---": true, "—": true, "–": true, "n/a": true, "na": true, "n.a.": true, "n.a": true, "n.m.": true, "n.s.": true, "notsampled": true, "unk": true, "unknown": true, "nan": true, "nm": true, "ns": true, "notmeasured": true, "notanalysed": true, "notanalyzed": true, "null": true, "none": true, "?": true}
 )
 
 // ndQualifiers are qualifier codes meaning "not detected".

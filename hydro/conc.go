@@ -118,12 +118,23 @@ func (rd *reader) setConc(row *Row, line int, in concIn) (assumed bool) {
 	key := sp.Param
 	if key == keyNaK {
 		key, m.Param, m.SodiumPlusPotassium = "Na", "Na", true
-		row.add(Info, CodeNaPlusK, line, col, "%sNa and K reported together: the sum taken as Na (mass as Na) for the charge balance and speciation; K not reported separately", pre)
 	}
 	if old, dup := row.Sample.Analytes[key]; dup {
-		row.add(Warning, CodeRepeated, line, col, "%s%s also given in column %q; that value kept", pre, key, old.Column)
-		return false
+		switch {
+		case key == "Na" && old.SodiumPlusPotassium && !m.SodiumPlusPotassium:
+			// Na reported on its own is better than Na+K taken as Na.
+			row.add(Info, CodeNaPlusK, line, old.Column, "Na reported separately in %q: the Na+K value left aside", col)
+		case key == "Na" && m.SodiumPlusPotassium:
+			row.add(Info, CodeNaPlusK, line, col, "%sNa reported separately in %q: the Na+K value left aside", pre, old.Column)
+			return false
+		default:
+			row.add(Warning, CodeRepeated, line, col, "%s%s also given in column %q; that value kept", pre, key, old.Column)
+			return false
+		}
 	}
 	row.Sample.Analytes[key] = m
+	if m.SodiumPlusPotassium {
+		row.add(Info, CodeNaPlusK, line, col, "%sNa and K reported together: the sum taken as Na (mass as Na) for the charge balance and speciation; K not reported separately", pre)
+	}
 	return in.unitSrc == UnitAssumed
 }

@@ -79,7 +79,7 @@ var fieldDefs = map[string]fieldDef{
 	pID:           {clText, "id"},
 	pWellID:       {clText, "well wellid wellname wellno wellcode borehole boreholeid bore boreid station stationid stationname site siteid sitecode sitename locationid locid monitoringwell mw pointid point"},
 	pRound:        {clText, "round event campaign samplinground samplingevent samplingcampaign survey trip"},
-	pDate:         {clDate, "date sampledate samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp collectiondatetime sampledatetime samplingdatetime datetimecollected"},
+	pDate:         {clDate, "date sampledate datesample samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp collectiondatetime sampledatetime samplingdatetime datetimecollected"},
 	pTime:         {clText, "time sampletime samplingtime timesampled"},
 	pLat:          {clDegrees, "lat latitude latdd latdeg ylat"},
 	pLon:          {clDegrees, "lon long lng longitude londd londeg xlon"},
@@ -97,7 +97,7 @@ var fieldDefs = map[string]fieldDef{
 	pPHLab:        {clPH, "phlab labph phl phlaboratory laboratoryph"},
 	pSpecCond:     {clEC, "ec spc specificconductance spcond conductivity cond sc ec25 electricalconductivity specificconductivity spcondmeasured fieldec labec"},
 	pTDS:          {clTDS, "tds totaldissolvedsolids dissolvedsolids tdsmeasured tds180 residueonevaporation"},
-	pDensity:      {clDensity, "density rho specificgravity sg"},
+	pDensity:      {clDensity, "density rho specificgravity sg spgrav spgr"},
 	pDO:           {clDO, "do dissolvedoxygen oxygen o2 do2 dissolvedo2 fielddo"},
 	pEh:           {clMV, "eh redox redoxpotential ehshe ehmv"},
 	pORP:          {clMV, "orp oxidationreductionpotential orpmv"},
@@ -121,7 +121,7 @@ func init() {
 	add("Mg", "", "mg magnesium")
 	add("Na", "", "na sodium")
 	add("K", "", "k potassium")
-	add(keyNaK, "", "nak naplusk nakasna sodiumpluspotassium sodiumandpotassium sodiumpotassium alkalis")
+	add(keyNaK, "", "nak kna naplusk nakasna sodiumpluspotassium sodiumandpotassium sodiumpotassium alkalis")
 	add("Sr", "", "sr strontium")
 	add("Ba", "", "ba barium")
 	add("Fe", "", "fe iron fe2 feii ferrous")
