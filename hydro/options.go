@@ -63,8 +63,10 @@ type Options struct {
 	// MaxBytes limits how much is read (0: 256 MiB).
 	MaxBytes int64
 	// ConfirmUnits says that analytes with no unit anywhere (header, units
-	// row, unit column, column map) are indeed in mg/L: their rows then
-	// get an info note instead of a warning.
+	// row, unit column, column map) are indeed in mg/L, and that values the
+	// plausibility guard finds far outside their usual range are in the
+	// unit stated: such rows then get no warning for it (an info note for
+	// the plausibility guard).
 	ConfirmUnits bool
 	// DateOrder reads slash dates (03/04/2025) day first or month first;
 	// DateAuto decides from the column's values (a day above 12 settles
