@@ -1,7 +1,10 @@
 package hydro
 
 import (
+	"errors"
 	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -122,5 +125,31 @@ func TestQualifierColumnBeside(t *testing.T) {
 	}
 	if len(r.Sample.ExtraColumns) != 0 || strings.Contains(fmt.Sprint(b.Mapping), "kept in Extra") {
 		t.Errorf("qualifier columns left unmapped: %+v", b.Mapping)
+	}
+}
+
+// A column map file's third column gives a detection limit for censored
+// values written without a number.
+func TestColumnMapDetectionLimit(t *testing.T) {
+	p := filepath.Join(t.TempDir(), "map.csv")
+	if err := os.WriteFile(p, []byte("header,parameter,detection_limit\nBarium,Ba (ug/L),2\nCalc,Ca (mg/L),\n"), 0o600); err != nil {
+		t.Fatal(err)
+	}
+	cm, err := LoadColumnMap(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var opt Options
+	cm.Apply(&opt)
+	r := mustRead(t, "Sample,Calc,Barium\nA,40,ND\n", opt).Rows[0]
+	if m := r.Sample.Analytes["Ba"]; m.DetectionLimit != 2 || m.Value != 1 || r.Status != StatusOK {
+		t.Errorf("Ba %+v %s %v", m, r.Status, r.Issues)
+	}
+	if err := os.WriteFile(p, []byte("header,parameter,detection_limit\nBarium,Ba,abc\n"), 0o600); err != nil {
+		t.Fatal(err)
+	}
+	var re *ReadError
+	if _, err := LoadColumnMap(p); !errors.Is(err, ErrColumnMap) || !errors.As(err, &re) || re.Line != 2 || re.Column != 3 {
+		t.Errorf("bad limit: %v", err)
 	}
 }
