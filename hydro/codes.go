@@ -14,7 +14,6 @@ const (
 	CodeEmptySampleID Code = "empty-sample-id"
 	CodeDuplicateID   Code = "duplicate-sample-id"
 	CodeWellApart     Code = "well-id-places-apart"
-	CodeUnitsRow      Code = "units-row"
 
 	// One cell.
 	CodeNotNumber       Code = "not-a-number"
