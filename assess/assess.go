@@ -127,7 +127,7 @@ func statusOf(sev hydro.Severity) hydro.Status {
 }
 
 // Note adds an issue and raises the status to what its severity asks.
-func (r *Record) Note(sev hydro.Severity, code, format string, a ...any) {
+func (r *Record) Note(sev hydro.Severity, code hydro.Code, format string, a ...any) {
 	r.Add(hydro.Issue{Severity: sev, Code: code, Message: fmt.Sprintf(format, a...)})
 }
 

@@ -11,9 +11,9 @@ import (
 
 // Codes of the plausibility checks.
 const (
-	CodeBeyondNature = "beyond-natural-water" // a total above the solubility of its most soluble salt
-	CodePCO2         = "implausible-pco2"     // pH and alkalinity that cannot coexist in an aquifer
-	CodeNotFinite    = "not-finite"           // a number too large to compute with
+	CodeBeyondNature hydro.Code = "beyond-natural-water" // a total above the solubility of its most soluble salt
+	CodePCO2         hydro.Code = "implausible-pco2"     // pH and alkalinity that cannot coexist in an aquifer
+	CodeNotFinite    hydro.Code = "not-finite"           // a number too large to compute with
 )
 
 // saltLimit is the largest molality a component can reach in water: its

@@ -26,7 +26,7 @@ func assessCSV(t *testing.T, csv string) []Record {
 	return recs
 }
 
-func hasCode(r *Record, code string) bool {
+func hasCode(r *Record, code hydro.Code) bool {
 	for _, is := range r.Issues {
 		if is.Code == code {
 			return true

@@ -247,7 +247,7 @@ func jsonRecordOf(r *assess.Record) jsonRecord {
 	s := r.Sample()
 	issues := make([]jsonIssue, len(r.Issues))
 	for k, is := range r.Issues {
-		issues[k] = jsonIssue{Severity: is.Severity.String(), Code: is.Code, Column: is.Column, Line: is.Line, Message: is.Message}
+		issues[k] = jsonIssue{Severity: is.Severity.String(), Code: string(is.Code), Column: is.Column, Line: is.Line, Message: is.Message}
 	}
 	jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
 		Status: string(r.Status), Issues: issues, Error: r.SolveError}
