@@ -52,6 +52,10 @@ func Stream(ctx context.Context, db *speciation.Database, next func() (Item, boo
 		go func() {
 			defer wg.Done()
 			solver := speciation.NewSolver(db, opt.Model)
+			// Every row is solved from a cold start, so that its digits never
+			// depend on the rows a worker happened to solve before it: the same
+			// file gives the same bytes with any number of workers or shards.
+			solver.WarmStart = false
 			var sw speciation.Water
 			for s := range work {
 				assessOne(&s.rec, solver, &sw, opt)

@@ -23,6 +23,7 @@ func SampleFeature(r *assess.Record, minerals []string) geo.PointFeature {
 		p = orb.Point{math.NaN(), math.NaN()} // written with a null geometry
 	}
 	props := []geo.Prop{{Key: "sample_id", Value: s.ID}, {Key: "well_id", Value: s.WellID}, {Key: "round", Value: s.Round},
+		{Key: "event", Value: s.Event}, {Key: "sampled_at", Value: sampledAt(s)},
 		{Key: "line", Value: r.Row.Line}, {Key: "status", Value: string(r.Status)}, {Key: "reasons", Value: strings.Join(r.Reasons(), "; ")}}
 	if d, ok := assess.DepthM(s); ok {
 		props = append(props, geo.Prop{Key: "depth_m", Value: d})
@@ -40,6 +41,21 @@ func SampleFeature(r *assess.Record, minerals []string) geo.PointFeature {
 				props = append(props, geo.Prop{Key: ColumnName(m), Value: si})
 			}
 		}
+	}
+	for _, k := range sortedAnalytes(s) {
+		if m := s.Analytes[k]; m.MgPerL.OK {
+			props = append(props, geo.Prop{Key: strings.ToLower(k) + "_mg_l", Value: m.MgPerL.V})
+		}
+	}
+	for _, x := range s.ExtraColumns {
+		key := x.Header
+		for _, p := range props {
+			if p.Key == key {
+				key = "input " + key // never two properties of one name
+				break
+			}
+		}
+		props = append(props, geo.Prop{Key: key, Value: x.Value})
 	}
 	return geo.PointFeature{ID: fmt.Sprintf("%s:%d", r.File, r.Row.Line), Point: p, Props: props}
 }

@@ -81,3 +81,15 @@ func Sig(v float64, sig int) string {
 	}
 	return strconv.FormatFloat(v, 'e', sig-1, 64)
 }
+
+// Full formats v at full precision (the shortest text that reads back to the
+// same float64), for machine-readable tables; "" for NaN and Inf.
+func Full(v float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return ""
+	}
+	if v == 0 {
+		return "0"
+	}
+	return strconv.FormatFloat(v, 'g', -1, 64)
+}

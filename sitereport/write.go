@@ -119,7 +119,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		}
 	}
 	uniqueStems(figs)
-	tbl := report.SampleTable(recs, all)
+	tbl := report.SampleTable(recs, report.ColumnsFor(opt.Batches, all))
 	write := func(name string, fill func(w io.Writer) error) error {
 		return atomicfile.WriteWith(filepath.Join(opt.Dir, name), fill)
 	}

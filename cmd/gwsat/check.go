@@ -87,6 +87,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		return usageErr(err)
 	}
 	minerals := ch.db.MineralNames()
+	cols := report.ColumnsFor(batches, minerals)
 	sum := assess.NewSummary(files(batches)...)
 	total := 0
 	for _, b := range batches {
@@ -99,7 +100,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		return withOptional(e, outs.json, func(jw io.Writer) error {
 			return withOptional(e, outs.geojson, func(gw io.Writer) error {
 				cw := csv.NewWriter(tw)
-				if err := cw.Write(report.SampleTable(nil, minerals).Header); err != nil {
+				if err := cw.Write(cols.Header()); err != nil {
 					return err
 				}
 				var js *report.JSONWriter
@@ -110,12 +111,10 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 				if gw != nil {
 					gs = geo.NewSampleWriter(gw)
 				}
-				one := make([]assess.Record, 1)
 				err := assess.Stream(e.ctx, ch.db, sh.filter(assess.BatchItems(batches)), opt, func(r *assess.Record) error {
 					bar.Add(1)
 					sum.Add(r)
-					one[0] = *r
-					if err := cw.Write(report.SampleTable(one, minerals).Rows[0]); err != nil {
+					if err := cw.Write(cols.Row(r)); err != nil {
 						return err
 					}
 					if js != nil {
