@@ -104,7 +104,8 @@ type Species struct {
 	Confidence string
 	Master     int // index of the component this is the free ion of, or -1
 	Reaction   string
-	TempNote   string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	TempNote   string     // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	ValidTempC [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
 	Line       int
 }
 
@@ -123,6 +124,7 @@ type Mineral struct {
 	Confidence    string
 	Reaction      string
 	TempNote      string
+	ValidTempC    [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
 	Line          int
 }
 
@@ -360,6 +362,9 @@ func ParseDatabase(text string) (*Database, error) {
 			s.Terms, s.LogK, s.LogK25, s.TempNote = terms, fn, logk25, note
 			s.Reaction = e.fields["reaction"]
 			s.Source, s.Confidence = e.fields["source"], e.fields["confidence"]
+			if s.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			if err := db.checkCharge(e, terms, s.Charge); err != nil {
 				return nil, err
 			}
@@ -375,6 +380,9 @@ func ParseDatabase(text string) (*Database, error) {
 			m.Reaction = e.fields["reaction"]
 			m.Formula = e.fields["formula"]
 			m.Source, m.Confidence = e.fields["source"], e.fields["confidence"]
+			if m.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			m.DensitySource = e.fields["density_source"]
 			if m.MolarMass, err = e.number("mass", false); err != nil {
 				return nil, err
@@ -434,6 +442,30 @@ func (e *rawEntry) number(key string, required bool) (float64, error) {
 		return 0, e.errf(key, "%w: %s = %q is not a number", ErrSyntax, key, v)
 	}
 	return x, nil
+}
+
+// tempRange reads the optional valid_temp_c = "low high" (C, low < high).
+func (e *rawEntry) tempRange() ([2]float64, error) {
+	var r [2]float64
+	v, ok := e.fields["valid_temp_c"]
+	if !ok {
+		return r, nil
+	}
+	f := strings.Fields(v)
+	if len(f) != 2 {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c needs two numbers, low and high", ErrSyntax)
+	}
+	for i, p := range f {
+		x, err := strconv.ParseFloat(p, 64)
+		if err != nil || !finite(x) {
+			return r, e.errf("valid_temp_c", "%w: %q is not a number", ErrSyntax, p)
+		}
+		r[i] = x
+	}
+	if r[0] >= r[1] {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c low %g is not below high %g", ErrInvalidParameter, r[0], r[1])
+	}
+	return r, nil
 }
 
 func (e *rawEntry) ionParams(s *Species) error {
