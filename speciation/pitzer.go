@@ -35,7 +35,7 @@ import (
 //
 // Derivative. dLogG is d(log10 gamma)/dI along the current composition (all ion
 // molalities proportional to I, neutral ones held), from the analytic derivatives of
-// the terms, except that of E-theta' (small) which is left out. The dependence on the
+// the terms (that of E-theta' by a forward difference). The dependence on the
 // composition at fixed I is not given to the solver (the ActivityModel interface has
 // no place for it); see Composition.
 //

@@ -66,7 +66,7 @@ type pzPrep struct {
 	aphi           float64
 	b0, b1, b2, cc []float64
 	th, ps, lv     []float64
-	et, etp        []float64 // per combo, at the last ionic strength
+	et, etp, etpp  []float64 // per combo, at the last ionic strength (etpp: d etp/dI)
 
 	m, ln []float64 // scratch: molalities, ln gamma
 	dln   []float64 // d(ln gamma)/dI along the composition ray (molalities of ions proportional to I)
@@ -167,7 +167,7 @@ func (pr *pzPrep) build(p *PitzerParams, names []string, z []float64, kind []int
 	np := len(pr.pairs)
 	pr.b0, pr.b1, pr.b2, pr.cc = grow(pr.b0, np), grow(pr.b1, np), grow(pr.b2, np), grow(pr.cc, np)
 	pr.th, pr.ps, pr.lv = grow(pr.th, len(pr.likes)), grow(pr.ps, len(pr.triples)), grow(pr.lv, len(pr.lams))
-	pr.et, pr.etp = grow(pr.et, len(pr.combos)), grow(pr.etp, len(pr.combos))
+	pr.et, pr.etp, pr.etpp = grow(pr.et, len(pr.combos)), grow(pr.etp, len(pr.combos)), grow(pr.etpp, len(pr.combos))
 	pr.m, pr.ln, pr.dln = grow(pr.m, n), grow(pr.ln, n), grow(pr.dln, n)
 	pr.mUsed, pr.kappaIon = grow(pr.mUsed, n), grow(pr.kappaIon, n)
 	pr.hasUsed, pr.kappa = false, 0
@@ -203,8 +203,7 @@ func (pr *pzPrep) setTemp(p *PitzerParams, tempC float64) {
 
 // eval computes ln gamma of every entry into pr.ln from the molalities pr.m at ionic
 // strength I (I > 0), with its derivative with respect to I along the composition
-// ray (ion molalities proportional to I, neutral ones fixed; the derivative of E-theta'
-// is left out) into pr.dln, and returns the osmotic coefficient and the sum of the
+// ray (ion molalities proportional to I, neutral ones fixed) into pr.dln, and returns the osmotic coefficient and the sum of the
 // molalities. Suppressed entries must have zero molality.
 func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 	m, ln, dln, z, kap := pr.m, pr.ln, pr.dln, pr.z, pr.kappaIon
@@ -258,17 +257,22 @@ func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 	}
 	for c, cz := range pr.combos {
 		pr.et[c], pr.etp[c] = pitzerETheta(cz[0], cz[1], I, pr.aphi)
+		// d(E-theta')/dI by a forward difference (for the derivative only)
+		const h = 1e-4
+		_, etpH := pitzerETheta(cz[0], cz[1], I*(1+h), pr.aphi)
+		pr.etpp[c] = (etpH - pr.etp[c]) / (I * h)
 	}
 	for k := range pr.likes {
 		lk := &pr.likes[k]
-		phiV, phiP := pr.th[k], 0.0
+		phiV, phiP, phiPP := pr.th[k], 0.0, 0.0
 		if lk.combo >= 0 {
 			phiV += pr.et[lk.combo]
 			phiP = pr.etp[lk.combo]
+			phiPP = pr.etpp[lk.combo]
 		}
 		mi, mj := m[lk.i], m[lk.j]
 		F += mi * mj * phiP
-		dF += 2 * mi * mj * phiP * invI
+		dF += mi * mj * (2*phiP*invI + phiPP)
 		ln[lk.i] += 2 * mj * phiV
 		ln[lk.j] += 2 * mi * phiV
 		dln[lk.i] += 2 * mj * (phiV*invI + phiP)
