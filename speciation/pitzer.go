@@ -163,11 +163,15 @@ func (p *Pitzer) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
 			continue
 		}
 		lg, dl := pr.ln[k]*inv, pr.dln[k]*inv
-		if !finite(lg) || !finite(dl) {
+		switch {
+		case lg > pzClampLogGamma:
+			lg = pzClampLogGamma
+		case lg < -pzClampLogGamma:
+			lg = -pzClampLogGamma
+		case lg != lg || dl != dl || dl-dl != 0: // NaN or Inf
 			lg, dl = 0, 0
 		}
-		logG[k] = math.Max(-pzClampLogGamma, math.Min(pzClampLogGamma, lg))
-		dLogG[k] = dl
+		logG[k], dLogG[k] = lg, dl
 	}
 	logAw := -phi * waterMolarMass * sumM * inv
 	if !finite(logAw) {

@@ -38,6 +38,18 @@ func pitzerGpp(x float64) float64 {
 	return -math.Exp(-x) + 4*(1-(1+x+0.5*x*x)*math.Exp(-x))/(x*x*x)
 }
 
+// pitzerAlphaFuncs returns g, g', dg'/dx and e^-x at x with one exponential.
+func pitzerAlphaFuncs(x float64) pzAlphaFuncs {
+	if x < 0.01 {
+		return pzAlphaFuncs{g: pitzerG(x), gp: pitzerGp(x), gpp: pitzerGpp(x), e: math.Exp(-x)}
+	}
+	e := math.Exp(-x)
+	x2 := x * x
+	p1 := 1 - (1+x)*e
+	p2 := 1 - (1+x+0.5*x2)*e
+	return pzAlphaFuncs{g: 2 * p1 / x2, gp: -2 * p2 / x2, gpp: -e + 4*p2/(x2*x), e: e}
+}
+
 // Constants of Pitzer's (1975) approximation of the unsymmetrical-mixing integral,
 // J(x) = x / (4 + C1 x^-C2 exp(-C3 x^C4)) (Pitzer, K.S., 1975, J. Solution Chem. 4,
 // 249-265, eq. 47; from memory).
@@ -48,40 +60,52 @@ const (
 	pzJC4 = 0.528
 )
 
-// pitzerJ returns J(x) and its derivative J'(x) (Pitzer 1975 approximation).
-func pitzerJ(x float64) (j, jp float64) {
+// pitzerJ returns J(x) and its first two derivatives (Pitzer 1975 approximation).
+func pitzerJ(x float64) (j, jp, jpp float64) {
 	if x <= 0 {
-		return 0, 0
+		return 0, 0, 0
 	}
-	xc4 := math.Pow(x, pzJC4)
-	u := pzJC1 * math.Pow(x, -pzJC2) * math.Exp(-pzJC3*xc4)
+	lx := math.Log(x)
+	xc4 := math.Exp(pzJC4 * lx)
+	u := pzJC1 * math.Exp(-pzJC2*lx-pzJC3*xc4)
 	d := 4 + u
 	j = x / d
-	// du/dx = -u (C2 + C3 C4 x^C4) / x, so J' = (4 + u (1 + C2 + C3 C4 x^C4)) / (4 + u)^2
-	jp = (4 + u*(1+pzJC2+pzJC3*pzJC4*xc4)) / (d * d)
-	return j, jp
+	// with K = C2 + C3 C4 x^C4: du/dx = -u K / x, J' = (4 + u (1 + K)) / d^2,
+	// J'' = (N' d - 2 N d') / d^3 with N = 4 + u (1 + K), d' = du/dx,
+	// N' = du/dx (1 + K) + u C3 C4^2 x^C4 / x
+	k := pzJC2 + pzJC3*pzJC4*xc4
+	n := 4 + u*(1+k)
+	du := -u * k / x
+	dn := du*(1+k) + u*pzJC3*pzJC4*pzJC4*xc4/x
+	jp = n / (d * d)
+	jpp = (dn*d - 2*n*du) / (d * d * d)
+	return j, jp, jpp
 }
 
 // pitzerETheta returns the unsymmetrical-mixing terms E-theta and E-theta' for two ions
 // of charge magnitudes zi and zj (same sign) at ionic strength I with osmotic slope
-// aphi (Pitzer 1975; HMW84 eq. A14-A15):
+// aphi (Pitzer 1975; HMW84 eq. A14-A15), and d(E-theta')/dI:
 //
 //	x_ij = 6 zi zj A_phi sqrt(I)
 //	Etheta  = zi zj / (4 I) [J(x_ij) - J(x_ii)/2 - J(x_jj)/2]
 //	Etheta' = -Etheta / I + zi zj / (8 I^2) [x_ij J'(x_ij) - x_ii J'(x_ii)/2 - x_jj J'(x_jj)/2]
-func pitzerETheta(zi, zj, I, aphi float64) (et, etp float64) {
+func pitzerETheta(zi, zj, I, aphi float64) (et, etp, etpp float64) {
 	if zi == zj || I <= 0 {
-		return 0, 0
+		return 0, 0, 0
 	}
 	s := 6 * aphi * math.Sqrt(I)
 	xij, xii, xjj := s*zi*zj, s*zi*zi, s*zj*zj
-	jij, jpij := pitzerJ(xij)
-	jii, jpii := pitzerJ(xii)
-	jjj, jpjj := pitzerJ(xjj)
+	jij, jpij, jppij := pitzerJ(xij)
+	jii, jpii, jppii := pitzerJ(xii)
+	jjj, jpjj, jppjj := pitzerJ(xjj)
 	zz := zi * zj
 	et = zz / (4 * I) * (jij - 0.5*jii - 0.5*jjj)
-	etp = -et/I + zz/(8*I*I)*(xij*jpij-0.5*xii*jpii-0.5*xjj*jpjj)
-	return et, etp
+	S := xij*jpij - 0.5*xii*jpii - 0.5*xjj*jpjj
+	etp = -et/I + zz/(8*I*I)*S
+	// dS/dI = sum c (J' + x J'') x / (2 I)
+	dS := (xij*(jpij+xij*jppij) - 0.5*xii*(jpii+xii*jppii) - 0.5*xjj*(jpjj+xjj*jppjj)) / (2 * I)
+	etpp = -etp/I + et/(I*I) - zz*S/(4*I*I*I) + zz/(8*I*I)*dS
+	return et, etp, etpp
 }
 
 // pitzerFDH returns the Debye-Hueckel part of F, -A_phi [sqrt I/(1 + b sqrt I) +

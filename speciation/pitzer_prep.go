@@ -24,11 +24,24 @@ const pzSuppressLogGamma = 30
 const pzClampLogGamma = 20
 
 type pzPair struct {
-	i, j           int32 // cation, anion
-	b              *pzBinary
-	alpha1, alpha2 float64
-	cScale         float64 // C = Cphi / (2 sqrt|zc za|)
+	i, j   int32 // cation, anion
+	b      *pzBinary
+	a1     int8    // index of alpha1 in pzAlphas
+	cScale float64 // C = Cphi / (2 sqrt|zc za|)
 }
+
+// pzAlphas are the alpha constants: alpha1 = 2 (pzAlpha2), 1.4 for 2-2 pairs
+// (pzAlpha14), alpha2 = 12 (pzAlpha12).
+var pzAlphas = [3]float64{2, 1.4, 12}
+
+const (
+	pzAlpha2 = iota
+	pzAlpha14
+	pzAlpha12
+)
+
+// pzAlphaFuncs are g, g', the derivative of g' and e^-x at x = alpha sqrt(I).
+type pzAlphaFuncs struct{ g, gp, gpp, e float64 }
 
 type pzLike struct {
 	i, j  int32
@@ -70,13 +83,6 @@ type pzPrep struct {
 
 	m, ln []float64 // scratch: molalities, ln gamma
 	dln   []float64 // d(ln gamma)/dI along the composition ray (molalities of ions proportional to I)
-
-	// the damped composition of the solver path (see Pitzer.LogGammas): the molalities
-	// used at the last call, and the coupling estimate kappa of the last evaluation
-	mUsed    []float64
-	hasUsed  bool
-	kappa    float64
-	kappaIon []float64
 }
 
 // build fills the structure for species with the given names and charges; kinds
@@ -111,11 +117,11 @@ func (pr *pzPrep) build(p *PitzerParams, names []string, z []float64, kind []int
 					continue
 				}
 				zc, za := math.Abs(z[c]), math.Abs(z[a])
-				alpha1 := 2.0
+				a1 := int8(pzAlpha2)
 				if zc == 2 && za == 2 {
-					alpha1 = 1.4
+					a1 = pzAlpha14
 				}
-				pr.pairs = append(pr.pairs, pzPair{i: int32(c), j: int32(a), b: b, alpha1: alpha1, alpha2: 12, cScale: 1 / (2 * math.Sqrt(zc*za))})
+				pr.pairs = append(pr.pairs, pzPair{i: int32(c), j: int32(a), b: b, a1: a1, cScale: 1 / (2 * math.Sqrt(zc*za))})
 				continue
 			}
 			th := p.theta[sortedPair(names[i], names[j])]
@@ -169,8 +175,6 @@ func (pr *pzPrep) build(p *PitzerParams, names []string, z []float64, kind []int
 	pr.th, pr.ps, pr.lv = grow(pr.th, len(pr.likes)), grow(pr.ps, len(pr.triples)), grow(pr.lv, len(pr.lams))
 	pr.et, pr.etp, pr.etpp = grow(pr.et, len(pr.combos)), grow(pr.etp, len(pr.combos)), grow(pr.etpp, len(pr.combos))
 	pr.m, pr.ln, pr.dln = grow(pr.m, n), grow(pr.ln, n), grow(pr.dln, n)
-	pr.mUsed, pr.kappaIon = grow(pr.mUsed, n), grow(pr.kappaIon, n)
-	pr.hasUsed, pr.kappa = false, 0
 	pr.tempC = math.NaN()
 }
 
@@ -206,10 +210,9 @@ func (pr *pzPrep) setTemp(p *PitzerParams, tempC float64) {
 // ray (ion molalities proportional to I, neutral ones fixed) into pr.dln, and returns the osmotic coefficient and the sum of the
 // molalities. Suppressed entries must have zero molality.
 func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
-	m, ln, dln, z, kap := pr.m, pr.ln, pr.dln, pr.z, pr.kappaIon
+	m, ln, dln, z := pr.m, pr.ln, pr.dln, pr.z
 	clear(ln)
 	clear(dln)
-	clear(kap)
 	Z := 0.0
 	for k, mk := range m {
 		Z += mk * math.Abs(z[k])
@@ -220,21 +223,24 @@ func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 	F, dF := fDH, dfDH
 	var phiSum, CS, dCS float64
 	invI := 1 / I
+	var af [len(pzAlphas)]pzAlphaFuncs
+	for a, alpha := range pzAlphas {
+		af[a] = pitzerAlphaFuncs(alpha * sq)
+	}
 	for k := range pr.pairs {
 		pp := &pr.pairs[k]
-		x1 := pp.alpha1 * sq
-		h1 := pitzerGp(x1)
-		B := pr.b0[k] + pr.b1[k]*pitzerG(x1)
-		Bp := pr.b1[k] * h1
-		dBp := pr.b1[k] * (0.5*x1*pitzerGpp(x1) - h1)
-		Bphi := pr.b0[k] + pr.b1[k]*math.Exp(-x1)
+		f1 := &af[pp.a1]
+		b1 := pr.b1[k]
+		B := pr.b0[k] + b1*f1.g
+		Bp := b1 * f1.gp
+		dBp := b1 * (0.5*pzAlphas[pp.a1]*sq*f1.gpp - f1.gp)
+		Bphi := pr.b0[k] + b1*f1.e
 		if b2 := pr.b2[k]; b2 != 0 {
-			x2 := pp.alpha2 * sq
-			h2 := pitzerGp(x2)
-			B += b2 * pitzerG(x2)
-			Bp += b2 * h2
-			dBp += b2 * (0.5*x2*pitzerGpp(x2) - h2)
-			Bphi += b2 * math.Exp(-x2)
+			f2 := &af[pzAlpha12]
+			B += b2 * f2.g
+			Bp += b2 * f2.gp
+			dBp += b2 * (0.5*pzAlphas[pzAlpha12]*sq*f2.gpp - f2.gp)
+			Bphi += b2 * f2.e
 		}
 		Bp *= invI
 		dBp *= invI * invI
@@ -249,18 +255,12 @@ func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 		ln[pp.j] += mc * t
 		dln[pp.i] += ma * dt
 		dln[pp.j] += mc * dt
-		kap[pp.i] += ma * math.Abs(t)
-		kap[pp.j] += mc * math.Abs(t)
 		CS += mm * C
 		dCS += 2 * mm * C * invI
 		phiSum += mm * (Bphi + Z*C)
 	}
 	for c, cz := range pr.combos {
-		pr.et[c], pr.etp[c] = pitzerETheta(cz[0], cz[1], I, pr.aphi)
-		// d(E-theta')/dI by a forward difference (for the derivative only)
-		const h = 1e-4
-		_, etpH := pitzerETheta(cz[0], cz[1], I*(1+h), pr.aphi)
-		pr.etpp[c] = (etpH - pr.etp[c]) / (I * h)
+		pr.et[c], pr.etp[c], pr.etpp[c] = pitzerETheta(cz[0], cz[1], I, pr.aphi)
 	}
 	for k := range pr.likes {
 		lk := &pr.likes[k]
@@ -277,8 +277,6 @@ func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 		ln[lk.j] += 2 * mi * phiV
 		dln[lk.i] += 2 * mj * (phiV*invI + phiP)
 		dln[lk.j] += 2 * mi * (phiV*invI + phiP)
-		kap[lk.i] += 2 * mj * math.Abs(phiV)
-		kap[lk.j] += 2 * mi * math.Abs(phiV)
 		phiSum += mi * mj * (phiV + I*phiP)
 	}
 	for k := range pr.triples {
@@ -307,10 +305,6 @@ func (pr *pzPrep) eval(I float64) (phi, sumM float64) {
 			ln[k] += zk*zk*F + math.Abs(zk)*CS
 			dln[k] += zk*zk*dF + math.Abs(zk)*dCS
 		}
-	}
-	pr.kappa = 0
-	for _, v := range kap {
-		pr.kappa = math.Max(pr.kappa, v)
 	}
 	phi = 1
 	if sumM > 0 {

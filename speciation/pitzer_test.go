@@ -254,23 +254,26 @@ func TestModelByNamePitzer(t *testing.T) {
 // moderate I (the sign shown in Pitzer 1975, fig. 1, for unsymmetrical mixing; from
 // memory).
 func TestPitzerETheta(t *testing.T) {
-	if et, etp := pitzerETheta(1, 1, 1, 0.39); et != 0 || etp != 0 {
+	if et, etp, _ := pitzerETheta(1, 1, 1, 0.39); et != 0 || etp != 0 {
 		t.Errorf("equal charges: %g %g", et, etp)
 	}
-	if et, etp := pitzerETheta(1, 2, 0, 0.39); et != 0 || etp != 0 {
+	if et, etp, _ := pitzerETheta(1, 2, 0, 0.39); et != 0 || etp != 0 {
 		t.Errorf("I = 0: %g %g", et, etp)
 	}
 	for _, I := range []float64{0.01, 0.1, 1, 3, 6} {
-		et, etp := pitzerETheta(1, 2, I, 0.3915)
-		if !(et < 0) || !finite(etp) {
-			t.Errorf("I = %g: E-theta %g, E-theta' %g", I, et, etp)
+		et, etp, etpp := pitzerETheta(1, 2, I, 0.3915)
+		if !(et < 0) || !finite(etp) || !finite(etpp) {
+			t.Errorf("I = %g: E-theta %g, E-theta' %g, E-theta'' %g", I, et, etp, etpp)
 		}
-		// E-theta' is its derivative
+		// E-theta' is its derivative, and etpp that of E-theta'
 		h := 1e-6 * I
-		ep, _ := pitzerETheta(1, 2, I+h, 0.3915)
-		em, _ := pitzerETheta(1, 2, I-h, 0.3915)
+		ep, etpP, _ := pitzerETheta(1, 2, I+h, 0.3915)
+		em, etpM, _ := pitzerETheta(1, 2, I-h, 0.3915)
 		if num := (ep - em) / (2 * h); math.Abs(num-etp) > 1e-5*math.Abs(etp)+1e-9 {
 			t.Errorf("I = %g: E-theta' %g, central difference %g", I, etp, num)
+		}
+		if num := (etpP - etpM) / (2 * h); math.Abs(num-etpp) > 1e-4*math.Abs(etpp)+1e-8 {
+			t.Errorf("I = %g: d(E-theta')/dI %g, central difference %g", I, etpp, num)
 		}
 	}
 }
