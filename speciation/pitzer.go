@@ -48,6 +48,11 @@ import (
 // composition and the activity coefficients makes the solve unstable above about
 // 4 mol/kg (the charge-separating mode, Na+ against Cl-, has a gain above 1).
 //
+// Settling. Once the composition per unit ionic strength changes by less than a
+// relative 1e-7 between calls (pzFreeze), the model keeps the previous one, so that
+// the last Newton iterations see activity coefficients that depend on I alone and
+// converge quadratically; the results carry a relative error of that order in gamma.
+//
 // Concurrency. A *Pitzer keeps the structure of the last species set and scratch
 // space, so LogGammas does not allocate in steady state; it is not safe for concurrent
 // use. Create one per Solver (NewPitzer is cheap: the parameter set is parsed once and
@@ -88,6 +93,10 @@ func (p *Pitzer) Name() string { return "pitzer" }
 // up to about 6 mol/kg (Pitzer & Mayorga 1973, and to saturation where that is lower;
 // NaCl to 6 m, the halite saturation).
 func (p *Pitzer) MaxIonicStrength() float64 { return 6 }
+
+// pzFreeze is the relative change of the composition below which LogGammas keeps the
+// previous composition (see Pitzer, Settling).
+const pzFreeze = 1e-7
 
 // LogGammas implements ActivityModel (see the type's documentation).
 func (p *Pitzer) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
@@ -137,19 +146,35 @@ func (p *Pitzer) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
 		e := 2 * I / (sc/qc + sa/qa)
 		fc, fa = e/qc, e/qa
 	}
+	same := pr.hasDir
 	for k, mk := range mol {
 		if pr.kind[k] == pzSuppressed || !finite(mk) || mk <= 0 {
-			pr.m[k] = 0
-			continue
+			mk = 0
 		}
 		switch z := pr.z[k]; {
 		case z > 0:
-			pr.m[k] = fc * mk
+			mk *= fc
 		case z < 0:
-			pr.m[k] = fa * mk
-		default:
-			pr.m[k] = mk
+			mk *= fa
 		}
+		pr.m[k] = mk
+		if same {
+			if d := mk/I - pr.dir[k]; d > pzFreeze*pr.dir[k]+1e-15 || -d > pzFreeze*pr.dir[k]+1e-15 {
+				same = false
+			}
+		}
+	}
+	if same {
+		// the composition has settled: keep the previous one (scaled to I), so that the
+		// activity coefficients depend on I alone and Newton ends quadratically
+		for k, c := range pr.dir {
+			pr.m[k] = c * I
+		}
+	} else {
+		for k, mk := range pr.m {
+			pr.dir[k] = mk / I
+		}
+		pr.hasDir = true
 	}
 	phi, sumM := pr.eval(I)
 	const inv = 1 / math.Ln10

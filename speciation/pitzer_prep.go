@@ -83,6 +83,11 @@ type pzPrep struct {
 
 	m, ln []float64 // scratch: molalities, ln gamma
 	dln   []float64 // d(ln gamma)/dI along the composition ray (molalities of ions proportional to I)
+
+	// the composition of the last solver call per unit ionic strength (see
+	// Pitzer.LogGammas), and whether it is set
+	dir    []float64
+	hasDir bool
 }
 
 // build fills the structure for species with the given names and charges; kinds
@@ -174,7 +179,8 @@ func (pr *pzPrep) build(p *PitzerParams, names []string, z []float64, kind []int
 	pr.b0, pr.b1, pr.b2, pr.cc = grow(pr.b0, np), grow(pr.b1, np), grow(pr.b2, np), grow(pr.cc, np)
 	pr.th, pr.ps, pr.lv = grow(pr.th, len(pr.likes)), grow(pr.ps, len(pr.triples)), grow(pr.lv, len(pr.lams))
 	pr.et, pr.etp, pr.etpp = grow(pr.et, len(pr.combos)), grow(pr.etp, len(pr.combos)), grow(pr.etpp, len(pr.combos))
-	pr.m, pr.ln, pr.dln = grow(pr.m, n), grow(pr.ln, n), grow(pr.dln, n)
+	pr.m, pr.ln, pr.dln, pr.dir = grow(pr.m, n), grow(pr.ln, n), grow(pr.dln, n), grow(pr.dir, n)
+	pr.hasDir = false
 	pr.tempC = math.NaN()
 }
 
