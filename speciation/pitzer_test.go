@@ -277,3 +277,52 @@ func TestPitzerETheta(t *testing.T) {
 		}
 	}
 }
+
+// Solvers in separate goroutines, each with its own *Pitzer (the documented use),
+// give the same results as one solver alone (run with -race to check for sharing).
+func TestPitzerConcurrentSolvers(t *testing.T) {
+	waters := []Water{seawater(25), brine3m(), seawater(80)}
+	want := make([]float64, len(waters))
+	s := pitzerSolver(t)
+	for i := range waters {
+		r, err := s.Solve(&waters[i])
+		if err != nil {
+			t.Fatal(err)
+		}
+		want[i], _ = r.SI("gypsum")
+	}
+	const workers = 4
+	errs := make(chan error, workers)
+	got := make([][]float64, workers)
+	for g := 0; g < workers; g++ {
+		got[g] = make([]float64, len(waters))
+		s := pitzerSolver(t)
+		go func(g int) {
+			for rep := 0; rep < 20; rep++ {
+				for i := range waters {
+					w := waters[(i+g)%len(waters)]
+					r, err := s.Solve(&w)
+					if err != nil {
+						errs <- err
+						return
+					}
+					got[g][(i+g)%len(waters)], _ = r.SI("gypsum")
+				}
+			}
+			errs <- nil
+		}(g)
+	}
+	for g := 0; g < workers; g++ {
+		if err := <-errs; err != nil {
+			t.Fatal(err)
+		}
+	}
+	for g := range got {
+		for i := range waters {
+			// the settled composition (pzFreeze) may differ by a relative 1e-7 between paths
+			if math.Abs(got[g][i]-want[i]) > 1e-6 {
+				t.Errorf("worker %d water %d: SI gypsum %.9f, alone %.9f", g, i, got[g][i], want[i])
+			}
+		}
+	}
+}
