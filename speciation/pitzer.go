@@ -13,7 +13,9 @@ import (
 // to an ionic strength of 6 mol/kg (MaxIonicStrength) and 0-100 C. Its parameters
 // (PitzerParams, embedded from pitzer.txt) are the Harvie-Moller-Weare set at 25 C for
 // Na-K-Ca-Mg-H-Cl-SO4-OH-HCO3-CO3-CO2, temperature functions for the main salts, and
-// Sr and Ba chlorides and sulfates; each record names its source.
+// Sr and Ba chlorides and sulfates; each record names its source. Parameters without a
+// temperature function (MgCl2, MgSO4, K2SO4, the carbonate, hydroxide and bisulfate
+// pairs, Sr and Ba, the mixing terms) are held at their 25 C values.
 //
 // Species. The model keeps the species its parameter set treats (PitzerParams.Treats):
 // the free ions, HSO4-, HCO3-, CO3 2-, OH-, CO2(aq), CaCO3(aq), MgCO3(aq) and MgOH+.
@@ -35,7 +37,7 @@ import (
 //
 // Derivative. dLogG is d(log10 gamma)/dI along the current composition (all ion
 // molalities proportional to I, neutral ones held), from the analytic derivatives of
-// the terms (that of E-theta' by a forward difference). The dependence on the
+// the terms. The dependence on the
 // composition at fixed I is not given to the solver (the ActivityModel interface has
 // no place for it); see Composition.
 //
@@ -44,7 +46,7 @@ import (
 // both carry the same charge and the ionic strength equals the I given. At convergence
 // the scaling is 1 for an electrically neutral water; for a water whose analysis does
 // not balance, the equations (written for a neutral solution) are evaluated at the
-// nearest neutral composition. Without this, the lag of one evaluation between the
+// composition so scaled. Without this, the lag of one evaluation between the
 // composition and the activity coefficients makes the solve unstable above about
 // 4 mol/kg (the charge-separating mode, Na+ against Cl-, has a gain above 1).
 //
@@ -56,7 +58,7 @@ import (
 // Concurrency. A *Pitzer keeps the structure of the last species set and scratch
 // space, so LogGammas does not allocate in steady state; it is not safe for concurrent
 // use. Create one per Solver (NewPitzer is cheap: the parameter set is parsed once and
-// shared). A *Pitzer used by two goroutines at once panics.
+// shared). Two goroutines that call one *Pitzer at the same time make it panic.
 type Pitzer struct {
 	params *PitzerParams
 	prep   pzPrep
