@@ -180,8 +180,7 @@ func (Ideal) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
 }
 
 // ModelByName returns the activity model with the given name ("davies",
-// "truesdell-jones" or "tj", "ideal", "pitzer"), case-insensitive, or false. Each call
-// for "pitzer" returns a new *Pitzer (one per Solver).
+// "truesdell-jones" or "tj", "ideal", "pitzer"), case-insensitive, or false.
 func ModelByName(name string) (ActivityModel, bool) {
 	switch strings.ToLower(strings.TrimSpace(name)) {
 	case "davies":

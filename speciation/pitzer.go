@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"sync/atomic"
+	"sync"
 )
 
 // Pitzer is the ion-interaction activity model of Pitzer (Pitzer 1973; Pitzer & Mayorga
@@ -55,14 +55,15 @@ import (
 // the last Newton iterations see activity coefficients that depend on I alone and
 // converge quadratically; the results carry a relative error of that order in gamma.
 //
-// Concurrency. A *Pitzer keeps the structure of the last species set and scratch
-// space, so LogGammas does not allocate in steady state; it is not safe for concurrent
-// use. Create one per Solver (NewPitzer is cheap: the parameter set is parsed once and
-// shared). Two goroutines that call one *Pitzer at the same time make it panic.
+// Concurrency. A *Pitzer is safe for concurrent use: each call takes its scratch (the
+// interaction structure of a species set, the parameters at a temperature, the settled
+// composition) from a pool and returns it, so solvers in different goroutines may
+// share one model, as they share the stateless models. A scratch is rebuilt (which
+// allocates) only when the species set it holds differs from the call's; in steady
+// state (a worker solving waters of one kind) LogGammas does not allocate.
 type Pitzer struct {
 	params *PitzerParams
-	prep   pzPrep
-	busy   atomic.Int32
+	pool   sync.Pool // of *pzPrep
 }
 
 // NewPitzer returns a Pitzer model with the embedded parameter set (DefaultPitzerParams).
@@ -82,7 +83,9 @@ func NewPitzerWith(params *PitzerParams) *Pitzer {
 	if params == nil {
 		panic("speciation: NewPitzerWith needs a parameter set")
 	}
-	return &Pitzer{params: params}
+	p := &Pitzer{params: params}
+	p.pool.New = func() any { return new(pzPrep) }
+	return p
 }
 
 // Params returns the model's parameter set.
@@ -102,15 +105,12 @@ const pzFreeze = 1e-7
 
 // LogGammas implements ActivityModel (see the type's documentation).
 func (p *Pitzer) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
-	if !p.busy.CompareAndSwap(0, 1) {
-		panic("speciation: a *Pitzer is in use by another goroutine; create one per Solver")
-	}
-	defer p.busy.Store(0)
+	pr := p.pool.Get().(*pzPrep)
+	defer p.pool.Put(pr)
 	n := len(logG)
 	dLogG = dLogG[:n]
-	pr := &p.prep
 	if pr.db != st.DB || !slices.Equal(pr.species, st.Species[:n]) {
-		p.prepare(st, n)
+		p.prepare(pr, st, n)
 	}
 	if st.TempC != pr.tempC {
 		pr.setTemp(p.params, st.TempC)
@@ -209,9 +209,8 @@ func (p *Pitzer) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
 
 // prepare classifies the species of st and builds the interaction structure (it
 // allocates; it runs when the species set changes).
-func (p *Pitzer) prepare(st *ActivityState, n int) {
+func (p *Pitzer) prepare(pr *pzPrep, st *ActivityState, n int) {
 	db := st.DB
-	pr := &p.prep
 	pr.db = db
 	pr.species = append(pr.species[:0], st.Species[:n]...)
 	names := make([]string, n)
