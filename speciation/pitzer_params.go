@@ -109,6 +109,7 @@ func ParsePitzerParams(text string) (*PitzerParams, error) {
 	}
 	hasAphi := false
 	seen := map[string]int{}
+	firstLine := map[string]int{} // first line naming each species
 	for n, line := range strings.Split(text, "\n") {
 		ln := n + 1
 		line = strings.TrimSpace(line)
@@ -132,7 +133,11 @@ func ParsePitzerParams(text string) (*PitzerParams, error) {
 		var sp []string
 		if names != "-" {
 			for _, s := range strings.Split(names, ",") {
-				sp = append(sp, CanonicalName(strings.TrimSpace(s)))
+				c := CanonicalName(strings.TrimSpace(s))
+				sp = append(sp, c)
+				if _, ok := firstLine[c]; !ok {
+					firstLine[c] = ln
+				}
 			}
 		}
 		if kind == "species" {
@@ -202,11 +207,22 @@ func ParsePitzerParams(text string) (*PitzerParams, error) {
 	}
 	// Every species named by a parameter must be kept (otherwise the parameter could
 	// never apply).
+	var named []string
 	for k := range p.binary {
-		for _, s := range k {
-			if !p.kept[s] {
-				return nil, &DataError{Line: 1, Err: fmt.Errorf("%w: %s has parameters but is not in the species list", ErrPitzerParams, s)}
-			}
+		named = append(named, k[:]...)
+	}
+	for k := range p.theta {
+		named = append(named, k[:]...)
+	}
+	for k := range p.psi {
+		named = append(named, k[:]...)
+	}
+	for k := range p.lambda {
+		named = append(named, k[:]...)
+	}
+	for _, s := range named {
+		if !p.kept[s] {
+			return nil, &DataError{Line: firstLine[s], Err: fmt.Errorf("%w: %s has parameters but is not in the species list", ErrPitzerParams, s)}
 		}
 	}
 	return p, nil

@@ -161,6 +161,7 @@ func TestParsePitzerParamsRejects(t *testing.T) {
 		{"short fit", aphi + "beta0 | Na+, Cl- | 0.1 | fit8 1 2 3 | x\n"},
 		{"fit not a number", aphi + "beta0 | Na+, Cl- | 0.1 | fit8 1 2 3 4 5 6 7 x | x\n"},
 		{"not kept", aphi + "beta0 | K+, Cl- | 0.1 | - | x\n"},
+		{"theta not kept", aphi + "theta | Na+, K+ | 0.1 | - | x\n"},
 	} {
 		_, err := ParsePitzerParams(tc.text)
 		var de *DataError
