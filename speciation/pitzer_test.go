@@ -328,3 +328,26 @@ func TestPitzerConcurrentSolvers(t *testing.T) {
 		}
 	}
 }
+
+// A_phi(T) of the parameter file (Moller 1988 expression) against A_phi = A ln10 / 3
+// with the Debye-Hueckel A of Helgeson & Kirkham (1974) as tabulated by White,
+// Geochemistry (read; REFERENCES.md section 4.1 b): 0.4911, 0.5092, 0.5336, 0.5639,
+// 0.5998 at 0, 25, 50, 75, 100 C, within 0.3 %; and 0.3915 at 25 C (Harvie, Moller &
+// Weare 1984, from memory).
+func TestPitzerAphi(t *testing.T) {
+	p, err := DefaultPitzerParams()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := p.aphi.at(T25); math.Abs(got-0.3915) > 2e-4 {
+		t.Errorf("A_phi(25 C) %.5f, HMW84 0.3915", got)
+	}
+	for _, tc := range []struct{ tempC, A float64 }{
+		{0, 0.4911}, {25, 0.5092}, {50, 0.5336}, {75, 0.5639}, {100, 0.5998},
+	} {
+		want := tc.A * math.Ln10 / 3
+		if got := p.aphi.at(tc.tempC + 273.15); math.Abs(got-want) > 0.003*want {
+			t.Errorf("A_phi(%g C) %.5f, Helgeson & Kirkham %.5f", tc.tempC, got, want)
+		}
+	}
+}
