@@ -3,7 +3,7 @@ package speciation
 import "math"
 
 // The functions of Pitzer's ion-interaction equations, as written by Harvie, Moller &
-// Weare (1984), GCA 48, 723-751, appendix (eq. A1-A9), after Pitzer (1973) and Pitzer &
+// Weare (1984), GCA 48, 723-751, appendix, after Pitzer (1973) and Pitzer &
 // Mayorga (1973).
 
 // pitzerB is the constant b = 1.2 kg^0.5 mol^-0.5 of the Debye-Hueckel term (Pitzer 1973).
@@ -84,7 +84,7 @@ func pitzerJ(x float64) (j, jp, jpp float64) {
 
 // pitzerETheta returns the unsymmetrical-mixing terms E-theta and E-theta' for two ions
 // of charge magnitudes zi and zj (same sign) at ionic strength I with osmotic slope
-// aphi (Pitzer 1975; HMW84 eq. A14-A15), and d(E-theta')/dI:
+// aphi (Pitzer 1975; HMW84 appendix), and d(E-theta')/dI:
 //
 //	x_ij = 6 zi zj A_phi sqrt(I)
 //	Etheta  = zi zj / (4 I) [J(x_ij) - J(x_ii)/2 - J(x_jj)/2]
