@@ -20,6 +20,12 @@ import (
 // one computed before the renames (testdata/demo_si_before_renames.csv, see
 // testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
 // the database accepts on input.
+// newTemperatureData are the minerals whose log K(T) was replaced after the
+// baseline was written (heat-capacity data that hold to 100 C; see their entries
+// in speciation/thermo.txt and the brine tests): their SIs moved by design, by up
+// to 0.013 on the demo, and are checked against published solubilities instead.
+var newTemperatureData = map[string]bool{"gypsum": true, "anhydrite": true, "celestine": true, "halite": true}
+
 func TestDemoSIUnchangedByRenames(t *testing.T) {
 	f, err := os.Open("../testdata/demo_si_before_renames.csv")
 	if err != nil {
@@ -68,13 +74,16 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 			t.Errorf("old mineral name %q is not accepted", r[2])
 			continue
 		}
+		if newTemperatureData[m.Name] {
+			continue
+		}
 		got, ok := rec.Result.SI(m.Name)
 		if !ok || math.Abs(got-want) > 1e-9 {
 			t.Errorf("%s %s (now %s): SI %v, before the renames %v", r[1], r[2], m.Name, got, want)
 		}
 		checked++
 	}
-	if checked < 1500 {
+	if checked < 1100 {
 		t.Errorf("only %d values compared", checked)
 	}
 }

@@ -109,10 +109,11 @@ type Species struct {
 	Alkalinity float64
 	// redox attributes the electrons of the formation reaction to the component whose
 	// oxidation state they change (e.g. -1 on Fe2+ for Fe3+ and its complexes).
-	redox    []Term
-	Reaction string
-	TempNote string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
-	Line     int
+	redox      []Term
+	Reaction   string
+	TempNote   string     // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	ValidTempC [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
+	Line       int
 }
 
 // Mineral is a solid or a gas written as its dissolution into components.
@@ -130,6 +131,7 @@ type Mineral struct {
 	Confidence    string
 	Reaction      string
 	TempNote      string
+	ValidTempC    [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
 	Line          int
 }
 
@@ -385,6 +387,9 @@ func ParseDatabase(text string) (*Database, error) {
 			}
 			s.Reaction = e.fields["reaction"]
 			s.Source, s.Confidence = e.fields["source"], e.fields["confidence"]
+			if s.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			if err := db.checkCharge(e, terms, s.Charge); err != nil {
 				return nil, err
 			}
@@ -400,6 +405,9 @@ func ParseDatabase(text string) (*Database, error) {
 			m.Reaction = e.fields["reaction"]
 			m.Formula = e.fields["formula"]
 			m.Source, m.Confidence = e.fields["source"], e.fields["confidence"]
+			if m.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			m.DensitySource = e.fields["density_source"]
 			if m.MolarMass, err = e.number("mass", false); err != nil {
 				return nil, err
@@ -462,6 +470,30 @@ func (e *rawEntry) number(key string, required bool) (float64, error) {
 		return 0, e.errf(key, "%w: %s = %q is not a number", ErrSyntax, key, v)
 	}
 	return x, nil
+}
+
+// tempRange reads the optional valid_temp_c = "low high" (C, low < high).
+func (e *rawEntry) tempRange() ([2]float64, error) {
+	var r [2]float64
+	v, ok := e.fields["valid_temp_c"]
+	if !ok {
+		return r, nil
+	}
+	f := strings.Fields(v)
+	if len(f) != 2 {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c needs two numbers, low and high", ErrSyntax)
+	}
+	for i, p := range f {
+		x, err := strconv.ParseFloat(p, 64)
+		if err != nil || !finite(x) {
+			return r, e.errf("valid_temp_c", "%w: %q is not a number", ErrSyntax, p)
+		}
+		r[i] = x
+	}
+	if r[0] >= r[1] {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c low %g is not below high %g", ErrInvalidParameter, r[0], r[1])
+	}
+	return r, nil
 }
 
 func (e *rawEntry) ionParams(s *Species) error {

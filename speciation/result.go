@@ -1,6 +1,9 @@
 package speciation
 
-import "errors"
+import (
+	"errors"
+	"math"
+)
 
 // Errors of a solve. A *SolveError wraps one of these.
 var (
@@ -217,4 +220,24 @@ func (r *Result) PhaseAmountOf(name string) (float64, bool) {
 		}
 	}
 	return 0, false
+}
+
+// finite reports whether every number of the result is finite.
+func (r *Result) finite() bool {
+	ok := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+	if !ok(r.IonicStrength) || !ok(r.PH) || !ok(r.ChargeBalance) || !ok(r.WaterActivity) || r.HasLogPCO2 && !ok(r.LogPCO2) {
+		return false
+	}
+	for i := range r.Species {
+		sp := &r.Species[i]
+		if !ok(sp.Molality) || !ok(sp.Gamma) || !ok(sp.LogGamma) || !ok(sp.LogActivity) {
+			return false
+		}
+	}
+	for i := range r.Minerals {
+		if !ok(r.Minerals[i].SI) || !ok(r.Minerals[i].LogIAP) {
+			return false
+		}
+	}
+	return true
 }

@@ -246,6 +246,13 @@ func (s *Solver) SolveInto(res *Result, w *Water) error {
 		return err
 	}
 	s.fill(res, w)
+	if !res.finite() {
+		// A water far beyond any activity model (hundreds of mol/kg) can
+		// converge with coefficients that overflow: refuse it rather than
+		// hand on an infinity.
+		clearResult(res)
+		return &SolveError{Err: ErrNoConvergence, Reason: "activity coefficients overflow: the water is far beyond the activity model's range"}
+	}
 	return nil
 }
 
