@@ -10,6 +10,14 @@ import (
 	"gwsat.dev/gwsat/speciation"
 )
 
+// AutoModelSwitch is the ionic strength (mol/kgw) above which the automatic model
+// choice solves a row with Pitzer's equations instead of Truesdell-Jones: at 0.5
+// mol/kg the extended Debye-Hueckel forms begin to depart from measured mean
+// activity coefficients (Davies is 7.7 % low for NaCl there; Robinson & Stokes
+// 1959 tables), while over random waters the sulfate SIs of the two models still
+// agree within 0.1 up to I = 1 (measured in the brine tests of package speciation).
+const AutoModelSwitch = 0.5
+
 // DefaultTempC is the temperature assumed for a sample reported without one
 // (25 C, the reference temperature of the data; common practice). The row
 // gets a warning when it is used.
@@ -26,7 +34,9 @@ const (
 
 // Options control Run.
 type Options struct {
-	// Model is the activity model (default Truesdell-Jones).
+	// Model is the activity model; nil chooses per row by ionic strength (see
+	// AutoModelSwitch): Truesdell-Jones for fresh and brackish water, Pitzer for
+	// brines. The model used is recorded in every result.
 	Model speciation.ActivityModel
 	// BalanceOn names a component (e.g. "Cl-", "Na+") whose total is
 	// adjusted so that the speciated water is electrically neutral; "" for
@@ -137,7 +147,7 @@ func (r *Record) Add(is hydro.Issue) {
 	r.Issues = append(r.Issues, is)
 }
 
-func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt Options) {
+func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water, opt Options) {
 	r.Status = r.Row.Status
 	r.Issues = append(r.Issues[:0], r.Row.Issues...)
 	s := &r.Row.Sample
@@ -191,6 +201,15 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		sw.ChargeBalanceIon = opt.BalanceOn
 	}
 	res, err := solver.Solve(sw)
+	if err == nil && brine != nil && res.IonicStrength > AutoModelSwitch {
+		// A brine: solve again with Pitzer's equations. The choice depends on
+		// this row alone, so it never changes between two runs.
+		if bres, berr := brine.Solve(sw); berr == nil {
+			res = bres
+		} else {
+			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw is a brine, but the Pitzer solve failed (%v): the Truesdell-Jones result is kept, beyond its range", res.IonicStrength, berr)
+		}
+	}
 	if err != nil {
 		var se *speciation.SolveError
 		reason := err.Error()
@@ -211,7 +230,11 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	}
 	for _, wmsg := range res.Warnings {
 		if wmsg == speciation.WarnIonicStrength {
-			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
+			m := solver.Model()
+			if brine != nil && res.Model == brine.Model().Name() {
+				m = brine.Model()
+			}
+			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, m.Name(), m.MaxIonicStrength())
 			continue
 		}
 		if wmsg == speciation.WarnNoEnthalpy {

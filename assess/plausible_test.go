@@ -87,3 +87,20 @@ func TestBeyondNaturalWaterRejected(t *testing.T) {
 		t.Errorf("a plausible brine rejected: %v", recs[2].Reasons())
 	}
 }
+
+// The automatic model choice: a fresh water is solved with Truesdell-Jones, a
+// brine (ionic strength above AutoModelSwitch) with Pitzer's equations, and the
+// model is recorded on the row.
+func TestAutoModelByIonicStrength(t *testing.T) {
+	head := "Sample,pH,Temp,Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3)\n"
+	recs := assessCSV(t, head+"fresh,7.2,15,60,12,20,2,30,40,180\nbrine,6.8,40,9000,1500,60000,900,115000,300,150\n")
+	if recs[0].Result == nil || recs[0].Result.Model != "truesdell-jones" {
+		t.Fatalf("fresh water: %+v", recs[0].Reasons())
+	}
+	if recs[1].Result == nil || recs[1].Result.Model != "pitzer" || recs[1].Result.IonicStrength <= AutoModelSwitch {
+		t.Fatalf("brine: model %v, reasons %v", recs[1].Result, recs[1].Reasons())
+	}
+	if hasCode(&recs[1], CodeIonicStrength) {
+		t.Errorf("a brine within Pitzer's range warned: %v", recs[1].Reasons())
+	}
+}

@@ -22,7 +22,8 @@ type Item struct {
 // next or emit stops the stream and is returned (emit is never called again).
 // Records handed to emit are valid only during the call.
 func Stream(ctx context.Context, db *speciation.Database, next func() (Item, bool, error), opt Options, emit func(*Record) error) error {
-	if opt.Model == nil {
+	auto := opt.Model == nil
+	if auto {
 		opt.Model = speciation.TruesdellJones{}
 	}
 	workers := opt.Workers
@@ -56,9 +57,14 @@ func Stream(ctx context.Context, db *speciation.Database, next func() (Item, boo
 			// depend on the rows a worker happened to solve before it: the same
 			// file gives the same bytes with any number of workers or shards.
 			solver.WarmStart = false
+			var brine *speciation.Solver
+			if auto {
+				brine = speciation.NewSolver(db, speciation.NewPitzer())
+				brine.WarmStart = false
+			}
 			var sw speciation.Water
 			for s := range work {
-				assessOne(&s.rec, solver, &sw, opt)
+				assessOne(&s.rec, solver, brine, &sw, opt)
 				s.done <- struct{}{}
 			}
 		}()

@@ -44,7 +44,7 @@ func (f *inputFlags) register(fs *pflag.FlagSet) {
 	fs.StringVar(&f.nondetect, "nondetect", "half", "value used for a non-detect: half (half the detection limit), dl (the limit) or zero")
 	fs.StringVar(&f.columnMap, "column-map", "", "CSV file mapping headers to parameters (two columns: header,parameter)")
 	fs.IntVar(&f.epsg, "epsg", 0, "EPSG code of easting/northing columns when the file has none (e.g. 32633)")
-	fs.StringVar(&f.model, "model", "truesdell-jones", "activity model: "+strings.Join(speciation.ModelNames(), ", "))
+	fs.StringVar(&f.model, "model", "auto", "activity model: auto (Truesdell-Jones, Pitzer for brines above ionic strength 0.5 mol/kg), "+strings.Join(speciation.ModelNames(), ", "))
 	fs.StringVar(&f.closeWith, "close-balance-with", "", "adjust this ion (e.g. Cl or Na) so the speciated water is electrically neutral")
 	fs.BoolVar(&f.unitsOK, "units-confirmed", false, "analytes without a unit anywhere are in mg/L, and values outside their usual range are in the unit stated: no warning for either")
 	fs.StringVar(&f.dateOrder, "date-order", "auto", "order of day and month in slash dates: auto (decided per column from the values), day-first or month-first")
@@ -189,9 +189,12 @@ func limitList(l []string, n int) []string {
 
 // activityModel returns the model named by --model.
 func (f *inputFlags) activityModel() (speciation.ActivityModel, error) {
+	if strings.EqualFold(strings.TrimSpace(f.model), "auto") {
+		return nil, nil // assess chooses per row
+	}
 	m, ok := speciation.ModelByName(f.model)
 	if !ok {
-		return nil, fmt.Errorf("--model: unknown activity model %q (choose from %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
+		return nil, fmt.Errorf("--model: unknown activity model %q (choose from auto, %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
 	}
 	return m, nil
 }
