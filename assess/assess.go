@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/speciation"
@@ -241,6 +242,18 @@ func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water
 			continue // a property of the data set, stated in the README, not of the sample
 		}
 		r.Note(hydro.Info, CodeSolverNote, "%s", wmsg)
+	}
+	var outside []string
+	for _, m := range res.Minerals {
+		if m.OutsideTempRange {
+			outside = append(outside, m.Name)
+		}
+	}
+	if len(outside) > 0 {
+		r.Note(hydro.Info, CodeTempRange, "at %.1f C, outside the temperature range of their data: %s (those SIs are extrapolated)", res.TempC, strings.Join(outside, ", "))
+	}
+	if res.RedoxSkipped {
+		r.Note(hydro.Info, CodeNoRedox, "%s", speciation.NoteNoRedox)
 	}
 	_, hasTIC := w.Molal[speciation.NameCarbonate]
 	switch {

@@ -19,5 +19,7 @@ const (
 	CodeNoCarbonate       hydro.Code = "no-carbonate"       // carbonate minerals not computed
 	CodeSpeciatedBalance  hydro.Code = "speciated-balance"  // charge balance after speciation beyond 10 %
 	CodeIndicesRange      hydro.Code = "indices-range"      // Langelier/Ryznar outside their range
+	CodeTempRange         hydro.Code = "outside-data-range" // SIs computed outside their data's temperature range
+	CodeNoRedox           hydro.Code = "no-redox"           // no pe: oxide and sulfide SIs not computed
 	CodePosition          hydro.Code = "position-unusable"  // coordinates reported but not usable
 )

@@ -128,7 +128,9 @@ func (s *Solver) fill(res *Result, w *Water) {
 			}
 			continue
 		}
-		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk})
+		vr := mn.ValidTempC
+		outside := vr != [2]float64{} && (w.TempC < vr[0] || w.TempC > vr[1])
+		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk, OutsideTempRange: outside})
 	}
 	res.Minerals = minerals
 	for k, pi := range s.eqPhase {
@@ -154,7 +156,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 			}
 		}
 		for i := range res.Minerals {
-			if db.Mineral(res.Minerals[i].Name).TempNote == tempConstant {
+			if pi := db.MineralIndex(res.Minerals[i].Name); pi >= 0 && db.minerals[pi].TempNote == tempConstant {
 				constK = true
 				break
 			}

@@ -50,6 +50,9 @@ type MineralSI struct {
 	SI     float64
 	LogIAP float64
 	LogK   float64
+	// OutsideTempRange is set when the temperature lies outside the range over
+	// which the mineral's log K function holds (Mineral.ValidTempC).
+	OutsideTempRange bool
 }
 
 // PhaseAmount is the amount of a mineral dissolved (> 0) or precipitated (< 0) to
