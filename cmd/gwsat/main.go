@@ -141,7 +141,7 @@ func newRoot(e *env) *cobra.Command {
 		Args: cobra.ArbitraryArgs,
 	}
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return usageErr(err) })
-	root.AddCommand(checkCmd(e), inspectCmd(e), reportCmd(e), injectCmd(e), versionCmd(e))
+	root.AddCommand(checkCmd(e), inspectCmd(e), reportCmd(e), injectCmd(e), findingsCmd(e), versionCmd(e))
 	return root
 }
 
