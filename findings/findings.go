@@ -23,8 +23,8 @@ type Options struct {
 
 // Group states of a Row.
 const (
-	StateSupersaturated = "supersaturated"  // at least one sample supersaturated with confidence
-	StateUndersaturated = "undersaturated"  // every sample undersaturated with confidence
+	StateSupersaturated = "supersaturated" // at least one sample supersaturated with confidence
+	StateUndersaturated = "undersaturated" // every sample undersaturated with confidence
 	StateUndecided      = "near equilibrium or undecided"
 )
 
