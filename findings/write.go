@@ -63,7 +63,7 @@ func mineralSentence(rows []*Row) string {
 		if r.MaxSI > top.MaxSI {
 			top = r
 		}
-		parts = append(parts, fmt.Sprintf("%s (%d of %d samples, median SI %s)", r.where(), r.Super, r.Samples, num(r.MedianSI, 2)))
+		parts = append(parts, fmt.Sprintf("%s (%d of %d %s, median SI %s)", r.where(), r.Super, r.Samples, plural(r.Samples, "sample", "samples"), num(r.MedianSI, 2)))
 		if !trends[r.Trend] {
 			trends[r.Trend] = true
 			trendList = append(trendList, r.Trend)
