@@ -44,6 +44,6 @@ func Example() {
 	fmt.Println(len(f.Table().Rows), "rows in findings.csv: one per mineral and group")
 	// Output:
 	// [baryte]
-	// Baryte: supersaturated with confidence since round 1 in cluster A at 108 m depth (1 of 1 sample, median SI 1.12); highest SI 1.12 at D, round 1. SI trend: too few events for a trend test (at most 1 per well; 4 needed).
+	// Baryte: supersaturated with confidence since round 1 in cluster A at 108 m depth (1 of 1 sample; median SI 1.12); highest SI 1.12 at D, round 1. SI trend: too few events for a trend test (at most 1 per well; 4 needed).
 	// 18 rows in findings.csv: one per mineral and group
 }

@@ -26,7 +26,7 @@ var TrendAnalytes = []string{"Ca", "Mg", "Na", "K", "Cl", "SO4", "Alk", "Ba", "S
 const (
 	TrendTested   = "tested"
 	TrendTooFew   = "too few events"
-	TrendNoTime   = "no dates or rounds"
+	TrendNoTime   = "no dates or sampling rounds"
 	TrendConstant = "no distinct times"
 )
 

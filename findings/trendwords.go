@@ -34,7 +34,7 @@ func trendSummary(mineral string, wells []string, trends []Trend) string {
 	case tested == 0 && tooFew > 0:
 		return "too few events for a trend test (at most " + itoa(most) + " per well; " + itoa(MinEvents) + " needed)"
 	case tested == 0:
-		return "no time series"
+		return "no dates or sampling rounds to test"
 	}
 	s := ""
 	if len(rising) > 0 {

@@ -17,23 +17,33 @@ import (
 // is reported in one line apart.
 var SlowMinerals = []string{"quartz", "dolomite", "magnesite"}
 
-// where words a row's place: "cluster A at 108-128 m depth", or its wells
-// (and sample type) when the samples have no cluster.
+// where words a row's place: "cluster A at 108-128 m depth"; without a
+// cluster, the depth zone, or else the wells (with their sample type when
+// they share one: "injectate well IW-1").
 func (r *Row) where() string {
-	if r.Cluster != "" {
-		if r.Zone == NoDepthZone {
-			return "cluster " + r.Cluster
-		}
+	switch {
+	case r.Cluster != "" && r.Zone == NoDepthZone:
+		return "cluster " + r.Cluster
+	case r.Cluster != "":
 		return "cluster " + r.Cluster + " at " + r.Zone
+	case r.Zone != NoDepthZone:
+		return "the " + r.Zone + " zone"
 	}
 	w := plural(len(r.Wells), "well ", "wells ") + short(r.Wells)
 	if len(r.Types) == 1 {
 		w = r.Types[0] + " " + w
 	}
-	if r.Zone == NoDepthZone {
-		return w
+	return w
+}
+
+// counts words how many of a row's samples are supersaturated with
+// confidence, and at which wells when the place does not already say so.
+func (r *Row) counts() string {
+	s := fmt.Sprintf("%d of %d %s", r.Super, r.Samples, plural(r.Samples, "sample", "samples"))
+	if len(r.Wells) > 1 {
+		s += " at " + short(r.SuperWells)
 	}
-	return w + " at " + r.Zone
+	return s
 }
 
 // Sentence words a row whose mineral is supersaturated with confidence
@@ -42,7 +52,7 @@ func (r *Row) Sentence() string {
 	if r.State != StateSupersaturated {
 		return ""
 	}
-	s := fmt.Sprintf("%s: supersaturated with confidence in %s in %d of %d %s", capital(r.Mineral), r.where(), r.Super, r.Samples, plural(r.Samples, "sample", "samples"))
+	s := fmt.Sprintf("%s: supersaturated with confidence in %s, %s", capital(r.Mineral), r.where(), r.counts())
 	if r.First != "" {
 		s += ", first in " + r.First
 	}
@@ -63,7 +73,7 @@ func mineralSentence(rows []*Row) string {
 		if r.MaxSI > top.MaxSI {
 			top = r
 		}
-		parts = append(parts, fmt.Sprintf("%s (%d of %d %s, median SI %s)", r.where(), r.Super, r.Samples, plural(r.Samples, "sample", "samples"), num(r.MedianSI, 2)))
+		parts = append(parts, fmt.Sprintf("%s (%s; median SI %s)", r.where(), r.counts(), num(r.MedianSI, 2)))
 		if !trends[r.Trend] {
 			trends[r.Trend] = true
 			trendList = append(trendList, r.Trend)

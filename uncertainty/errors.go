@@ -10,5 +10,5 @@ var (
 	ErrNoResult = errors.New("uncertainty: sample not speciated")
 	// ErrDraws reports a Monte Carlo estimate in which too many draws failed
 	// to solve, or a linear estimate whose shifted solve failed.
-	ErrDraws = errors.New("uncertainty: solves of the varied inputs failed")
+	ErrDraws = errors.New("uncertainty: the water with varied inputs could not be speciated")
 )

@@ -190,7 +190,7 @@ func (e *Estimator) MonteCarlo(c *Case, stream uint64) (Result, error) {
 	}
 	r.Draws = good
 	if good < 2 || float64(r.Failed) > MaxFailedShare*float64(nd) {
-		return r, fmt.Errorf("%w: %d of %d draws did not solve", ErrDraws, r.Failed, nd)
+		return r, fmt.Errorf("%w: %d of %d draws failed (more than %.0f %%)", ErrDraws, r.Failed, nd, 100*MaxFailedShare)
 	}
 	open := e.openBottom(c, minerals)
 	lo, hi := (1-e.opt.Coverage)/2, (1+e.opt.Coverage)/2

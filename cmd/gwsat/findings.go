@@ -178,7 +178,8 @@ func runFindings(e *env, in *inputFlags, ff *findingsFlags, args []string) error
 		if errors.Is(samples[i].Err, uncertainty.ErrDraws) {
 			nFailed++
 			if !ff.quiet {
-				e.printLines([]string{fmt.Sprintf("%s line %d (%s): %v", recs[i].File, recs[i].Row.Line, recs[i].Sample().ID, samples[i].Err)})
+				msg := strings.TrimPrefix(samples[i].Err.Error(), "uncertainty: ")
+				e.printLines([]string{fmt.Sprintf("%s line %d (%s): no SI intervals: %s", recs[i].File, recs[i].Row.Line, recs[i].Sample().ID, msg)})
 			}
 		}
 	}
