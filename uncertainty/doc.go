@@ -36,9 +36,10 @@
 // (Options.Dist Normal) or uniform ones of the same standard deviation
 // (Uniform: half-width SD x sqrt 3); concentrations are kept above 1e-3 of
 // their value and temperatures within the solver's 0-100 C. Draws use
-// math/rand/v2's PCG seeded with (Options.Seed, the record's position), so
-// a result depends on the seed and the data only, not on the number of
-// workers; the seed is reported with every result.
+// math/rand/v2's PCG seeded with (Options.Seed, Options.FirstStream + the
+// record's position), so a result depends on the seed and the data only,
+// not on the number of workers; seed and stream are reported with every
+// result.
 //
 // Estimator.Linear is the fast estimate: the sensitivity of each SI to each
 // input by central finite differences (pH step 0.01, temperature 0.1 C,
@@ -47,9 +48,10 @@
 // normal quantile of the coverage (1.96). A non-detect adds, at the top, the
 // rise of the SI from the substituted value to the limit itself, and opens
 // the bottom. The linear estimate needs two solves per input instead of a
-// thousand; it is exact for SIs linear in their inputs (an SI is linear in
-// pH and in the logarithm of each concentration) and a test checks it
-// against Monte Carlo.
+// thousand. It agrees with Monte Carlo when the SI is close to linear in
+// its inputs over their spread (an SI is nearly linear in pH and in the
+// logarithm of each concentration, and 5 % is a small step in the
+// logarithm); tests compare the two.
 //
 // # Verdict
 //

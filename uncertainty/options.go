@@ -92,8 +92,12 @@ type Options struct {
 	Coverage              float64
 	Band                  float64
 	Workers               int // goroutines of Run (default GOMAXPROCS)
-	Linear                bool
-	Progress              func() // called after each record by Run, from one goroutine at a time
+	// FirstStream is the PCG stream of Run's first record; record i gets
+	// FirstStream + i (a caller running a long file in chunks passes the
+	// chunk's first row number, so each row keeps its own stream).
+	FirstStream uint64
+	Linear      bool
+	Progress    func() // called after each record by Run, from one goroutine at a time
 }
 
 // ParseRelSD reads per-analyte relative uncertainties written as

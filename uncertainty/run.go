@@ -19,7 +19,7 @@ type Sample struct {
 
 // Run estimates the intervals of every record, in order, on Options.Workers
 // goroutines (each with its own Estimator), with the Monte Carlo draws of
-// record i seeded (Options.Seed, i); with Options.Linear, the linear
+// record i seeded (Options.Seed, Options.FirstStream + i); with Options.Linear, the linear
 // estimate. The error is for bad options or a cancelled context only: a
 // record that cannot be estimated carries its own Err.
 func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt Options) ([]Sample, error) {
@@ -41,7 +41,7 @@ func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt
 			defer wg.Done()
 			est, _ := NewEstimator(db, o) // o is resolved: no error
 			for i := range jobs {
-				out[i] = est.record(&recs[i], uint64(i))
+				out[i] = est.record(&recs[i], o.FirstStream+uint64(i))
 				if o.Progress != nil {
 					mu.Lock()
 					o.Progress()

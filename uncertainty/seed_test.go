@@ -66,3 +66,25 @@ func TestOptions(t *testing.T) {
 		}
 	}
 }
+
+// A file estimated in chunks gives each row the numbers it gets in one run
+// when each chunk passes its first row number as FirstStream.
+func TestFirstStreamChunks(t *testing.T) {
+	db, recs := assessCSV(t, seedCSV)
+	whole, err := Run(t.Context(), db, recs, Options{Draws: 100, Seed: 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tail, err := Run(t.Context(), db, recs[1:], Options{Draws: 100, Seed: 5, FirstStream: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range tail {
+		a, b := whole[i+1].Intervals, tail[i].Intervals
+		for k := range a {
+			if a[k].Low != b[k].Low || a[k].High != b[k].High {
+				t.Errorf("%s %s: %v..%v whole, %v..%v in a chunk", recs[i+1].Sample().ID, a[k].Mineral, a[k].Low, a[k].High, b[k].Low, b[k].High)
+			}
+		}
+	}
+}
