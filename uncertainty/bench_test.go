@@ -83,3 +83,31 @@ func reportPer1000(b *testing.B, start time.Time, cpu0 float64, n int) {
 	b.ReportMetric(time.Since(start).Seconds()*per, "s/1000samples")
 	b.ReportMetric((cpuSeconds()-cpu0)*per, "cpu-s/1000samples")
 }
+
+// BenchmarkMonteCarloOneSample is 1000 draws for one demo sample (the deep
+// native water) on one goroutine, with its allocations: a few per sample
+// (the copy of the water, the intervals), none per draw.
+func BenchmarkMonteCarloOneSample(b *testing.B) {
+	db, recs := demoRecords(b)
+	var rec *assess.Record
+	for i := range recs {
+		if recs[i].Sample().ID == "NATIVE-D-R1" {
+			rec = &recs[i]
+		}
+	}
+	c, err := CaseOf(rec, Options{})
+	if err != nil {
+		b.Fatal(err)
+	}
+	e, err := NewEstimator(db, Options{Draws: 1000, Seed: 1})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := e.MonteCarlo(&c, uint64(i)); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
