@@ -67,8 +67,8 @@ const (
 )
 
 // StiffFigures builds Stiff diagrams of the latest event of every well (one
-// panel per well, rejected rows left out) as report figures, split over
-// pages of figure.StiffPerPage panels on one scale. Wells come in order of
+// panel per well, rejected rows left out) as report figures, split evenly
+// over pages of at most figure.StiffPerPage panels, on one scale. Wells come in order of
 // first appearance. It returns nil when no well has a classifiable water.
 func StiffFigures(recs []assess.Record) []report.Fig {
 	usable := func(r *assess.Record) bool {
@@ -86,10 +86,12 @@ func StiffFigures(recs []assess.Record) []report.Fig {
 	}
 	g := figure.StiffGrid{
 		Title:   "Water types: Stiff diagrams, latest sample of each well",
-		Caption: "Major ions in meq/L as reported (alkalinity drawn as HCO3 + CO3); one scale for all panels.",
+		Caption: "Major ions as reported; the alkalinity is drawn as HCO3 + CO3.",
 		Waters:  waters,
 	}
-	pages := g.Pages(0)
+	// balanced pages: 34 wells make two pages of 17, not 30 and 4
+	n := (len(waters) + figure.StiffPerPage - 1) / figure.StiffPerPage
+	pages := g.Pages((len(waters) + n - 1) / n)
 	figs := make([]report.Fig, len(pages))
 	for i, p := range pages {
 		stem := "stiff"

@@ -4,10 +4,12 @@ import (
 	"bytes"
 	"math"
 	"slices"
+	"strings"
 	"testing"
 
 	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // The demo's end-members have the water types its design states
@@ -99,6 +101,43 @@ func TestStiffFigures(t *testing.T) {
 	}
 	png, err := figure.Render(figs[0].Figure, "png", figs[0].W, figs[0].H)
 	if err != nil || !bytes.HasPrefix(png, []byte("\x89PNG")) {
+		t.Errorf("render: %v", err)
+	}
+}
+
+// One SI-against-time page per mineral, one panel per well with at least
+// two events (the demo's wells have three rounds each; the end-member
+// wells BG-S, BG-I and BG-D have one), the time axis in years (every demo
+// sample is dated), and the page draws.
+func TestSITimeFigures(t *testing.T) {
+	db, recs := demoRecords(t)
+	samples, err := uncertainty.Run(t.Context(), db, recs, uncertainty.Options{Linear: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	figs := SITimeFigures(recs, samples, Trends(recs, db.MineralNames(), 0), []string{"baryte"}, uncertainty.DefaultBand)
+	// 30 monitoring wells and IW-1 (the injectate, sampled every round):
+	// 31 panels, over two pages of at most SITimePerPage.
+	if len(figs) != 2 {
+		t.Fatalf("%d pages for one mineral and 31 wells", len(figs))
+	}
+	var panels []figure.SITimeSeries
+	for _, f := range figs {
+		panels = append(panels, f.Figure.(figure.SITime).Series...)
+	}
+	for _, s := range panels {
+		if strings.HasPrefix(s.Well, "BG-") {
+			t.Errorf("panel for %s, sampled once", s.Well)
+		}
+		if s.Time[0] < 2025 || s.Time[0] > 2027 {
+			t.Errorf("%s: time %v, want decimal years", s.Well, s.Time[0])
+		}
+	}
+	if len(panels) != 31 {
+		t.Errorf("%d panels, want 31", len(panels))
+	}
+	g := figs[0].Figure.(figure.SITime)
+	if _, err := figure.Render(g, "png", figs[0].W, figs[0].H); err != nil {
 		t.Errorf("render: %v", err)
 	}
 }
