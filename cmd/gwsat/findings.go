@@ -3,12 +3,16 @@ package main
 import (
 	"errors"
 	"fmt"
+	"io"
+	"os"
+	"path/filepath"
 	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/findings"
 	"gwsat.dev/gwsat/internal/progress"
 	"gwsat.dev/gwsat/report"
@@ -23,6 +27,7 @@ type findingsFlags struct {
 	band                    float64
 	dist, relSD             string
 	out, trendsOut, ivOut   string
+	figDir                  string
 	cluster, zones          string
 	phField, phLab, tempSD  float64
 	relDefault, assumedTemp float64
@@ -61,6 +66,7 @@ func findingsCmd(e *env) *cobra.Command {
 	f.StringVarP(&ff.out, "out", "o", "", "write the findings table (CSV, one row per mineral and group) to this file")
 	f.StringVar(&ff.trendsOut, "trends", "", "write the trend tests (CSV, one row per well and quantity) to this file")
 	f.StringVar(&ff.ivOut, "intervals", "", "write every sample's SI intervals (CSV) to this file")
+	f.StringVar(&ff.figDir, "figures", "", "write the Stiff diagrams and the SI-against-time pages (PNG) into this folder")
 	f.BoolVarP(&ff.quiet, "quiet", "q", false, "no notes on standard error")
 	return c
 }
@@ -173,6 +179,12 @@ func runFindings(e *env, in *inputFlags, ff *findingsFlags, args []string) error
 			return failed(fmt.Errorf("writing %s: %w", ff.ivOut, err))
 		}
 	}
+	if ff.figDir != "" {
+		figs := append(findings.StiffFigures(recs), findings.SITimeFigures(recs, samples, trends, findings.DefaultMinerals(ch.db, fd), uopt.Band)...)
+		if err := writeFigures(e, ff.figDir, figs); err != nil {
+			return failed(err)
+		}
+	}
 	nFailed := 0
 	for i := range samples {
 		if errors.Is(samples[i].Err, uncertainty.ErrDraws) {
@@ -206,4 +218,22 @@ func intervalTable(recs []assess.Record, samples []uncertainty.Sample, minerals 
 		t.Add(append(row, uncertainty.Cells(sm, minerals)...)...)
 	}
 	return t
+}
+
+// writeFigures renders figures as PNG files into dir (created).
+func writeFigures(e *env, dir string, figs []report.Fig) error {
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return fmt.Errorf("--figures: %w", err)
+	}
+	for _, f := range figs {
+		png, err := figure.Render(f.Figure, "png", f.W, f.H)
+		if err != nil {
+			return fmt.Errorf("drawing %s: %w", f.Stem, err)
+		}
+		path := filepath.Join(dir, f.Stem+".png")
+		if err := e.writeFile(path, func(w io.Writer) error { _, err := w.Write(png); return err }); err != nil {
+			return fmt.Errorf("writing %s: %w", path, err)
+		}
+	}
+	return nil
 }
