@@ -101,7 +101,7 @@ func SITimeFigures(recs []assess.Record, samples []uncertainty.Sample, trends []
 				Mineral:   m,
 				TimeLabel: label,
 				Series:    page,
-				Band:      band,
+				Band:      figureBand(band),
 			}
 			figs = append(figs, report.Fig{Stem: stem, Title: title, Caption: g.Caption, Figure: g, W: StiffPageW, H: StiffPageH})
 		}
@@ -122,4 +122,13 @@ func eventsAt(times []float64) []event {
 func stemOf(m string) string {
 	s := report.ColumnName(m)
 	return s[:len(s)-len("_si")]
+}
+
+// figureBand is the band as package figure takes it (0 there means its
+// own default, negative none).
+func figureBand(band float64) float64 {
+	if band <= 0 {
+		return -1
+	}
+	return band
 }

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // SlowMinerals are minerals that groundwater is often supersaturated with
@@ -102,12 +103,15 @@ func capital(s string) string {
 // the caution.
 func (f *Findings) Lines() []string {
 	var out []string
-	how := "linear estimate"
-	if f.Method == "monte-carlo" {
+	how := "no estimate"
+	switch f.Method {
+	case uncertainty.MethodMonteCarlo:
 		how = fmt.Sprintf("Monte Carlo, %d draws, seed %d", f.Draws, f.Seed)
+	case uncertainty.MethodLinear:
+		how = "linear estimate"
 	}
-	out = append(out, fmt.Sprintf("Findings for %d %s (%d with saturation intervals; %s). A mineral counts as supersaturated (or undersaturated) with confidence where the whole interval of its SI lies above %s (or below -%s).",
-		f.Samples, plural(f.Samples, "sample", "samples"), f.WithIntervals, how, num(f.Band, 2), num(f.Band, 2)))
+	out = append(out, fmt.Sprintf("Findings for %d %s (%d with saturation intervals; %s). A mineral counts as supersaturated (or undersaturated) with confidence where the whole interval of its SI lies above %s (or below %s).",
+		f.Samples, plural(f.Samples, "sample", "samples"), f.WithIntervals, how, num(f.Band, 2), num(-f.Band, 2)))
 	var slow []string
 	for _, m := range f.Supersaturated {
 		var rows []*Row

@@ -157,7 +157,7 @@ func runFindings(e *env, in *inputFlags, ff *findingsFlags, args []string) error
 	}
 	minerals := ch.db.MineralNames()
 	trends := findings.Trends(recs, minerals, 0)
-	fd, err := findings.Build(recs, samples, trends, uopt.Band, findings.Options{ClusterColumn: ff.cluster, ZoneEdgesM: edges})
+	fd, err := findings.Build(recs, samples, trends, ff.band, findings.Options{ClusterColumn: ff.cluster, ZoneEdgesM: edges})
 	if err != nil {
 		return failed(err)
 	}
@@ -180,7 +180,7 @@ func runFindings(e *env, in *inputFlags, ff *findingsFlags, args []string) error
 		}
 	}
 	if ff.figDir != "" {
-		figs := append(findings.StiffFigures(recs), findings.SITimeFigures(recs, samples, trends, findings.DefaultMinerals(ch.db, fd), uopt.Band)...)
+		figs := append(findings.StiffFigures(recs), findings.SITimeFigures(recs, samples, trends, findings.DefaultMinerals(ch.db, fd), ff.band)...)
 		if err := writeFigures(e, ff.figDir, figs); err != nil {
 			return failed(err)
 		}
