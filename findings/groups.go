@@ -95,7 +95,10 @@ func (g group) less(h group) bool {
 		}
 		return naturalLess(g.cluster, h.cluster)
 	}
-	return g.zoneRank < h.zoneRank
+	if g.zoneRank != h.zoneRank {
+		return g.zoneRank < h.zoneRank
+	}
+	return g.zone < h.zone
 }
 
 // groupsOf assigns every record to a group.
