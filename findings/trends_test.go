@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"gwsat.dev/gwsat/trend"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // trendCSV is an invented well W1 sampled once a year for six years with
@@ -99,4 +100,36 @@ func TestTrendsByRound(t *testing.T) {
 		return
 	}
 	t.Fatal("no Ca trend")
+}
+
+// A saturation index rising significantly is named in the findings text,
+// with whether it is still below saturation or already above it.
+func TestRisingSINamed(t *testing.T) {
+	db, recs := assessText(t, trendCSV())
+	samples, err := uncertainty.Run(t.Context(), db, recs, uncertainty.Options{Linear: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	trends := Trends(recs, db.MineralNames(), 0)
+	f, err := Build(recs, samples, trends, uncertainty.DefaultBand, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var tr *Trend
+	for i := range f.Rising {
+		if f.Rising[i].Well == "W1" && f.Rising[i].Mineral == "calcite" {
+			tr = &f.Rising[i]
+		}
+	}
+	if tr == nil {
+		t.Fatalf("calcite at W1 not among the rising SIs: %+v", f.Rising)
+	}
+	want := "approaching saturation"
+	if tr.Latest >= 0 {
+		want = "increasingly supersaturated"
+	}
+	text := strings.Join(f.Lines(), "\n")
+	if !strings.Contains(text, "calcite at W1 (latest SI "+num(tr.Latest, 2)+", "+want) {
+		t.Errorf("text does not name calcite at W1 as %s:\n%s", want, text)
+	}
 }
