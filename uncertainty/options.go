@@ -82,22 +82,39 @@ type Options struct {
 	Model     speciation.ActivityModel
 	BalanceOn string
 
-	PHFieldSD, PHLabSD    float64 // pH units
-	TempSD, AssumedTempSD float64 // C
-	RelSD                 float64 // fraction of each concentration and of the alkalinity
+	// Standard uncertainties (one standard deviation) of a field and a
+	// laboratory pH, of a reported temperature and of the 25 C assumed
+	// when none was reported (C), and the relative one of each
+	// concentration and of the alkalinity (a fraction: 0.05 is 5 %), with
+	// per-analyte overrides keyed by hydro analyte keys ("Ba", "Alk"; an
+	// alkalinity computed from HCO3 and CO3 takes "HCO3", else "Alk").
+	PHFieldSD, PHLabSD    float64
+	TempSD, AssumedTempSD float64
+	RelSD                 float64
 	RelSDByAnalyte        map[string]float64
-	Dist                  Dist
-	Draws                 int
-	Seed                  uint64
-	Coverage              float64
-	Band                  float64
-	Workers               int // goroutines of Run (default GOMAXPROCS)
+	// Dist is the distribution of the Monte Carlo draws (non-detects are
+	// always uniform from zero to the limit).
+	Dist Dist
+	// Draws is the number of Monte Carlo draws per sample (DefaultDraws);
+	// Seed seeds them.
+	Draws int
+	Seed  uint64
+	// Coverage is the probability the interval covers (DefaultCoverage).
+	Coverage float64
+	// Band is the half-width around SI = 0 that an interval must clear for
+	// a verdict other than indeterminate (DefaultBand; negative: none).
+	Band float64
+	// Workers is the number of goroutines of Run (default GOMAXPROCS).
+	Workers int
 	// FirstStream is the PCG stream of Run's first record; record i gets
 	// FirstStream + i (a caller running a long file in chunks passes the
 	// chunk's first row number, so each row keeps its own stream).
 	FirstStream uint64
-	Linear      bool
-	Progress    func() // called after each record by Run, from one goroutine at a time
+	// Linear makes Run use the linear estimate instead of Monte Carlo.
+	Linear bool
+	// Progress, when not nil, is called by Run after each record, from one
+	// goroutine at a time.
+	Progress func()
 }
 
 // ParseRelSD reads per-analyte relative uncertainties written as
