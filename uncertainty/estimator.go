@@ -71,9 +71,14 @@ const (
 
 // best solves the case as measured and returns its minerals (copied).
 func (e *Estimator) best(c *Case) ([]speciation.MineralSI, error) {
-	e.w.Reset()
 	e.w = c.Water.Clone()
-	if err := e.solver.SolveInto(&e.res, &e.w); err != nil {
+	// A cold start: the warm start would begin from whatever case this
+	// estimator solved before, and the numbers of a case must not depend on
+	// which worker got it (they would differ within the solver's 1e-10).
+	e.solver.WarmStart = false
+	err := e.solver.SolveInto(&e.res, &e.w)
+	e.solver.WarmStart = true
+	if err != nil {
 		return nil, fmt.Errorf("%w: the water as measured: %w", ErrDraws, err)
 	}
 	return slices.Clone(e.res.Minerals), nil
