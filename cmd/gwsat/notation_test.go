@@ -30,6 +30,8 @@ func TestNoSignThenNumberNotation(t *testing.T) {
 		{"inject", "dose", "--demo"},
 		{"inject", "porefill", "--demo"},
 		{"report", "--demo", "-o", filepath.Join(dir, "rep"), "--formats", "svg"},
+		{"findings", "--demo", "--draws", "50", "-o", filepath.Join(dir, "findings.csv"), "--trends", filepath.Join(dir, "trends.csv"), "--intervals", filepath.Join(dir, "intervals.csv")},
+		{"findings", "--help"},
 		{"version"},
 		{"--help"},
 		{"inject", "--help"},
