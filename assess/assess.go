@@ -48,6 +48,10 @@ type Options struct {
 	// Progress, when not nil, is called after each record is done (from one
 	// goroutine at a time).
 	Progress func()
+	// ORPReference names the reference electrode of ORP readings (e.g.
+	// "Ag/AgCl sat KCl"; see speciation.ParseReferenceElectrode); "" leaves ORP
+	// unused.
+	ORPReference string
 	// Detail keeps every species and the distribution of each component in
 	// the results (for JSON output and the species view). Without it only
 	// the summary quantities are kept (ionic strength, SIs, indices...),
@@ -68,6 +72,9 @@ type Record struct {
 	SolveError string
 	// PHAdjusted is set when a charge-balance adjustment was asked for.
 	Adjusted string
+	// PESource says where the pe came from ("O2/H2O", "Eh", "ORP"...), "" when
+	// the water was solved without one.
+	PESource string
 
 	// Status and Issues are the final verdict: the reader's, the unit
 	// conversion's, the charge balance's, the position check's and the
@@ -201,10 +208,13 @@ func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water
 	if opt.BalanceOn != "" {
 		sw.ChargeBalanceIon = opt.BalanceOn
 	}
-	res, err := solver.Solve(sw)
+	res, err := solveWithRedox(r, solver, sw, tempC, opt)
 	if err == nil && brine != nil && res.IonicStrength > AutoModelSwitch {
 		// A brine: solve again with Pitzer's equations. The choice depends on
 		// this row alone, so it never changes between two runs.
+		if res.HasPE {
+			sw.SetPE(res.PE) // the same pe, whatever reading gave it
+		}
 		if bres, berr := brine.Solve(sw); berr == nil {
 			res = bres
 		} else {

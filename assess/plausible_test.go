@@ -2,6 +2,7 @@ package assess
 
 import (
 	"context"
+	"math"
 	"strings"
 	"testing"
 
@@ -102,5 +103,31 @@ func TestAutoModelByIonicStrength(t *testing.T) {
 	}
 	if hasCode(&recs[1], CodeIonicStrength) {
 		t.Errorf("a brine within Pitzer's range warned: %v", recs[1].Reasons())
+	}
+}
+
+// Redox readings set the pe: dissolved oxygen through the O2/H2O couple (an
+// air-saturated water at pH 7 and 25 C has pe near 13.6; Stumm & Morgan 1996,
+// from memory), Eh by pe = F Eh / (ln10 R T) (59.16 mV per pe unit at 25 C), and a
+// water without readings is solved without a pe and says so.
+func TestRedoxReadingsSetThePE(t *testing.T) {
+	head := "Sample,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),Fe (mg/L),DO (mg/L),Eh (mV)\n"
+	recs := assessCSV(t, head+
+		"oxic,7.0,25,60,12,20,2,30,40,180,0.05,8.26,\n"+
+		"eh,7.0,25,60,12,20,2,30,40,180,0.05,,100\n"+
+		"none,7.0,25,60,12,20,2,30,40,180,0.05,,\n")
+	r := recs[0].Result
+	if r == nil || !r.HasPE || recs[0].PESource != "O2/H2O" || r.PE < 13.2 || r.PE > 14 {
+		t.Fatalf("oxic water: result %v, source %q, reasons %v", r != nil && r.HasPE, recs[0].PESource, recs[0].Reasons())
+	}
+	if _, ok := r.SI("ferrihydrite"); !ok {
+		t.Error("no ferrihydrite SI with a pe")
+	}
+	r = recs[1].Result
+	if r == nil || !r.HasPE || recs[1].PESource != "Eh" || math.Abs(r.PE-100/59.16) > 0.01 {
+		t.Fatalf("Eh water: %v %q %v", r != nil && r.HasPE, recs[1].PESource, recs[1].Reasons())
+	}
+	if !hasCode(&recs[2], CodeNoRedox) || recs[2].Result.HasPE {
+		t.Errorf("a water without redox readings: %v", recs[2].Reasons())
 	}
 }

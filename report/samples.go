@@ -69,7 +69,7 @@ var sampleColumns = []string{
 	"file", "line", "sample_id", "well_id", "round", "event", "sampled_at", "status", "reasons",
 	"latitude", "longitude", "easting_m", "northing_m", "epsg",
 	"depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m",
-	"temp_c", "temp_source", "ph", "ph_source", "field_sheet_line", "dissolved_oxygen_mg_l", "eh_mv", "orp_mv",
+	"temp_c", "temp_source", "ph", "ph_source", "field_sheet_line", "dissolved_oxygen_mg_l", "eh_mv", "orp_mv", "pe", "pe_source",
 	"tds_mg_l", "density_kg_l", "density_source", "nondetects_substituted",
 	"cations_meq_l", "anions_meq_l", "charge_balance_pct", "balance_status",
 	"model", "ionic_strength_mol_kgw", "log_pco2_atm", "charge_balance_speciated_pct",
@@ -105,6 +105,11 @@ func (c Columns) Row(r *assess.Record) []string {
 	row = append(row, Cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
 		opt(s.TempC, 1), s.TempSource, opt(s.PH, 2), s.PHSource, Cond(s.FieldLine > 0, strconv.Itoa(s.FieldLine)),
 		opt(s.DissolvedOxygenMgL, 2), opt(s.EhMV, 0), opt(s.ORPMV, 0))
+	if res := r.Result; res != nil && res.HasPE {
+		row = append(row, Num(res.PE, 3), r.PESource)
+	} else {
+		row = append(row, "", "")
+	}
 	if r.Water.KgWaterPerL > 0 {
 		row = append(row, Num(r.Water.TDSMgL, 0), Num(r.Water.DensityKgL, 4), r.Water.DensitySource)
 	} else {

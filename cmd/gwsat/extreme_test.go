@@ -70,6 +70,7 @@ func TestNoNonNumberOnExtremeInputs(t *testing.T) {
 		if err != nil {
 			return err
 		}
+		raw = base64Data.ReplaceAll(raw, nil) // embedded fonts and pictures are not text
 		if m := nonNumber.Find(raw); m != nil {
 			t.Errorf("%s holds %q", filepath.Base(path), m)
 		}

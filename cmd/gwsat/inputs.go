@@ -6,6 +6,7 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/spf13/pflag"
 
@@ -37,6 +38,9 @@ type inputFlags struct {
 	sheet      string
 	limits     []string
 	fieldSheet string
+	delimiter  string
+	decimal    string
+	orpRef     string
 }
 
 func (f *inputFlags) register(fs *pflag.FlagSet) {
@@ -52,6 +56,9 @@ func (f *inputFlags) register(fs *pflag.FlagSet) {
 	fs.Lookup("site-temperature").DefValue = "none"
 	fs.StringVar(&f.sheet, "sheet", "", "workbook sheet to read, by name or 1-based number (default: the first)")
 	fs.StringArrayVar(&f.limits, "detection-limit", nil, "detection limit for non-detects written without a number, as HEADER=VALUE in the column's unit (repeatable)")
+	fs.StringVar(&f.delimiter, "delimiter", "", "force the field delimiter: a single character, or 'tab' (default: detected)")
+	fs.StringVar(&f.decimal, "decimal", "", "force the decimal separator: '.' or ',' (default: detected)")
+	fs.StringVar(&f.orpRef, "orp-electrode", "", "reference electrode of ORP readings, to convert them to Eh: e.g. 'Ag/AgCl sat KCl', 'Ag/AgCl 3M KCl', 'calomel sat' (default: ORP not used)")
 	fs.StringVar(&f.fieldSheet, "field-sheet", "", "a file of field measurements (pH, temperature, conductance, dissolved oxygen, Eh/ORP) joined to the lab rows on sample id, or on well id and date")
 }
 
@@ -66,6 +73,22 @@ func (f *inputFlags) options() (hydro.Options, error) {
 		return hydro.Options{}, fmt.Errorf("--date-order: %w", err)
 	}
 	opt := hydro.Options{NonDetect: nd, EPSG: f.epsg, ConfirmUnits: f.unitsOK, DateOrder: order, Sheet: f.sheet}
+	switch d := f.delimiter; {
+	case d == "":
+	case strings.EqualFold(d, "tab") || d == "\\t":
+		opt.Delimiter = '\t'
+	case utf8.RuneCountInString(d) == 1 && d != "\"" && d != "\n" && d != "\r":
+		opt.Delimiter, _ = utf8.DecodeRuneInString(d)
+	default:
+		return hydro.Options{}, fmt.Errorf("--delimiter %q: give one character, or tab", d)
+	}
+	switch f.decimal {
+	case "":
+	case ".", ",":
+		opt.DecimalSep = rune(f.decimal[0])
+	default:
+		return hydro.Options{}, fmt.Errorf("--decimal %q: give . or ,", f.decimal)
+	}
 	if !math.IsNaN(f.siteTemp) {
 		if _, err := parseTemp(strconv.FormatFloat(f.siteTemp, 'g', -1, 64)); err != nil {
 			return hydro.Options{}, fmt.Errorf("--site-temperature: %w", err)
@@ -204,6 +227,7 @@ type chemistry struct {
 	db    *speciation.Database
 	model speciation.ActivityModel
 	bal   string
+	orp   string
 }
 
 func (f *inputFlags) chemistry() (*chemistry, error) {
@@ -219,11 +243,16 @@ func (f *inputFlags) chemistry() (*chemistry, error) {
 	if err != nil {
 		return nil, fmt.Errorf("--close-balance-with: %w", err)
 	}
-	return &chemistry{db: db, model: model, bal: bal}, nil
+	if f.orpRef != "" {
+		if _, err := speciation.ParseReferenceElectrode(f.orpRef); err != nil {
+			return nil, fmt.Errorf("--orp-electrode: %w", err)
+		}
+	}
+	return &chemistry{db: db, model: model, bal: bal, orp: f.orpRef}, nil
 }
 
 func (c *chemistry) options(bar *progress.Bar, detail bool) assess.Options {
-	return assess.Options{Model: c.model, BalanceOn: c.bal, Progress: func() { bar.Add(1) }, Detail: detail}
+	return assess.Options{Model: c.model, BalanceOn: c.bal, ORPReference: c.orp, Progress: func() { bar.Add(1) }, Detail: detail}
 }
 
 // assessAll reads and assesses every row, showing progress on a terminal;
