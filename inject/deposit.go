@@ -71,8 +71,8 @@ type DepositResult struct {
 	// Oxidation is the oxidation step of a blend, nil when there is none; its
 	// oxides come on top of the minerals of Precipitation.
 	Oxidation *Oxidation
-	Name          string // the water, in words
-	Model         string
+	Name      string // the water, in words
+	Model     string
 }
 
 // Deposit computes how much of each supersaturated candidate mineral would

@@ -59,8 +59,8 @@ type PoreFillResult struct {
 	// Oxidation is the oxidation step of a blend (iron and manganese oxides),
 	// nil when the blend has no oxidant meeting a reductant.
 	Oxidation *Oxidation
-	Clogging *reaction.CloggingResult
-	Well     Well
+	Clogging  *reaction.CloggingResult
+	Well      Well
 }
 
 // PoreFill computes the deposit of the chosen water and the pore space its
