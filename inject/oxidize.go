@@ -78,11 +78,18 @@ func (p *Planner) Oxidize(c WaterChoice) (*Oxidation, error) {
 	return &Oxidation{Result: ox, Name: fmt.Sprintf("%.0f %% %s + %.0f %% %s at %.1f C", 100*(1-c.Share), c.Native, 100*c.Share, c.Injectate, t)}, nil
 }
 
+// negligibleMolKgw is the amount below which an oxidation step is not worded:
+// 1e-12 mol/kg is far below any analysis (common practice).
+const negligibleMolKgw = 1e-12
+
 // Sentences words the oxidation step for a summary or a report.
 func (o *Oxidation) Sentences() []string {
 	ox := o.Result
 	out := []string{fmt.Sprintf("Oxidation on mixing (%s): %s.", o.Name, ox.String())}
 	for _, st := range ox.Steps {
+		if st.Oxidised < negligibleMolKgw {
+			continue // a trace (e.g. sulfide at 1e-100 mol/kg in an oxic water)
+		}
 		out = append(out, fmt.Sprintf("%s oxidises %s mmol/kgw of %s, using %s mmol/kgw of %s.", st.Oxidant, report.Sig(1000*st.Oxidised, 3), st.Reductant, report.Sig(1000*st.Consumed, 3), st.Oxidant))
 	}
 	for _, s := range ox.Solids {

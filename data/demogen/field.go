@@ -25,16 +25,17 @@ const fieldRound = 3
 // sample (invented, like everything here): its row matches no lab row.
 const dryWell = "MW-DRY"
 
-// fieldBytes renders the field sheet of one round: well id, date, field
-// pH and temperature as in samples.csv, and dissolved oxygen and ORP,
-// invented from the injectate fraction (oxygenated injectate, reducing
-// native water: DO 0.2-8.0 mg/L, ORP -150 to +250 mV, linear in the
-// fraction; common practice for the contrast, not a model).
+// fieldBytes renders the field sheet of one round, plus the injectate's
+// readings at every round: well id, date, field pH and temperature as in
+// samples.csv, and dissolved oxygen and ORP, invented from the injectate
+// fraction (oxygenated injectate, reducing native water: DO 0.2-8.0 mg/L, ORP
+// -150 to +250 mV, linear in the fraction; common practice for the contrast,
+// not a model).
 func (g *generated) fieldBytes() []byte {
 	var b strings.Builder
 	b.WriteString("Well,Date,Time,Field pH,Water temperature (C),DO (mg/L),ORP (mV),Field notes\n")
 	for _, s := range g.Samples {
-		if s.Round != fieldRound || s.Type != "monitoring" {
+		if !(s.Round == fieldRound && s.Type == "monitoring" || s.Type == "injectate") {
 			continue
 		}
 		do := 0.2 + 7.8*s.InjFrac
