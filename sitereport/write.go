@@ -85,6 +85,11 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	if pf, ok := site.PiperFigure(recs, so.ClusterColumn); ok {
 		st.Figures = append(st.Figures, pf)
 	}
+	if ef, ok, err := site.IronPEPHFigure(opt.DB, recs); err != nil {
+		out.Notes = append(out.Notes, fmt.Sprintf("iron pe-pH diagram: %v", err))
+	} else if ok {
+		st.Figures = append(st.Figures, ef)
+	}
 	figs := append([]report.Fig(nil), st.Figures...)
 	var sections []report.Section
 	sec, mfigs, err := inject.NewPlanner(opt.DB, opt.Model, recs).Section(opt.Inject)
@@ -279,7 +284,7 @@ func uniqueStems(figs []report.Fig) {
 }
 
 // figurePrefixes are the file-name prefixes of the figures Write draws.
-var figurePrefixes = []string{"map_", "profile_", "blend_", "warm_", "deposit_", "piper"}
+var figurePrefixes = []string{"map_", "profile_", "blend_", "warm_", "deposit_", "piper", "redox_"}
 
 // removeOldFigures deletes the figures an earlier report left in dir, so that a
 // figure no longer drawn (another mineral, zone or cluster) does not linger
