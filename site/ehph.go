@@ -50,8 +50,8 @@ func IronPEPHFigure(db *speciation.Database, recs []assess.Record) (report.Fig, 
 		return report.Fig{}, false, err
 	}
 	fd := figure.EhPHDiagram{
-		Title:   fmt.Sprintf("Iron at %.0f C, total Fe %s mol/kg", t, report.Sig(fe, 2)),
-		PHMin:   d.PHMin, PHMax: d.PHMax, PEMin: d.PEMin, PEMax: d.PEMax,
+		Title: fmt.Sprintf("Iron at %.0f C, total Fe %s mol/kg", t, report.Sig(fe, 2)),
+		PHMin: d.PHMin, PHMax: d.PHMax, PEMin: d.PEMin, PEMax: d.PEMax,
 		Samples: samples,
 		EhPerPE: speciation.NernstSlopeV(t),
 	}
