@@ -5,6 +5,7 @@ import (
 
 	"gonum.org/v1/plot/vg"
 
+	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/speciation/reaction"
 )
@@ -20,41 +21,53 @@ type WaterChoice struct {
 	TempC *float64
 }
 
-// solution prepares the chosen water and names it.
-func (p *Planner) solution(c WaterChoice) (reaction.Solution, string, error) {
+// kgwPerL is the kg of water per litre of a row's solution (1 when unknown), so
+// that amounts per litre are per litre of solution, not per kg of water.
+func kgwPerL(rec *assess.Record) float64 {
+	if k := rec.Water.KgWaterPerL; k > 0 {
+		return k
+	}
+	return 1
+}
+
+// solution prepares the chosen water and names it; kgw is its kg of water per
+// litre of solution (for a blend, the shares' average: volumes taken as
+// additive, common practice).
+func (p *Planner) solution(c WaterChoice) (sol reaction.Solution, name string, kgw float64, err error) {
 	if c.TempC != nil {
 		if err := checkTemp("temperature", *c.TempC); err != nil {
-			return reaction.Solution{}, "", err
+			return reaction.Solution{}, "", 0, err
 		}
 	}
 	if c.Sample != "" {
 		w, rec, err := p.Water("water", c.Sample)
 		if err != nil {
-			return w, "", err
+			return w, "", 0, err
 		}
 		if c.TempC != nil {
 			w.TempC = *c.TempC
 		}
-		return w, rec.Sample().ID, nil
+		return w, rec.Sample().ID, kgwPerL(rec), nil
 	}
 	if !(c.Share >= 0 && c.Share <= 1) {
-		return reaction.Solution{}, "", fmt.Errorf("injectate share %g outside 0-1", c.Share)
+		return reaction.Solution{}, "", 0, fmt.Errorf("injectate share %g outside 0-1", c.Share)
 	}
-	wn, _, err := p.Water("native water", c.Native)
+	wn, rn, err := p.Water("native water", c.Native)
 	if err != nil {
-		return wn, "", err
+		return wn, "", 0, err
 	}
-	wi, _, err := p.Water("injectate", c.Injectate)
+	wi, ri, err := p.Water("injectate", c.Injectate)
 	if err != nil {
-		return wi, "", err
+		return wi, "", 0, err
 	}
+	kgw = (1-c.Share)*kgwPerL(rn) + c.Share*kgwPerL(ri)
 	t := reaction.MixTempC(wn, wi, c.Share)
 	if c.TempC != nil {
 		t = *c.TempC
 	}
 	mix, _, err := p.reactor.Mix(wn, wi, c.Share, t)
-	name := fmt.Sprintf("%.0f %% %s + %.0f %% %s at %.1f C", 100*(1-c.Share), c.Native, 100*c.Share, c.Injectate, t)
-	return mix, name, err
+	name = fmt.Sprintf("%.0f %% %s + %.0f %% %s at %.1f C", 100*(1-c.Share), c.Native, 100*c.Share, c.Injectate, t)
+	return mix, name, kgw, err
 }
 
 // DepositOptions choose a deposit computation.
@@ -78,15 +91,15 @@ type DepositResult struct {
 // Deposit computes how much of each supersaturated candidate mineral would
 // deposit from the chosen water.
 func (p *Planner) Deposit(opt DepositOptions) (*DepositResult, error) {
-	sol, name, err := p.solution(opt.Water)
+	sol, name, kgw, err := p.solution(opt.Water)
 	if err != nil {
 		return nil, err
 	}
-	pr, err := p.reactor.Precipitate(sol, reaction.PrecipOptions{Minerals: opt.Candidates})
+	pr, err := p.reactor.Precipitate(sol, reaction.PrecipOptions{Minerals: opt.Candidates, KgwPerL: kgw})
 	if err != nil {
 		return nil, err
 	}
-	ox, err := p.Oxidize(opt.Water)
+	ox, err := p.oxidize(opt.Water, kgw)
 	if err != nil {
 		return nil, err
 	}

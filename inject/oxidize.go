@@ -49,7 +49,10 @@ type Oxidation struct {
 // sample): which reductant is oxidised first, how much oxidant is used, what is
 // left, and the ferrihydrite and manganese oxide formed per cubic metre. It
 // returns nil when the blend carries no oxidant or no reductant.
-func (p *Planner) Oxidize(c WaterChoice) (*Oxidation, error) {
+func (p *Planner) Oxidize(c WaterChoice) (*Oxidation, error) { return p.oxidize(c, 1) }
+
+// oxidize is Oxidize with the blend's kg of water per litre.
+func (p *Planner) oxidize(c WaterChoice, kgw float64) (*Oxidation, error) {
 	if c.Sample != "" {
 		return nil, nil
 	}
@@ -68,7 +71,7 @@ func (p *Planner) Oxidize(c WaterChoice) (*Oxidation, error) {
 	if c.TempC != nil {
 		t = *c.TempC
 	}
-	ox, err := p.reactor.Oxidize(sn, si, rn, ri, c.Share, t, reaction.OxidationOptions{})
+	ox, err := p.reactor.Oxidize(sn, si, rn, ri, c.Share, t, reaction.OxidationOptions{KgwPerL: kgw})
 	if err != nil {
 		return nil, err
 	}
