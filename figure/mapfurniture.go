@@ -20,6 +20,13 @@ func (s *mapState) scaleBarGeom(p *plot.Plot, da draw.Canvas) (units, metres flo
 	units = metres / s.mPerUnitX
 	w := vg.Length(units/(p.X.Max-p.X.Min)) * (da.Max.X - da.Min.X)
 	x0, y0 := da.Min.X+8, da.Min.Y+8
+	if s.sbCorner&1 != 0 { // right
+		tw := textStyle(sizeSmall).Width(scaleLabel(metres, s.m.degrees()))
+		x0 = da.Max.X - 8 - max(w, tw+4)
+	}
+	if s.sbCorner&2 != 0 { // top
+		y0 = da.Max.Y - 8 - 4 - lineHeight(textStyle(sizeSmall)) - 3
+	}
 	return units, metres, vg.Rectangle{Min: vg.Point{X: x0, Y: y0}, Max: vg.Point{X: x0 + w, Y: y0 + 4}}
 }
 

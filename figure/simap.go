@@ -230,6 +230,7 @@ type mapState struct {
 	kinds     map[MarkerKind]bool
 	mPerUnitX float64 // metres per x unit, for the scale bar
 	aspectX   float64 // x units are drawn shorter by this factor (cos lat)
+	sbCorner  int     // scale bar corner: bit 0 right, bit 1 top
 }
 
 func (m SIMap) prepare() (*mapState, error) {

@@ -96,8 +96,8 @@ func (s *mapState) layout(body draw.Canvas, hideY bool) mapLayout {
 	lw := float64(textStyle(sizeTick).Width(formatNum(big, 7)))
 	nx := int(float64(mapC.Max.X-mapC.Min.X-60) / (1.6 * lw))
 	ny := int(float64(mapC.Max.Y-mapC.Min.Y-30) / (3.5 * float64(lineHeight(textStyle(sizeTick)))))
-	p.X.Tick.Marker = niceTicks{n: min(max(nx, 2), 6)}
-	p.Y.Tick.Marker = niceTicks{n: min(max(ny, 2), 6)}
+	p.X.Tick.Marker = innerTicks{niceTicks{n: min(max(nx, 2), 6)}, 0.06}
+	p.Y.Tick.Marker = innerTicks{niceTicks{n: min(max(ny, 2), 6)}, 0.03}
 	x0, x1, y0, y1 := s.ext.x0, s.ext.x1, s.ext.y0, s.ext.y1
 	// Equal scale: expand the shorter range until one unit (scaled by
 	// aspectX along x) takes the same length on both axes. Several passes,
@@ -193,6 +193,23 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 		}
 	}
 	if s.m.ScaleBar {
+		// The corner (bottom left, bottom right, top left) whose scale bar
+		// covers the fewest wells; the north arrow holds the top right.
+		best, bestN := 0, len(s.wells)+1
+		for _, corner := range []int{0, 1, 2} {
+			s.sbCorner = corner
+			r := s.scaleBarRect(p, da)
+			n := 0
+			for _, w := range s.wells {
+				if overlaps(r, grow(vg.Rectangle{Min: vg.Point{X: tx(w.X), Y: ty(w.Y)}, Max: vg.Point{X: tx(w.X), Y: ty(w.Y)}}, wellRadius)) {
+					n++
+				}
+			}
+			if n < bestN {
+				best, bestN = corner, n
+			}
+		}
+		s.sbCorner = best
 		obstacles = append(obstacles, s.scaleBarRect(p, da))
 	}
 	if s.m.NorthArrow {
@@ -209,4 +226,23 @@ func fixedSigned(v float64) string {
 		s = "+" + s
 	}
 	return strings.Replace(s, "-", "\u2212", 1)
+}
+
+// innerTicks drops the labels of ticks within frac of the axis ends, so no
+// label hangs over the end of the axis: the plotting library would shrink
+// the data area for it, which breaks the equal scale of a map.
+type innerTicks struct {
+	m    plot.Ticker
+	frac float64
+}
+
+func (t innerTicks) Ticks(min, max float64) []plot.Tick {
+	ts := t.m.Ticks(min, max)
+	d := t.frac * (max - min)
+	for i := range ts {
+		if ts[i].Value < min+d || ts[i].Value > max-d {
+			ts[i].Label = ""
+		}
+	}
+	return ts
 }

@@ -28,16 +28,34 @@ var ErrRaster = errors.New("geo: invalid raster")
 
 // Raster is a north-up raster in a projected CRS: row 0 is the northern
 // row, column 0 the western column. Cell (col, row) covers
-// [West+col*PixelM, West+(col+1)*PixelM] x [North-(row+1)*PixelM, North-row*PixelM]
-// and holds Values[row*Cols+col]; Mask false (or a non-finite value) means
-// no estimate.
+// [West+col*PixelW, West+(col+1)*PixelW] x [North-(row+1)*PixelH, North-row*PixelH]
+// (metres) and holds Values[row*Cols+col]; Mask false (or a non-finite
+// value) means no estimate.
 type Raster struct {
-	EPSG        int // projected CRS, e.g. 32633
-	West, North float64
-	PixelM      float64
-	Cols, Rows  int
-	Values      []float64
-	Mask        []bool
+	EPSG           int // projected CRS, e.g. 32633
+	West, North    float64
+	PixelW, PixelH float64
+	Cols, Rows     int
+	Values         []float64
+	Mask           []bool
+}
+
+// RasterFromGrid turns a grid whose coordinates are already those of the
+// projected CRS epsg (e.g. a grid laid over UTM eastings and northings)
+// into a north-up raster, cell for cell.
+func RasterFromGrid(g *Grid, epsg int) Raster {
+	r := Raster{EPSG: epsg, West: g.X0 - g.DX/2, North: g.Y0 + (float64(g.NY)-0.5)*g.DY,
+		PixelW: g.DX, PixelH: g.DY, Cols: g.NX, Rows: g.NY,
+		Values: make([]float64, g.NX*g.NY), Mask: make([]bool, g.NX*g.NY)}
+	for row := 0; row < g.NY; row++ {
+		j := g.NY - 1 - row
+		for i := 0; i < g.NX; i++ {
+			if v, ok := g.At(i, j); ok && finite(v) {
+				r.Values[row*g.NX+i], r.Mask[row*g.NX+i] = v, true
+			}
+		}
+	}
+	return r
 }
 
 // TIFF field types (TIFF 6.0, section 2).
@@ -114,8 +132,8 @@ func WriteGeoTIFF(w io.Writer, r Raster) error {
 	if r.Cols < 1 || r.Rows < 1 || len(r.Values) != r.Cols*r.Rows || (r.Mask != nil && len(r.Mask) != len(r.Values)) {
 		return fmt.Errorf("%w: %d x %d cells with %d values", ErrRaster, r.Cols, r.Rows, len(r.Values))
 	}
-	if !(r.PixelM > 0) || !finite(r.PixelM) || !finite(r.West) || !finite(r.North) {
-		return fmt.Errorf("%w: origin (%v, %v), pixel %v m", ErrRaster, r.West, r.North, r.PixelM)
+	if !(r.PixelW > 0) || !(r.PixelH > 0) || !finite(r.PixelW) || !finite(r.PixelH) || !finite(r.West) || !finite(r.North) {
+		return fmt.Errorf("%w: origin (%v, %v), pixel %v x %v m", ErrRaster, r.West, r.North, r.PixelW, r.PixelH)
 	}
 	c, err := ParseEPSG(r.EPSG)
 	if err != nil {
@@ -151,7 +169,7 @@ func WriteGeoTIFF(w io.Writer, r Raster) error {
 		{tagStripByteCounts, tiffLong, 1, longs(uint32(len(pix)))},
 		{tagPlanarConfig, tiffShort, 1, shorts(1)},
 		{tagSampleFormat, tiffShort, 1, shorts(3)}, // IEEE floating point
-		{tagModelPixelScale, tiffDouble, 3, doubles(r.PixelM, r.PixelM, 0)},
+		{tagModelPixelScale, tiffDouble, 3, doubles(r.PixelW, r.PixelH, 0)},
 		{tagModelTiepoint, tiffDouble, 6, doubles(0, 0, 0, r.West, r.North, 0)},
 		{tagGeoKeyDirectory, tiffShort, uint32(len(geoKeys) / 2), geoKeys},
 		{tagGDALNoData, tiffASCII, uint32(len(nodata)), nodata},

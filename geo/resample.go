@@ -44,7 +44,7 @@ func ResampleToCRS(g *Grid, frame LocalFrame, epsg int) (Raster, error) {
 	px := math.Min(g.DX, g.DY)
 	// Snap the raster to whole pixels of the target CRS.
 	w, n = math.Floor(w/px)*px, math.Ceil(n/px)*px
-	r := Raster{EPSG: epsg, West: w, North: n, PixelM: px,
+	r := Raster{EPSG: epsg, West: w, North: n, PixelW: px, PixelH: px,
 		Cols: int(math.Ceil((e - w) / px)), Rows: int(math.Ceil((n - s) / px))}
 	r.Values = make([]float64, r.Cols*r.Rows)
 	r.Mask = make([]bool, r.Cols*r.Rows)
