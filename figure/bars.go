@@ -19,7 +19,7 @@ import (
 // as in every other figure. When all values are at least zero and the
 // positive ones span more than LogSpan (a factor of 100, common practice
 // for readable bar lengths), the value axis is logarithmic from the decade
-// below the smallest positive value, and its label says so.
+// below the decade of the smallest positive value, and its label says so.
 type Bars struct {
 	Title, YLabel, Caption string
 	Labels                 []string
@@ -83,7 +83,9 @@ func (b Bars) Draw(c draw.Canvas) error {
 	logAxis := lo >= 0 && hi > 0 && hi/minPos > LogSpan
 	floor := 0.0
 	if logAxis {
-		floor = math.Pow(10, math.Floor(math.Log10(minPos)))
+		// One decade below the smallest amount's decade: its bar keeps a
+		// visible length.
+		floor = math.Pow(10, math.Floor(math.Log10(minPos))-1)
 	}
 	if n == 0 {
 		return fmt.Errorf("%w: bar chart %q has no finite value", ErrNoData, b.Title)
@@ -109,6 +111,13 @@ func (b Bars) Draw(c draw.Canvas) error {
 		p.Y.Scale = plot.LogScale{}
 		p.Y.Tick.Marker = decadeTicks{}
 	}
+	// The value-axis title is drawn here, not by the plotting library,
+	// which places it by the linear middle of the range even on a log
+	// axis and then shrinks the plot to fit it; long titles wrap.
+	ylab := wrapText(textStyle(sizeLabel), p.Y.Label.Text, 0.9*(body.Max.Y-body.Min.Y))
+	p.Y.Label.Text = ""
+	labelX := body.Min.X
+	body.Min.X += vg.Length(len(ylab))*lineHeight(textStyle(sizeLabel)) + 4
 	p.X.Tick.Marker = plot.ConstantTicks(nil)
 	names := make([]plot.Tick, len(b.Labels))
 	for i, l := range b.Labels {
@@ -137,6 +146,13 @@ func (b Bars) Draw(c draw.Canvas) error {
 		p.Y.Min, p.Y.Max = floor, hi*math.Pow(10, 0.25)
 	}
 	p.Draw(body)
+	da := p.DataCanvas(body)
+	ls := textStyle(sizeLabel)
+	ls.Rotation = math.Pi / 2
+	ls.XAlign, ls.YAlign = draw.XCenter, draw.YTop
+	for i, l := range ylab {
+		c.FillText(ls, vg.Point{X: labelX + vg.Length(i)*lineHeight(ls), Y: (da.Min.Y + da.Max.Y) / 2}, l)
+	}
 	pg.draw(c, legTop, capTop)
 	return nil
 }
