@@ -295,12 +295,10 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 			p.Add(poly)
 		}
 		p.Add(&vline{x: 0, y0: y0, y1: y1, st: draw.LineStyle{Color: inkColor, Width: 0.9}})
+		// Every panel carries its own SI axis, ticks and title: panels then
+		// align exactly, and each reads on its own.
 		p.X.Tick.Marker = siTicks{n: 2}
-		if r == len(rows)-1 {
-			p.X.Label.Text = "SI (log IAP/K)"
-		} else {
-			p.X.Tick.Marker = hiddenLabels{siTicks{n: 2}}
-		}
+		p.X.Label.Text = "SI (log IAP/K)"
 		if d.Elevation {
 			if col > 0 {
 				p.Y.Tick.Marker = hiddenTicks{}
@@ -311,7 +309,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 		if col == 0 {
 			p.Y.Label.Text = d.depthLabel()
 			if rows[r] != "" {
-				p.Y.Label.Text = rows[r] + ": " + p.Y.Label.Text
+				p.Y.Label.Text = rows[r] + "\n" + p.Y.Label.Text
 			}
 		}
 		return p
@@ -367,17 +365,6 @@ type vline struct {
 func (v *vline) Plot(c draw.Canvas, p *plot.Plot) {
 	tx, ty := p.Transforms(&c)
 	c.StrokeLine2(v.st, tx(v.x), ty(v.y0), tx(v.x), ty(v.y1))
-}
-
-// hiddenLabels keeps the ticks of m and drops their labels.
-type hiddenLabels struct{ m plot.Ticker }
-
-func (h hiddenLabels) Ticks(min, max float64) []plot.Tick {
-	ts := h.m.Ticks(min, max)
-	for i := range ts {
-		ts[i].Label = ""
-	}
-	return ts
 }
 
 var bandColor = color.NRGBA{R: 0xdd, G: 0xdd, B: 0xdd, A: 0xff}
