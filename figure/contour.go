@@ -15,16 +15,12 @@ import (
 // SI = 0 contour, the site features and the well symbols.
 
 // gridImage is the SI surface as a crisp nearest-neighbour image: each cell
-// is repeated into a block of pixels so that no renderer smooths between
-// cells; blank cells are transparent.
+// is repeated into a block of f x f pixels so that no renderer smooths
+// between cells; blank cells are transparent.
 // Cells within the near-equilibrium band (|SI| <= band, band > 0) are
 // hatched with diagonal lines hatchPx image pixels apart, darkened towards
 // black, so the zone reads as "sign not decided" in colour and in grey.
-func gridImage(g *Grid, sc Diverging, band float64, hatchPx int) *plotter.Image {
-	f := 1
-	if n := max(g.NX, g.NY); n < 1000 {
-		f = min(16, (1000+n-1)/n)
-	}
+func gridImage(g *Grid, sc Diverging, band float64, hatchPx, f int) *plotter.Image {
 	img := image.NewNRGBA(image.Rect(0, 0, g.NX*f, g.NY*f))
 	for j := 0; j < g.NY; j++ {
 		for i := 0; i < g.NX; i++ {
@@ -62,16 +58,17 @@ type surfacePlotter struct {
 
 func (sp *surfacePlotter) Plot(c draw.Canvas, p *plot.Plot) {
 	g := sp.g
-	f := 1
-	if n := max(g.NX, g.NY); n < 1000 {
-		f = min(16, (1000+n-1)/n)
-	}
-	hatchPx := 0
+	// Build the image at about the output's own resolution (PNGDPI): each
+	// cell a block of f x f pixels, so the library scales it little (a
+	// large downscale costs most of a map's drawing time) and it stays
+	// crisp.
+	hatchPx, f := 0, 1
 	if w := float64(c.Max.X - c.Min.X); w > 0 && p.X.Max > p.X.Min {
 		cellPt := g.DX / (p.X.Max - p.X.Min) * w
+		f = max(1, min(16, int(math.Ceil(cellPt*PNGDPI/72))))
 		hatchPx = int(math.Round(4 * float64(f) / cellPt))
 	}
-	gridImage(g, sp.sc, sp.band, hatchPx).Plot(c, p)
+	gridImage(g, sp.sc, sp.band, hatchPx, f).Plot(c, p)
 }
 
 // zeroContour traces SI = 0.

@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"image"
 	"image/color"
+	"image/png"
+	"io"
 	"math"
 	"strings"
 
@@ -67,7 +69,7 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 	var cw vg.CanvasWriterTo
 	switch strings.ToLower(format) {
 	case "png":
-		cw = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(PNGDPI))}
+		cw = fastPNG{vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(PNGDPI))}
 	case "svg":
 		cw = vgsvg.NewWith(vgsvg.UseWH(width, height), vgsvg.EmbedFonts(true))
 	case "pdf":
@@ -90,6 +92,28 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 		return nil, fmt.Errorf("figure: encoding %s: %w", format, err)
 	}
 	return buf.Bytes(), nil
+}
+
+// fastPNG encodes with zlib's fastest level: a report figure at 300 dpi
+// encodes about twice as fast as at the default level, for files a little
+// larger (measured with BenchmarkRenderSIMapsThreePanelsPNG).
+type fastPNG struct{ *vgimg.Canvas }
+
+func (c fastPNG) WriteTo(w io.Writer) (int64, error) {
+	cw := &countWriter{w: w}
+	err := (&png.Encoder{CompressionLevel: png.BestSpeed}).Encode(cw, c.Image())
+	return cw.n, err
+}
+
+type countWriter struct {
+	w io.Writer
+	n int64
+}
+
+func (c *countWriter) Write(p []byte) (int, error) {
+	n, err := c.w.Write(p)
+	c.n += int64(n)
+	return n, err
 }
 
 // Panels tiles figs on one page, cols to a row (cols < 1 means one row), in

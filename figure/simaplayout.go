@@ -2,10 +2,10 @@ package figure
 
 import (
 	"fmt"
-	"strconv"
-	"strings"
 	"image/color"
 	"math"
+	"strconv"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
