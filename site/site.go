@@ -23,16 +23,16 @@ type Options struct {
 	// Minerals to map and profile; nil chooses those whose SI crosses zero
 	// somewhere on site (at most MaxAutoMinerals, in data order).
 	Minerals []string
-	// Method is "kriging" (default; falls back to IDW when the variogram
-	// cannot be fitted) or "idw".
+	// Method is "kriging" (default; IDW below MinWellsKriging wells or when
+	// the variogram cannot be fitted) or "idw".
 	Method string
 	// Features are drawn on every map.
 	Features []geo.SiteFeature
 	// BandEdges split sample depths into zones mapped separately (metres
 	// below ground, increasing); nil finds zones from gaps in the depths.
 	BandEdges []float64
-	// ProfileRound is the sampling round shown in depth profiles; "" takes
-	// the last round.
+	// ProfileRound keeps one sampling round in the depth profiles; ""
+	// draws every round.
 	ProfileRound string
 	// Model names the activity model for captions.
 	Model string
