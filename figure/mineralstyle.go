@@ -10,22 +10,22 @@ import (
 )
 
 // MineralOrder fixes the style of each mineral: the k-th name takes colour
-// k mod 10 of mineralColors (colour-blind-safe qualitative colours), and a
+// k mod 11 of mineralColors (colour-blind-safe qualitative colours), and a
 // filled marker and dash pattern that together with the colour are unique
-// for the first 50 names. The order puts minerals often shown together (carbonates,
+// for the first 55 names. The order puts minerals often shown together (carbonates,
 // sulfates, silica) in different colours. A name not listed gets a style
 // fixed by a hash of its name, so it too is the same in every figure.
 var MineralOrder = []string{
 	"calcite", "dolomite", "gypsum", "baryte", "chalcedony", "aragonite", "siderite",
-	"quartz", "magnesite", "anhydrite",
-	"celestine", "fluorite", "halite", "strontianite", "witherite", "rhodochrosite", "amorphous silica",
+	"quartz", "magnesite", "celestine", "fluorite",
+	"anhydrite", "halite", "strontianite", "witherite", "rhodochrosite", "amorphous silica",
 }
 
 // mineralColors: the seven darker colours of Okabe & Ito (2008, "Color
 // Universal Design"; yellow left out, too light on white) followed by wine,
 // olive and indigo of Tol's muted qualitative scheme (Tol 2021, "Colour
-// Schemes", SRON/EPS/TN/09-002), so that the ten minerals most often shown
-// together all differ in colour.
+// Schemes", SRON/EPS/TN/09-002) and a neutral grey, so that the eleven
+// minerals most often shown together all differ in colour.
 var mineralColors = []color.NRGBA{
 	{R: 0x00, G: 0x72, B: 0xB2, A: 0xff}, // blue
 	{R: 0xD5, G: 0x5E, B: 0x00, A: 0xff}, // vermillion
@@ -37,6 +37,7 @@ var mineralColors = []color.NRGBA{
 	{R: 0x88, G: 0x22, B: 0x55, A: 0xff}, // wine (Tol muted)
 	{R: 0x99, G: 0x99, B: 0x33, A: 0xff}, // olive (Tol muted)
 	{R: 0x33, G: 0x22, B: 0x88, A: 0xff}, // indigo (Tol muted)
+	{R: 0x88, G: 0x88, B: 0x88, A: 0xff}, // grey
 }
 
 // Style is how a mineral is drawn in line figures, profiles and bar charts.
@@ -77,8 +78,8 @@ var mineralGlyphs = []glyphShape{glyphCircle, glyphTriangle, glyphSquare, glyphD
 func mineralSeriesStyle(name string) seriesStyle {
 	k := mineralIndex(name)
 	nc := len(mineralColors)
-	// Two names with the same colour (k mod 10) differ in k/10, hence in
-	// marker, for the first 50 names.
+	// Two names with the same colour (k mod 11) differ in k/11, hence in
+	// marker, for the first 55 names.
 	c := mineralColors[k%nc]
 	return seriesStyle{
 		line:  draw.LineStyle{Color: c, Width: 1.4, Dashes: seriesDashes[(k%nc+k/nc)%len(seriesDashes)]},
