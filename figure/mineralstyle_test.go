@@ -141,3 +141,30 @@ func TestMapLabelsApart(t *testing.T) {
 		}
 	}
 }
+
+// The near-equilibrium zone is hatched: a surface within the band shows
+// hatch pixels (the surface colour darkened), a surface beyond it none.
+func TestMapBandHatched(t *testing.T) {
+	for _, c := range []struct {
+		si    float64
+		hatch bool
+	}{{0.2, true}, {-0.3, true}, {1.5, false}, {-1.2, false}} {
+		g := &Grid{X0: 0, Y0: 0, DX: 10, DY: 10, NX: 40, NY: 30, Z: make([]float64, 1200)}
+		for k := range g.Z {
+			g.Z[k] = c.si
+		}
+		m := SIMap{Grid: g, Limit: 2, Band: 0.5}
+		b, err := Render(m, "png", 200, 160)
+		if err != nil {
+			t.Fatal(err)
+		}
+		img, err := png.Decode(bytes.NewReader(b))
+		if err != nil {
+			t.Fatal(err)
+		}
+		dark := darker(Diverging{Limit: 2}.Color(c.si), 0.45)
+		if got := hasColour(img, dark, 3); got != c.hatch {
+			t.Errorf("SI %v: hatch pixels %v, want %v", c.si, got, c.hatch)
+		}
+	}
+}

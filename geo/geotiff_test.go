@@ -269,3 +269,39 @@ func TestIsolinesAndBand(t *testing.T) {
 		t.Error("band ring not counter-clockwise")
 	}
 }
+
+// WriteShapes refuses a NaN coordinate (nothing half-written reaches a
+// file through atomic writers) and turns rings counter-clockwise.
+func TestWriteShapes(t *testing.T) {
+	var buf bytes.Buffer
+	bad := []ShapeFeature{{Geometry: orb.LineString{{1, 2}, {math.NaN(), 3}}}}
+	if err := WriteShapes(&buf, bad); !errors.Is(err, ErrProjection) {
+		t.Errorf("NaN coordinate: error %v, want ErrProjection", err)
+	}
+	cw := orb.Polygon{orb.Ring{{0, 0}, {0, 1}, {1, 1}, {1, 0}, {0, 0}}} // clockwise
+	buf.Reset()
+	if err := WriteShapes(&buf, []ShapeFeature{{Geometry: cw, Props: []Prop{{Key: "layer", Value: "zone"}, {Key: "v", Value: math.Inf(1)}}}}); err != nil {
+		t.Fatal(err)
+	}
+	var fc struct {
+		Features []struct {
+			Geometry struct {
+				Coordinates [][][2]float64 `json:"coordinates"`
+			} `json:"geometry"`
+			Properties map[string]any `json:"properties"`
+		} `json:"features"`
+	}
+	if err := json.Unmarshal(buf.Bytes(), &fc); err != nil {
+		t.Fatalf("output is not JSON: %v\n%s", err, buf.Bytes())
+	}
+	ring := orb.Ring{}
+	for _, p := range fc.Features[0].Geometry.Coordinates[0] {
+		ring = append(ring, orb.Point(p))
+	}
+	if ring.Orientation() != orb.CCW {
+		t.Errorf("ring %v not counter-clockwise", ring)
+	}
+	if v, ok := fc.Features[0].Properties["v"]; !ok || v != nil {
+		t.Errorf("infinite property written as %v, want null", v)
+	}
+}

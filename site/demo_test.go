@@ -97,6 +97,23 @@ func TestDemoSurfacesSayWhy(t *testing.T) {
 	if drawn == 0 || drawn == len(st.Surfaces) {
 		t.Logf("%d of %d surfaces drawn", drawn, len(st.Surfaces))
 	}
+	// The panels follow the rows: a surface where drawn, posted values
+	// where not.
+	var panels []figure.SIMap
+	for _, f := range st.Figures {
+		if ms, ok := f.Figure.(figure.SIMaps); ok {
+			panels = append(panels, ms.Maps...)
+		}
+	}
+	if len(panels) != len(st.Surfaces) {
+		t.Fatalf("%d map panels for %d surface rows", len(panels), len(st.Surfaces))
+	}
+	for i, p := range panels {
+		r := st.Surfaces[i]
+		if (p.Grid != nil) != r.Drawn || p.PostValues == r.Drawn || p.Note == "" {
+			t.Errorf("panel %q: grid %v, posted values %v, note %q; row drawn %v", p.Title, p.Grid != nil, p.PostValues, p.Note, r.Drawn)
+		}
+	}
 }
 
 // On every demo map no two labels overlap, and no label lies on a north
