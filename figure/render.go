@@ -159,6 +159,24 @@ func (ps panels) Draw(c draw.Canvas) error {
 // to code page 1252 (pdfText).
 type pdfCanvas struct{ *vgpdf.Canvas }
 
+// SetColor lays a translucent colour over white: the PDF backend takes
+// the premultiplied components as the colour and drops alpha, so a white
+// label halo at 85 % opacity came out mid-grey. Over white is what the
+// PNG shows wherever the halo lies on paper.
+func (c pdfCanvas) SetColor(col color.Color) {
+	if col == nil {
+		c.Canvas.SetColor(col)
+		return
+	}
+	r, g, b, a := col.RGBA()
+	if a == 0xffff {
+		c.Canvas.SetColor(col)
+		return
+	}
+	over := func(v uint32) uint8 { return uint8((v + (0xffff - a)) >> 8) }
+	c.Canvas.SetColor(color.NRGBA{R: over(r), G: over(g), B: over(b), A: 0xff})
+}
+
 func (c pdfCanvas) DrawImage(rect vg.Rectangle, img image.Image) {
 	c.Canvas.DrawImage(rect, flipVertical(img))
 }
