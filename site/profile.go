@@ -97,7 +97,7 @@ func profiles(placed []placedRec, minerals, rounds []string, opt Options) []repo
 			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle): one row per well nest (wells within 10 m of each other), single wells as unconnected markers; each mineral in its own colour and marker; sampling rounds by dash pattern and marker fill (latest solid and filled). Shaded: near-equilibrium band SI within ±%.1f (common practice); %s model.",
 				figure.DefaultBand, opt.Model),
 			Figure: figure.DepthProfile{Title: title, Panels: panels, Rounds: rounds},
-			W:      16.5 * vg.Centimeter, H: vg.Length(nRows)*4.5*vg.Centimeter + 3.5*vg.Centimeter,
+			W:      16.5 * vg.Centimeter, H: max(vg.Length(nRows)*4.5+3.5, 9) * vg.Centimeter,
 		})
 	}
 	return figs
