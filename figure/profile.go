@@ -174,6 +174,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 	}
 	var keys []string
 	keyIdx := map[string]int{}
+	used := map[string]bool{} // keys with a line: the only ones in the legend
 	if byRound {
 		for _, r := range d.Rounds {
 			if _, ok := keyIdx[r]; !ok {
@@ -221,6 +222,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 				keys = append(keys, key)
 			}
 			pd.lines = append(pd.lines, lineData{xys, key, l.Points})
+			used[key] = true
 			anyPoint = true
 		}
 		if _, ok := rowIdx[p.Row]; !ok {
@@ -240,6 +242,9 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 	var legend []legendEntry
 	ink := seriesStyle{line: draw.LineStyle{Color: inkColor, Width: 1.4}, color: inkColor, glyph: glyphCircle}
 	for k, key := range keys {
+		if !used[key] {
+			continue // a round this profile has no sample of
+		}
 		st, fill := roundStyle(ink, k, len(keys))
 		name := key
 		switch {
