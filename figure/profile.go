@@ -91,7 +91,7 @@ func (d DepthProfile) band() float64 {
 type flipTicks struct{ hideLabels bool }
 
 func (f flipTicks) Ticks(min, max float64) []plot.Tick {
-	ts := niceTicks{n: 7}.Ticks(-max, -min)
+	ts := niceTicks{n: 4}.Ticks(-max, -min)
 	for i := range ts {
 		ts[i].Value = -ts[i].Value
 		if f.hideLabels {
@@ -303,7 +303,7 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 		// Every panel carries its own SI axis, ticks and title: panels then
 		// align exactly, and each reads on its own.
 		p.X.Tick.Marker = siTicks{n: 2}
-		p.X.Label.Text = "SI (log IAP/K)"
+		p.X.Label.Text = "SI\n(log IAP/K)" // two short lines: a title wider than the panel would shrink it
 		if d.Elevation {
 			if col > 0 {
 				p.Y.Tick.Marker = hiddenTicks{}
