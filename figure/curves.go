@@ -21,8 +21,10 @@ type Series struct {
 // Curves is a line figure such as SI against mixing fraction or against
 // temperature: one line per series, told apart by colour, dash pattern and
 // marker. A series is styled by its name with MineralStyle, so a mineral
-// looks the same here as in every other figure. ZeroLine marks y = 0 (the equilibrium line for SI); AnnotateMax
-// marks each series' maximum with a marker and its value and position.
+// looks the same here as in every other figure. ZeroLine marks y = 0 (the
+// equilibrium line for SI); AnnotateMax marks each series' maximum with a
+// marker and its value and position, placed off every curve (an
+// annotation with no free place is left out; its marker stays).
 type Curves struct {
 	Title, XLabel, YLabel, Caption string
 	Series                         []Series
