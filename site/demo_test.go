@@ -252,3 +252,17 @@ func gdalinfoUTM(t *testing.T, dir string, names []string, epsg int) {
 		}
 	}
 }
+
+// Maps and profiles are drawn at A4 text width (16-17 cm), so a page that
+// shows them at that width prints their smallest type (8 pt) at 8 pt.
+func TestDemoFiguresPrintWidth(t *testing.T) {
+	st := demoSite(t)
+	for _, f := range st.Figures {
+		if f.W < 16*vg.Centimeter || f.W > 17*vg.Centimeter {
+			t.Errorf("%s: %.1f cm wide, want 16-17 cm", f.Stem, f.W.Points()/vg.Centimeter.Points())
+		}
+		if f.H > 25*vg.Centimeter {
+			t.Errorf("%s: %.1f cm tall: more than an A4 text height", f.Stem, f.H.Points()/vg.Centimeter.Points())
+		}
+	}
+}
