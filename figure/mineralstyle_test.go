@@ -168,3 +168,14 @@ func TestMapBandHatched(t *testing.T) {
 		}
 	}
 }
+
+func TestFixedSigned(t *testing.T) {
+	for _, c := range []struct {
+		v    float64
+		want string
+	}{{0.071, "+0.07"}, {-0.004, "0.00"}, {0, "0.00"}, {-0.12, "\u22120.12"}, {1.5, "+1.50"}} {
+		if got := fixedSigned(c.v); got != c.want {
+			t.Errorf("fixedSigned(%v) = %q, want %q", c.v, got, c.want)
+		}
+	}
+}

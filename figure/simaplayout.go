@@ -222,6 +222,9 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 // fixedSigned prints an SI with a sign and two decimals (a true minus).
 func fixedSigned(v float64) string {
 	s := strconv.FormatFloat(v, 'f', 2, 64)
+	if s == "-0.00" {
+		return "0.00" // no signed zero
+	}
 	if v >= 0 && s != "0.00" {
 		s = "+" + s
 	}
