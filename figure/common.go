@@ -242,6 +242,7 @@ type legendEntry struct {
 	// glyph fill colour is fill; outline is inkColor.
 	withGlyph bool // line with a glyph on it
 	cross     bool // glyph with a cross inside (well without a value)
+	hatch     bool // patch with diagonal hatching
 }
 
 const legendSwatch = 20
@@ -315,6 +316,9 @@ func drawSwatch(c draw.Canvas, e legendEntry, x, yc vg.Length) {
 		h := vg.Length(7)
 		pts := []vg.Point{{X: x, Y: yc - h/2}, {X: x + legendSwatch, Y: yc - h/2}, {X: x + legendSwatch, Y: yc + h/2}, {X: x, Y: yc + h/2}}
 		c.FillPolygon(e.fill, pts)
+		if e.hatch {
+			hatch(c, vg.Rectangle{Min: pts[0], Max: pts[2]})
+		}
 		if e.line.Width > 0 {
 			c.StrokeLines(e.line, append(pts, pts[0]))
 		}

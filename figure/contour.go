@@ -3,6 +3,7 @@ package figure
 import (
 	"image"
 	"image/color"
+	"math"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -14,13 +15,12 @@ import (
 // SI = 0 contour, the site features and the well symbols.
 
 // gridImage is the SI surface as a crisp nearest-neighbour image: each cell
-// is repeated into a block of pixels so that no renderer smooths between
-// cells; blank cells are transparent.
-func gridImage(g *Grid, sc Diverging) *plotter.Image {
-	f := 1
-	if n := max(g.NX, g.NY); n < 1000 {
-		f = min(16, (1000+n-1)/n)
-	}
+// is repeated into a block of f x f pixels so that no renderer smooths
+// between cells; blank cells are transparent.
+// Cells within the near-equilibrium band (|SI| <= band, band > 0) are
+// hatched with diagonal lines hatchPx image pixels apart, darkened towards
+// black, so the zone reads as "sign not decided" in colour and in grey.
+func gridImage(g *Grid, sc Diverging, band float64, hatchPx, f int) *plotter.Image {
 	img := image.NewNRGBA(image.Rect(0, 0, g.NX*f, g.NY*f))
 	for j := 0; j < g.NY; j++ {
 		for i := 0; i < g.NX; i++ {
@@ -29,10 +29,17 @@ func gridImage(g *Grid, sc Diverging) *plotter.Image {
 				continue
 			}
 			col := sc.Color(g.Z[k])
+			inBand := band > 0 && hatchPx >= 3 && g.Z[k] >= -band && g.Z[k] <= band
+			dark := darker(col, 0.45)
 			row := g.NY - 1 - j
 			for dy := 0; dy < f; dy++ {
 				for dx := 0; dx < f; dx++ {
-					img.SetNRGBA(i*f+dx, row*f+dy, col)
+					x, y := i*f+dx, row*f+dy
+					c := col
+					if inBand && (x+y)%hatchPx < max(1, hatchPx/5) {
+						c = dark
+					}
+					img.SetNRGBA(x, y, c)
 				}
 			}
 		}
@@ -40,16 +47,43 @@ func gridImage(g *Grid, sc Diverging) *plotter.Image {
 	return plotter.NewImage(img, g.X0-g.DX/2, g.Y0-g.DY/2, g.X0+(float64(g.NX)-0.5)*g.DX, g.Y0+(float64(g.NY)-0.5)*g.DY)
 }
 
-// zeroContour traces SI = 0 by marching squares over the cell centres,
+// surfacePlotter draws the surface image, hatching the band about 4 pt
+// apart on the page (as in the legend) whatever the figure's size. It has
+// no glyph boxes, so it does not pad the data area.
+type surfacePlotter struct {
+	g    *Grid
+	sc   Diverging
+	band float64
+}
+
+func (sp *surfacePlotter) Plot(c draw.Canvas, p *plot.Plot) {
+	g := sp.g
+	// Build the image at about the output's own resolution (PNGDPI): each
+	// cell a block of f x f pixels, so the library scales it little (a
+	// large downscale costs most of a map's drawing time) and it stays
+	// crisp.
+	hatchPx, f := 0, 1
+	if w := float64(c.Max.X - c.Min.X); w > 0 && p.X.Max > p.X.Min {
+		cellPt := g.DX / (p.X.Max - p.X.Min) * w
+		f = max(1, min(16, int(math.Ceil(cellPt*PNGDPI/72))))
+		hatchPx = int(math.Round(4 * float64(f) / cellPt))
+	}
+	gridImage(g, sp.sc, sp.band, hatchPx, f).Plot(c, p)
+}
+
+// zeroContour traces SI = 0.
+func zeroContour(g *Grid) [][][2]float64 { return contourAt(g, 0) }
+
+// contourAt traces z = level by marching squares over the cell centres,
 // using only squares whose four corners hold finite values, and chains the
 // pieces into polylines.
-func zeroContour(g *Grid) [][][2]float64 {
+func contourAt(g *Grid, level float64) [][][2]float64 {
 	type seg struct {
 		e [2]int
 		p [2][2]float64
 	}
 	var segs []seg
-	z := func(i, j int) float64 { return g.Z[j*g.NX+i] }
+	z := func(i, j int) float64 { return g.Z[j*g.NX+i] - level }
 	pos := func(i, j int) [2]float64 { return [2]float64{g.X0 + float64(i)*g.DX, g.Y0 + float64(j)*g.DY} }
 	// Edge ids: horizontal edge from (i,j) to (i+1,j) is 2k, vertical edge
 	// from (i,j) to (i,j+1) is 2k+1, k = j*NX+i.
@@ -148,7 +182,16 @@ func zeroContour(g *Grid) [][][2]float64 {
 	return lines
 }
 
-type contourPlotter struct{ lines [][][2]float64 }
+// darker mixes c with black (f = 0: c, f = 1: black).
+func darker(c color.NRGBA, f float64) color.NRGBA {
+	m := func(v uint8) uint8 { return uint8(float64(v)*(1-f) + 0.5) }
+	return color.NRGBA{R: m(c.R), G: m(c.G), B: m(c.B), A: c.A}
+}
+
+type contourPlotter struct {
+	lines [][][2]float64
+	st    draw.LineStyle
+}
 
 func (cp *contourPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 	tx, ty := p.Transforms(&c)
@@ -160,38 +203,7 @@ func (cp *contourPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 		}
 		vls = append(vls, pts)
 	}
-	halo := contourStyle
-	halo.Width += 2
-	halo.Color = color.NRGBA{R: 255, G: 255, B: 255, A: 0xe0}
-	c.StrokeLines(halo, vls...)
-	c.StrokeLines(contourStyle, vls...)
-}
-
-type featurePlotter struct{ fs []Feature }
-
-func (fp *featurePlotter) Plot(c draw.Canvas, p *plot.Plot) {
-	tx, ty := p.Transforms(&c)
-	for _, f := range fp.fs {
-		pts := make([]vg.Point, 0, len(f.Coords)+1)
-		for _, q := range f.Coords {
-			pts = append(pts, vg.Point{X: tx(q[0]), Y: ty(q[1])})
-		}
-		switch f.Kind {
-		case FeaturePolygon:
-			if pts[0] != pts[len(pts)-1] {
-				pts = append(pts, pts[0])
-			}
-			c.StrokeLines(featureStyle(f.Kind), pts)
-		case FeatureLine:
-			c.StrokeLines(featureStyle(f.Kind), pts)
-		case FeaturePoint:
-			for _, pt := range pts {
-				if c.Contains(pt) {
-					drawGlyph(c, glyphPlus, pt, 3.5, nil, color.Black, 0.7)
-				}
-			}
-		}
-	}
+	c.StrokeLines(cp.st, vls...)
 }
 
 // overlay draws the wells, their labels, the scale bar and the north arrow
@@ -222,7 +234,10 @@ func (o *overlay) Plot(c draw.Canvas, p *plot.Plot) {
 		if w.Marker == MarkerInjection {
 			r = wellRadius * 1.1
 		}
-		drawGlyph(c, w.Marker.glyph(), pt, r, fill, inkColor, 0.7)
+		// A white rim, then a dark outline: the symbol stands apart from a
+		// surface of the same colour.
+		drawGlyph(c, w.Marker.glyph(), pt, r+0.9, color.White, color.White, 0)
+		drawGlyph(c, w.Marker.glyph(), pt, r, fill, color.Black, 1.0)
 		if !finite(w.SI) {
 			drawGlyph(c, glyphCross, pt, r*0.55, nil, inkColor, 0.35)
 		}

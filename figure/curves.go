@@ -20,8 +20,11 @@ type Series struct {
 
 // Curves is a line figure such as SI against mixing fraction or against
 // temperature: one line per series, told apart by colour, dash pattern and
-// marker. ZeroLine marks y = 0 (the equilibrium line for SI); AnnotateMax
-// marks each series' maximum with a marker and its value and position.
+// marker. A series is styled by its name with MineralStyle, so a mineral
+// looks the same here as in every other figure. ZeroLine marks y = 0 (the
+// equilibrium line for SI); AnnotateMax marks each series' maximum with a
+// marker and its value and position, placed off every curve (an
+// annotation with no free place is left out; its marker stays).
 type Curves struct {
 	Title, XLabel, YLabel, Caption string
 	Series                         []Series
@@ -47,6 +50,7 @@ func (cv Curves) Draw(c draw.Canvas) error {
 	type ser struct {
 		xys plotter.XYs
 		k   int
+		st  seriesStyle
 	}
 	var ss []ser
 	var legend []legendEntry
@@ -68,12 +72,12 @@ func (cv Curves) Draw(c draw.Canvas) error {
 		}
 		sort.SliceStable(xys, func(a, b int) bool { return xys[a].X < xys[b].X })
 		k := len(ss)
-		ss = append(ss, ser{xys, k})
 		name := s.Name
 		if name == "" {
 			name = fmt.Sprintf("series %d", i+1)
 		}
-		legend = append(legend, styleFor(k).legend(name))
+		ss = append(ss, ser{xys, k, mineralSeriesStyle(name)})
+		legend = append(legend, ss[k].st.legend(name))
 	}
 	if len(ss) == 0 {
 		return fmt.Errorf("%w: curves %q have no finite point", ErrNoData, cv.Title)
@@ -99,7 +103,7 @@ func (cv Curves) Draw(c draw.Canvas) error {
 	}
 	ann := &maxAnnotations{}
 	for _, s := range ss {
-		sp := &curvePlotter{xys: s.xys, st: styleFor(s.k), every: markerEvery(len(s.xys)), start: s.k}
+		sp := &curvePlotter{xys: s.xys, st: s.st, every: markerEvery(len(s.xys)), start: s.k}
 		p.Add(sp)
 		if cv.AnnotateMax {
 			best := 0
@@ -109,10 +113,13 @@ func (cv Curves) Draw(c draw.Canvas) error {
 				}
 			}
 			ann.pts = append(ann.pts, s.xys[best])
-			ann.st = append(ann.st, styleFor(s.k))
+			ann.st = append(ann.st, s.st)
 		}
 	}
 	if cv.AnnotateMax {
+		for _, s := range ss {
+			ann.lines = append(ann.lines, s.xys)
+		}
 		p.Add(ann)
 	}
 	xp, yp := 0.02*(x1-x0), 0.08*(y1-y0)
@@ -165,8 +172,29 @@ func (s *curvePlotter) Plot(c draw.Canvas, p *plot.Plot) {
 // maxAnnotations marks each series' maximum and writes "max +0.82 at 0.35"
 // next to it, placing the texts so they do not overlap.
 type maxAnnotations struct {
-	pts plotter.XYs
-	st  []seriesStyle
+	pts   plotter.XYs
+	st    []seriesStyle
+	lines []plotter.XYs // every curve: annotations keep off them
+}
+
+// curveObstacles returns small boxes every few points along the curves,
+// which annotations must not cover.
+func curveObstacles(lines []plotter.XYs, tx, ty func(float64) vg.Length) []vg.Rectangle {
+	const step, half = 3, 1.2
+	var out []vg.Rectangle
+	for _, l := range lines {
+		for i := 0; i+1 < len(l); i++ {
+			a := vg.Point{X: tx(l[i].X), Y: ty(l[i].Y)}
+			b := vg.Point{X: tx(l[i+1].X), Y: ty(l[i+1].Y)}
+			n := int(math.Hypot(float64(b.X-a.X), float64(b.Y-a.Y))/step) + 1
+			for k := 0; k <= n; k++ {
+				t := vg.Length(float64(k) / float64(n))
+				p := vg.Point{X: a.X + t*(b.X-a.X), Y: a.Y + t*(b.Y-a.Y)}
+				out = append(out, vg.Rectangle{Min: vg.Point{X: p.X - half, Y: p.Y - half}, Max: vg.Point{X: p.X + half, Y: p.Y + half}})
+			}
+		}
+	}
+	return out
 }
 
 func (a *maxAnnotations) Plot(c draw.Canvas, p *plot.Plot) {
@@ -180,7 +208,7 @@ func (a *maxAnnotations) Plot(c draw.Canvas, p *plot.Plot) {
 		items = append(items, labelItem{anchor: pt, r: 4.5, w: sty.Width(t) + 2, h: sty.Height(t) + 1})
 		texts = append(texts, t)
 	}
-	places := placeLabels(items, nil, c.Rectangle)
+	places := placeLabels(items, curveObstacles(a.lines, tx, ty), c.Rectangle)
 	for i, pl := range places {
 		if pl.placed && pl.leader {
 			a0 := items[i].anchor

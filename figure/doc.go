@@ -4,12 +4,15 @@
 //
 // The package draws what it is given and imports none of gwsat's other
 // packages. Each kind of figure is a plain input type: [SIMap] (an
-// interpolated saturation-index surface on a [Grid], with [Well] symbols,
-// site [Feature]s, the SI = 0 equilibrium contour, a colour bar, a scale bar
-// and a north arrow), [DepthProfile] (SI against depth, one [ProfilePanel]
-// per mineral), [Curves] (SI against mixing fraction or temperature, one
-// [Series] per mineral), [Bars] (for example precipitation potential per
-// mineral) and [Piper] (the trilinear major-ion diagram of Piper 1944, one
+// interpolated saturation-index surface on a [Grid], its near-equilibrium
+// zone hatched, with [Well] symbols, site [Feature]s styled by class, a
+// colour bar, a scale bar and a north arrow), [SIMaps] (several map panels,
+// e.g. one per sampling round, with one legend, colour bar and caption),
+// [DepthProfile] (SI against depth, one column per mineral, one row per
+// well nest, rounds as line styles), [Curves] (SI against mixing fraction
+// or temperature, one [Series] per mineral), [Bars] (for example
+// precipitation potential per mineral, on a log axis when amounts differ by
+// orders of magnitude) and [Piper] (the trilinear major-ion diagram of Piper 1944, one
 // [PiperPoint] per sample), [Stiff] and [StiffGrid] (Stiff 1951 polygons of
 // the major ions per well, small multiples on a shared scale, paged by
 // [StiffGrid.Pages]) and [SITime] (SI against time per well with interval
@@ -22,7 +25,10 @@
 // centred on SI = 0, whose lightness rises monotonically from each end to
 // the neutral centre and whose two ends differ in lightness, so that the
 // figures stay readable in grey-scale print and for colour-blind readers.
-// Series in line figures differ in colour and in dash pattern and marker.
+// Each mineral keeps one colour, marker and dash pattern in every curve,
+// profile and bar chart: [MineralStyle], from colour-blind-safe palettes in
+// the fixed order of [MineralOrder]. Map well symbols show SI colour
+// instead.
 //
 // Non-finite values (NaN, ±Inf) never reach the plotting library: they are
 // left out, and each input type reports how many through its Skipped method.

@@ -86,3 +86,37 @@ func ExamplePanels() {
 	fmt.Println(err == nil, len(out) > 0)
 	// Output: true true
 }
+
+// A mineral is drawn alike in every figure: its colour (hex), marker and
+// dash pattern come from one registry.
+func ExampleMineralStyle() {
+	for _, m := range []string{"calcite", "Baryte", "gypsum"} {
+		st := figure.MineralStyle(m)
+		fmt.Printf("%s: #%02X%02X%02X %s dashes %v\n", m, st.Color.R, st.Color.G, st.Color.B, st.Marker, st.Dashes)
+	}
+	// Output:
+	// calcite: #0072B2 circle dashes []
+	// Baryte: #CC79A7 diamond dashes [7 2.5 1.5 2.5]
+	// gypsum: #009E73 square dashes [1.5 2.5]
+}
+
+// Three sampling rounds of one mineral on one page, with one legend and
+// colour bar; the page height is fitted to the maps' shape at A4 text width.
+func ExampleSIMaps() {
+	wells := []figure.Well{
+		{X: 500100, Y: 4200100, SI: -0.6, Label: "MW-1"},
+		{X: 500900, Y: 4200300, SI: 0.2, Label: "MW-2"},
+		{X: 500500, Y: 4200800, SI: 0.7, Label: "MW-3", Marker: figure.MarkerInjection},
+	}
+	var maps []figure.SIMap
+	for _, r := range []string{"1", "2", "3"} {
+		maps = append(maps, figure.SIMap{Title: "round " + r, Note: "measured values only: 3 wells",
+			Wells: wells, PostValues: true, NorthArrow: true, ScaleBar: true})
+	}
+	fig := figure.SIMaps{Title: "calcite (invented data)", Maps: maps}
+	w := 16.5 * vg.Centimeter
+	h := fig.FitHeight(w)
+	b, err := figure.Render(fig, "png", w, h)
+	fmt.Println(err == nil && len(b) > 0, h > 0.4*w && h < 1.6*w)
+	// Output: true true
+}

@@ -20,6 +20,13 @@ func (s *mapState) scaleBarGeom(p *plot.Plot, da draw.Canvas) (units, metres flo
 	units = metres / s.mPerUnitX
 	w := vg.Length(units/(p.X.Max-p.X.Min)) * (da.Max.X - da.Min.X)
 	x0, y0 := da.Min.X+8, da.Min.Y+8
+	if s.sbCorner&1 != 0 { // right
+		tw := textStyle(sizeSmall).Width(scaleLabel(metres, s.m.degrees()))
+		x0 = da.Max.X - 8 - max(w, tw+4)
+	}
+	if s.sbCorner&2 != 0 { // top
+		y0 = da.Max.Y - 8 - 4 - lineHeight(textStyle(sizeSmall)) - 3
+	}
 	return units, metres, vg.Rectangle{Min: vg.Point{X: x0, Y: y0}, Max: vg.Point{X: x0 + w, Y: y0 + 4}}
 }
 
@@ -92,8 +99,9 @@ func drawNorthArrow(c draw.Canvas) {
 }
 
 // drawColorBar draws a vertical colour bar for Diverging{lim} from y0 to y1
-// with its left edge at x.
-func drawColorBar(c draw.Canvas, x, y0, y1 vg.Length, lim float64, label string) {
+// with its left edge at x, the near-equilibrium band (|SI| <= band, when
+// band > 0) hatched as on the map.
+func drawColorBar(c draw.Canvas, x, y0, y1 vg.Length, lim, band float64, label string) {
 	const barW = 9
 	if y1-y0 < 20 {
 		return
@@ -112,8 +120,14 @@ func drawColorBar(c draw.Canvas, x, y0, y1 vg.Length, lim float64, label string)
 	out := draw.LineStyle{Color: inkColor, Width: 0.6}
 	c.StrokeLines(out, []vg.Point{{X: x, Y: y0}, {X: x + barW, Y: y0}, {X: x + barW, Y: y1}, {X: x, Y: y1}, {X: x, Y: y0}})
 	yOf := func(v float64) vg.Length { return y0 + vg.Length((v+lim)/(2*lim))*(y1-y0) }
+	if b := math.Min(band, lim); b > 0 {
+		r := vg.Rectangle{Min: vg.Point{X: x, Y: yOf(-b)}, Max: vg.Point{X: x + barW, Y: yOf(b)}}
+		hatch(c, r)
+		c.StrokeLine2(bandEdgeStyle, x, r.Min.Y, x+barW, r.Min.Y)
+		c.StrokeLine2(bandEdgeStyle, x, r.Max.Y, x+barW, r.Max.Y)
+	}
 	// Equilibrium mark across the bar.
-	c.StrokeLine2(draw.LineStyle{Color: color.Black, Width: 1.2}, x, yOf(0), x+barW, yOf(0))
+	c.StrokeLine2(draw.LineStyle{Color: color.Black, Width: 0.8}, x, yOf(0), x+barW, yOf(0))
 	step := niceFloor(lim / 2)
 	tsty := textStyle(sizeTick)
 	tsty.XAlign, tsty.YAlign = draw.XLeft, draw.YCenter

@@ -106,9 +106,9 @@ func TestRenderSVG(t *testing.T) {
 		texts []string
 	}{
 		{"simap", testMap(), []string{"calcite SI (invented data)", DefaultColorLabel, "undersaturated", "supersaturated", "Easting (m)", "Northing (m)", "INJ-1", "N"}},
-		{"profile", testProfile(), []string{"Depth (m)", "Nest A", "calcite", "baryte"}},
+		{"profile", testProfile(), []string{"Depth below ground (m)", "Nest A", "calcite", "baryte"}},
 		{"curves", testCurves(), []string{"Fraction of injectate", "gypsum", "SI = 0 (equilibrium)"}},
-		{"bars", testBars(), []string{"calcite", "42.3", "together"}},
+		{"bars", testBars(), []string{"calcite", "42.3", "together (light, hatched)"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -423,7 +423,7 @@ func TestEqualAspect(t *testing.T) {
 			t.Fatal(err)
 		}
 		body := newTestCanvas()
-		lay := s.layout(body)
+		lay := s.layout(body, false)
 		da := lay.da
 		ux := (lay.p.X.Max - lay.p.X.Min) * s.aspectX / float64(da.Max.X-da.Min.X)
 		uy := (lay.p.Y.Max - lay.p.Y.Min) / float64(da.Max.Y-da.Min.Y)

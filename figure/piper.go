@@ -318,10 +318,10 @@ func drawPiperFrame(body draw.Canvas, samples []piperSample) {
 		p := pt(q)
 		body.FillText(s, vg.Point{X: p.X + dx, Y: p.Y - below}, name)
 	}
-	corner(catO, draw.XLeft, -3, "Ca")
-	corner(add(catO, 1, [2]float64{1, 0}), draw.XRight, 3, "Na + K")
-	corner(anO, draw.XLeft, -3, "HCO3 + CO3")
-	corner(add(anO, 1, [2]float64{1, 0}), draw.XRight, 3, "Cl")
+	corner(catO, draw.XLeft, -3, "Ca2+")
+	corner(add(catO, 1, [2]float64{1, 0}), draw.XRight, 3, "Na+ + K+")
+	corner(anO, draw.XLeft, -3, "HCO3- + CO3 2-")
+	corner(add(anO, 1, [2]float64{1, 0}), draw.XRight, 3, "Cl-")
 	// Apex names beside the apexes, on the side away from the diamond,
 	// whose lower corners come close above them on small pages.
 	apex := func(q [2]float64, xa draw.XAlignment, dx vg.Length, name string) {
@@ -330,19 +330,19 @@ func drawPiperFrame(body draw.Canvas, samples []piperSample) {
 		p := pt(q)
 		body.FillText(s, vg.Point{X: p.X + dx, Y: p.Y + 1}, name)
 	}
-	apex(add(catO, 1, up), draw.XRight, -4, "Mg")
-	apex(add(anO, 1, up), draw.XLeft, 4, "SO4")
+	apex(add(catO, 1, up), draw.XRight, -4, "Mg2+")
+	apex(add(anO, 1, up), draw.XLeft, 4, "SO4 2-")
 
 	// Diamond side titles, along the upper sides beyond their tick labels.
 	titleOff := piperTickLen + piperPad + tickW + 5
 	dl := vlab
 	dl.Rotation = math.Pi / 3
 	dl.XAlign, dl.YAlign = draw.XCenter, draw.YBottom
-	body.FillText(dl, off(pt(add(dL, 0.5, up)), nLeft, titleOff), "SO4 + Cl")
+	body.FillText(dl, off(pt(add(dL, 0.5, up)), nLeft, titleOff), "SO4 2- + Cl-")
 	dr := vlab
 	dr.Rotation = -math.Pi / 3
 	dr.XAlign, dr.YAlign = draw.XCenter, draw.YBottom
-	body.FillText(dr, off(pt(add(dR, 0.5, upL)), nRight, titleOff), "Ca + Mg")
+	body.FillText(dr, off(pt(add(dR, 0.5, upL)), nRight, titleOff), "Ca2+ + Mg2+")
 
 	// Samples, in all three fields.
 	for _, s := range samples {

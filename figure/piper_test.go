@@ -341,7 +341,7 @@ func TestPiperRender(t *testing.T) {
 		t.Fatal(err)
 	}
 	texts := svgTexts(t, b)
-	for _, want := range []string{"Ca", "Mg", "Na + K", "Cl", "SO4", "HCO3 + CO3", "SO4 + Cl", "Ca + Mg",
+	for _, want := range []string{"Ca2+", "Mg2+", "Na+ + K+", "Cl-", "SO4 2-", "HCO3- + CO3 2-", "SO4 2- + Cl-", "Ca2+ + Mg2+",
 		"injectate", "native", "monitoring", "Piper test (invented data)", "80"} {
 		if !texts[want] {
 			t.Errorf("SVG has no <text> %q", want)

@@ -17,10 +17,15 @@ import (
 // of the data; 0.5 is the cautious end.
 const DefaultBand = 0.5
 
-// ProfileLine is one well or nest: SI at each sampled depth (metres below
-// ground, or elevation when the profile's Elevation is set).
+// ProfileLine is one well or nest in one sampling round: SI at each
+// sampled depth (metres below ground, or elevation when the profile's
+// Elevation is set).
 type ProfileLine struct {
+	// Label names the line when the profile has no rounds (e.g. a nest).
 	Label string
+	// Round names the sampling round; lines of one round share a dash
+	// pattern and marker fill in every panel.
+	Round string
 	Depth []float64
 	SI    []float64
 	// Points draws the values as unconnected markers (e.g. single wells that
@@ -28,24 +33,32 @@ type ProfileLine struct {
 	Points bool
 }
 
-// ProfilePanel is one mineral's panel of a depth profile.
+// ProfilePanel is one mineral's panel of a depth profile. Panels with the
+// same Row (e.g. a well nest) form one row of the figure, minerals its
+// columns.
 type ProfilePanel struct {
 	Mineral string
+	Row     string
 	Lines   []ProfileLine
 }
 
-// DepthProfile is SI against depth, one panel per mineral side by side
-// sharing the depth axis, with depth increasing downward (or elevation
-// increasing upward when Elevation is set), a shaded near-equilibrium band
-// of half-width Band around SI = 0 (0: DefaultBand; negative: none), a
-// vertical line at SI = 0, and one line with markers per well or nest. A
-// label keeps the same colour, dash and marker in every panel.
+// DepthProfile is SI against depth: one column per mineral and one row per
+// distinct panel Row, sharing the depth axis, with depth increasing
+// downward (or elevation increasing upward when Elevation is set), a
+// shaded near-equilibrium band of half-width Band around SI = 0 (0:
+// DefaultBand; negative: none) and a vertical line at SI = 0. Every mark of
+// a panel takes its mineral's colour and marker (MineralStyle); the lines
+// of a panel differ by round (or, without rounds, by label) in dash pattern
+// and marker fill, the latest round solid and filled, earlier rounds
+// dashed and lighter. The legend shows the rounds once for the figure.
 type DepthProfile struct {
 	Title, Caption string
 	Panels         []ProfilePanel
 	Band           float64
 	Elevation      bool
-	DepthLabel     string // default "Depth (m)" or "Elevation (m)"
+	DepthLabel     string // default "Depth below ground (m)" or "Elevation (m)"
+	// Rounds orders the rounds, earliest first (nil: as first met).
+	Rounds []string
 }
 
 // Skipped counts the (depth, SI) pairs left out because one of them is not
@@ -78,7 +91,7 @@ func (d DepthProfile) band() float64 {
 type flipTicks struct{ hideLabels bool }
 
 func (f flipTicks) Ticks(min, max float64) []plot.Tick {
-	ts := niceTicks{n: 7}.Ticks(-max, -min)
+	ts := niceTicks{n: 4}.Ticks(-max, -min)
 	for i := range ts {
 		ts[i].Value = -ts[i].Value
 		if f.hideLabels {
@@ -113,22 +126,70 @@ func (t siTicks) Ticks(min, max float64) []plot.Tick {
 
 type xyPoint struct{ x, y float64 }
 
+// roundDashes are the dash patterns of the rounds, latest first: solid,
+// dashed, dotted, dash-dot.
+var roundDashes = [][]vg.Length{nil, {6, 3}, {1.5, 2.5}, {7, 2.5, 1.5, 2.5}, {12, 3}, {3, 3}}
+
+// roundStyle is the style of round k of n (k = n-1 the latest) in a panel
+// of style base: a dash pattern, and a marker fill from the full colour
+// (latest) to a light tint (earliest).
+func roundStyle(base seriesStyle, k, n int) (seriesStyle, color.Color) {
+	age := n - 1 - k
+	st := base.withDashes(roundDashes[age%len(roundDashes)])
+	fill := color.Color(base.color)
+	if n > 1 && age > 0 {
+		fill = lighter(base.color, 0.25+0.6*float64(age)/float64(n-1))
+	}
+	return st, fill
+}
+
+func (d DepthProfile) depthLabel() string {
+	switch {
+	case d.DepthLabel != "":
+		return d.DepthLabel
+	case d.Elevation:
+		return "Elevation (m)"
+	}
+	return "Depth below ground (m)"
+}
+
 // Draw draws the profile on c.
 func (d DepthProfile) Draw(c draw.Canvas) error {
 	band := d.band()
-	styles := map[string]int{}
-	var legend []legendEntry
-	type panelData struct {
-		title  string
-		lines  []plotter.XYs
-		idx    []int
-		points []bool
+	type lineData struct {
+		xys    plotter.XYs
+		key    string
+		points bool
 	}
+	type panelData struct {
+		mineral, row string
+		lines        []lineData
+	}
+	// Lines are keyed by round, or by label when no line has a round.
+	byRound := false
+	for _, p := range d.Panels {
+		for _, l := range p.Lines {
+			byRound = byRound || l.Round != ""
+		}
+	}
+	var keys []string
+	keyIdx := map[string]int{}
+	used := map[string]bool{} // keys with a line: the only ones in the legend
+	if byRound {
+		for _, r := range d.Rounds {
+			if _, ok := keyIdx[r]; !ok {
+				keyIdx[r] = len(keys)
+				keys = append(keys, r)
+			}
+		}
+	}
+	var rows, cols []string
+	rowIdx, colIdx := map[string]int{}, map[string]int{}
 	var pds []panelData
 	y0, y1 := math.Inf(1), math.Inf(-1)
-	any := false
+	anyPoint := false
 	for pi, p := range d.Panels {
-		pd := panelData{title: p.Mineral}
+		pd := panelData{mineral: p.Mineral, row: p.Row}
 		for li, l := range p.Lines {
 			if len(l.Depth) != len(l.SI) {
 				return fmt.Errorf("%w: profile panel %d (%s) line %d (%s): %d depths but %d SI values", ErrInput, pi+1, p.Mineral, li+1, l.Label, len(l.Depth), len(l.SI))
@@ -152,25 +213,51 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 			for i, q := range pts {
 				xys[i].X, xys[i].Y = q.x, q.y
 			}
-			k, ok := styles[l.Label]
-			if !ok {
-				k = len(styles)
-				styles[l.Label] = k
-				name := l.Label
-				if name == "" {
-					name = fmt.Sprintf("line %d", k+1)
-				}
-				legend = append(legend, styleFor(k).legend(name))
+			key := l.Label
+			if byRound {
+				key = l.Round
 			}
-			pd.lines = append(pd.lines, xys)
-			pd.idx = append(pd.idx, k)
-			pd.points = append(pd.points, l.Points)
-			any = true
+			if _, ok := keyIdx[key]; !ok {
+				keyIdx[key] = len(keys)
+				keys = append(keys, key)
+			}
+			pd.lines = append(pd.lines, lineData{xys, key, l.Points})
+			used[key] = true
+			anyPoint = true
+		}
+		if _, ok := rowIdx[p.Row]; !ok {
+			rowIdx[p.Row] = len(rows)
+			rows = append(rows, p.Row)
+		}
+		if _, ok := colIdx[p.Mineral]; !ok {
+			colIdx[p.Mineral] = len(cols)
+			cols = append(cols, p.Mineral)
 		}
 		pds = append(pds, pd)
 	}
-	if !any {
+	if !anyPoint {
 		return fmt.Errorf("%w: depth profile %q has no finite (depth, SI) pair", ErrNoData, d.Title)
+	}
+	// Legend: one entry per round (or label), in neutral ink, latest solid.
+	var legend []legendEntry
+	ink := seriesStyle{line: draw.LineStyle{Color: inkColor, Width: 1.4}, color: inkColor, glyph: glyphCircle}
+	for k, key := range keys {
+		if !used[key] {
+			continue // a round this profile has no sample of
+		}
+		st, fill := roundStyle(ink, k, len(keys))
+		name := key
+		switch {
+		case name == "" && byRound:
+			name = "round not given"
+		case name == "":
+			name = fmt.Sprintf("line %d", k+1)
+		case byRound:
+			name = "round " + name
+		}
+		e := st.legend(name)
+		e.fill = fill
+		legend = append(legend, e)
 	}
 	if band > 0 {
 		legend = append(legend, legendEntry{label: fmt.Sprintf("near equilibrium (SI within ±%s)", formatNum(band, 2)), kind: legendPatch, fill: bandColor})
@@ -184,77 +271,105 @@ func (d DepthProfile) Draw(c draw.Canvas) error {
 	if !d.Elevation && y1 < 0 && -y1 < 0.25*(y1-y0) {
 		y1 = 0 // show the ground surface when the shallowest sample is near it
 	}
-
-	pg := newPage(c, d.Title, d.Caption, legend, "")
-	body, legTop, capTop := pg.layout(c)
-	row := make([]*plot.Plot, len(pds))
-	for i, pd := range pds {
-		p := newPlot()
-		p.X.Label.Text = "SI (log IAP/K)"
-		p.X.Tick.Marker = siTicks{n: 4}
-		// Show at least twice the band so the near-equilibrium strip reads as
-		// a strip, not as the background.
-		x0, x1 := -2*band, 2*band
+	// One SI range for every panel, so columns and rows compare.
+	x0, x1 := -2*band, 2*band
+	for _, pd := range pds {
 		for _, l := range pd.lines {
-			for _, q := range l {
+			for _, q := range l.xys {
 				x0, x1 = math.Min(x0, q.X), math.Max(x1, q.X)
 			}
 		}
-		x0, x1 = math.Min(x0, -0.25), math.Max(x1, 0.25)
-		xp := 0.08 * (x1 - x0)
+	}
+	x0, x1 = math.Min(x0, -0.25), math.Max(x1, 0.25)
+	xp := 0.08 * (x1 - x0)
+
+	pg := newPage(c, d.Title, d.Caption, legend, "")
+	body, legTop, capTop := pg.layout(c)
+	grid := make([][]*plot.Plot, len(rows))
+	for r := range grid {
+		grid[r] = make([]*plot.Plot, len(cols))
+	}
+	mk := func(r, col int) *plot.Plot {
+		p := newPlot()
 		p.X.Min, p.X.Max = x0-xp, x1+xp
+		p.Y.Min, p.Y.Max = y0, y1
 		if band > 0 {
-			poly, err := plotter.NewPolygon(plotter.XYs{{X: -band, Y: y0}, {X: band, Y: y0}, {X: band, Y: y1}, {X: -band, Y: y1}})
-			if err != nil {
-				return err
-			}
+			poly, _ := plotter.NewPolygon(plotter.XYs{{X: -band, Y: y0}, {X: band, Y: y0}, {X: band, Y: y1}, {X: -band, Y: y1}})
 			poly.Color = bandColor
 			poly.LineStyle.Width = 0
 			p.Add(poly)
 		}
-		zero, err := plotter.NewLine(plotter.XYs{{X: 0, Y: y0}, {X: 0, Y: y1}})
-		if err != nil {
-			return err
-		}
-		zero.LineStyle = draw.LineStyle{Color: inkColor, Width: 0.9}
-		p.Add(zero)
-		for j, l := range pd.lines {
-			p.Add(&seriesPlotter{xys: l, st: styleFor(pd.idx[j]), glyphs: true, noLine: pd.points[j]})
-		}
-		p.X.Min, p.X.Max = x0-xp, x1+xp
-		p.Y.Min, p.Y.Max = y0, y1
+		p.Add(&vline{x: 0, y0: y0, y1: y1, st: draw.LineStyle{Color: inkColor, Width: 0.9}})
+		// Every panel carries its own SI axis, ticks and title: panels then
+		// align exactly, and each reads on its own.
+		p.X.Tick.Marker = siTicks{n: 2}
+		p.X.Label.Text = "SI\n(log IAP/K)" // two short lines: a title wider than the panel would shrink it
 		if d.Elevation {
-			if i > 0 {
+			if col > 0 {
 				p.Y.Tick.Marker = hiddenTicks{}
 			}
 		} else {
-			p.Y.Tick.Marker = flipTicks{hideLabels: i > 0}
+			p.Y.Tick.Marker = flipTicks{hideLabels: col > 0}
 		}
-		if i == 0 {
-			p.Y.Label.Text = d.DepthLabel
-			if p.Y.Label.Text == "" {
-				p.Y.Label.Text = "Depth (m)"
-				if d.Elevation {
-					p.Y.Label.Text = "Elevation (m)"
-				}
+		if col == 0 {
+			p.Y.Label.Text = d.depthLabel()
+			if rows[r] != "" {
+				p.Y.Label.Text = rows[r] + "\n" + p.Y.Label.Text
 			}
 		}
-		row[i] = p
+		return p
 	}
-	// Panel titles are drawn above the aligned data areas, so that they
-	// line up whatever the tick labels of each panel need.
+	for _, pd := range pds {
+		r, col := rowIdx[pd.row], colIdx[pd.mineral]
+		if grid[r][col] == nil {
+			grid[r][col] = mk(r, col)
+		}
+		base := mineralSeriesStyle(pd.mineral)
+		for _, l := range pd.lines {
+			st, fill := roundStyle(base, keyIdx[l.key], len(keys))
+			grid[r][col].Add(&seriesPlotter{xys: l.xys, st: st, fill: fill, glyphs: true, noLine: l.points})
+		}
+	}
+	for r := range grid {
+		for col := range grid[r] {
+			if grid[r][col] == nil {
+				grid[r][col] = mk(r, col) // an empty panel keeps the grid aligned
+			}
+		}
+	}
+	// Column titles (mineral, with its marker) above the aligned data areas.
 	tsty := textStyle(sizeLabel)
 	body.Max.Y -= lineHeight(tsty) + 2
-	tiles := draw.Tiles{Rows: 1, Cols: len(row), PadX: 8}
-	cs := plot.Align([][]*plot.Plot{row}, tiles, body)
+	tiles := draw.Tiles{Rows: len(rows), Cols: len(cols), PadX: 8, PadY: 6}
+	cs := plot.Align(grid, tiles, body)
 	tsty.XAlign, tsty.YAlign = draw.XCenter, draw.YBottom
-	for i, p := range row {
-		p.Draw(cs[0][i])
-		da := p.DataCanvas(cs[0][i])
-		c.FillText(tsty, vg.Point{X: (da.Min.X + da.Max.X) / 2, Y: da.Max.Y + 4}, pds[i].title)
+	for r := range grid {
+		for col, p := range grid[r] {
+			p.Draw(cs[r][col])
+			if r > 0 {
+				continue
+			}
+			da := p.DataCanvas(cs[r][col])
+			st := mineralSeriesStyle(cols[col])
+			cx := (da.Min.X + da.Max.X) / 2
+			tw := tsty.Width(cols[col])
+			c.FillText(tsty, vg.Point{X: cx + 5, Y: da.Max.Y + 4}, cols[col])
+			drawGlyph(c, st.glyph, vg.Point{X: cx + 5 - tw/2 - 7, Y: da.Max.Y + 4 + tsty.Height(cols[col])/2 - 1}, 3, st.color, inkColor, 0.4)
+		}
 	}
 	pg.draw(c, legTop, capTop)
 	return nil
+}
+
+// vline is a vertical line from y0 to y1 at x.
+type vline struct {
+	x, y0, y1 float64
+	st        draw.LineStyle
+}
+
+func (v *vline) Plot(c draw.Canvas, p *plot.Plot) {
+	tx, ty := p.Transforms(&c)
+	c.StrokeLine2(v.st, tx(v.x), ty(v.y0), tx(v.x), ty(v.y1))
 }
 
 var bandColor = color.NRGBA{R: 0xdd, G: 0xdd, B: 0xdd, A: 0xff}
@@ -264,6 +379,7 @@ var bandColor = color.NRGBA{R: 0xdd, G: 0xdd, B: 0xdd, A: 0xff}
 type seriesPlotter struct {
 	xys    plotter.XYs
 	st     seriesStyle
+	fill   color.Color // marker fill; nil: the series colour
 	glyphs bool
 	noLine bool // markers only (unconnected points)
 }
@@ -280,7 +396,14 @@ func (s *seriesPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 	if s.glyphs {
 		for _, pt := range pts {
 			if c.Contains(pt) {
-				drawGlyph(c, s.st.glyph, pt, 2.8, s.st.color, color.White, 0.4)
+				fill, outline := s.fill, color.Color(color.White)
+				if fill == nil {
+					fill = s.st.color
+				}
+				if fill != s.st.color {
+					outline = s.st.color // a light fill keeps a coloured rim
+				}
+				drawGlyph(c, s.st.glyph, pt, 2.8, fill, outline, 0.6)
 			}
 		}
 	}

@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"image"
 	"image/color"
+	"image/png"
+	"io"
 	"math"
 	"strings"
 
@@ -67,7 +69,7 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 	var cw vg.CanvasWriterTo
 	switch strings.ToLower(format) {
 	case "png":
-		cw = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(PNGDPI))}
+		cw = fastPNG{vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(PNGDPI))}
 	case "svg":
 		cw = vgsvg.NewWith(vgsvg.UseWH(width, height), vgsvg.EmbedFonts(true))
 	case "pdf":
@@ -90,6 +92,28 @@ func Render(f Figure, format string, width, height vg.Length) (out []byte, err e
 		return nil, fmt.Errorf("figure: encoding %s: %w", format, err)
 	}
 	return buf.Bytes(), nil
+}
+
+// fastPNG encodes with zlib's fastest level: a report figure at 300 dpi
+// encodes about twice as fast as at the default level, for files a little
+// larger (measured with BenchmarkRenderSIMapsThreePanelsPNG).
+type fastPNG struct{ *vgimg.Canvas }
+
+func (c fastPNG) WriteTo(w io.Writer) (int64, error) {
+	cw := &countWriter{w: w}
+	err := (&png.Encoder{CompressionLevel: png.BestSpeed}).Encode(cw, c.Image())
+	return cw.n, err
+}
+
+type countWriter struct {
+	w io.Writer
+	n int64
+}
+
+func (c *countWriter) Write(p []byte) (int, error) {
+	n, err := c.w.Write(p)
+	c.n += int64(n)
+	return n, err
 }
 
 // Panels tiles figs on one page, cols to a row (cols < 1 means one row), in
@@ -134,6 +158,24 @@ func (ps panels) Draw(c draw.Canvas) error {
 // "Â±". Images are therefore flipped before drawing, and text is converted
 // to code page 1252 (pdfText).
 type pdfCanvas struct{ *vgpdf.Canvas }
+
+// SetColor lays a translucent colour over white: the PDF backend takes
+// the premultiplied components as the colour and drops alpha, so a white
+// label halo at 85 % opacity came out mid-grey. Over white is what the
+// PNG shows wherever the halo lies on paper.
+func (c pdfCanvas) SetColor(col color.Color) {
+	if col == nil {
+		c.Canvas.SetColor(col)
+		return
+	}
+	r, g, b, a := col.RGBA()
+	if a == 0xffff {
+		c.Canvas.SetColor(col)
+		return
+	}
+	over := func(v uint32) uint8 { return uint8((v + (0xffff - a)) >> 8) }
+	c.Canvas.SetColor(color.NRGBA{R: over(r), G: over(g), B: over(b), A: 0xff})
+}
 
 func (c pdfCanvas) DrawImage(rect vg.Rectangle, img image.Image) {
 	c.Canvas.DrawImage(rect, flipVertical(img))

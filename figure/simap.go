@@ -3,7 +3,6 @@ package figure
 import (
 	"fmt"
 	"math"
-	"strings"
 
 	"gonum.org/v1/plot/vg/draw"
 )
@@ -94,16 +93,25 @@ type Well struct {
 
 // Feature is a site feature: Kind FeaturePolygon (a ring, e.g. the site
 // boundary), FeatureLine (e.g. a river) or FeaturePoint (labelled with Name).
+// Class (ClassBoundary, ClassRiver, ClassPipeline, ClassInjectionWell or
+// any other word) chooses its look, one line style per class.
 type Feature struct {
 	Kind   string
+	Class  string
 	Name   string
 	Coords [][2]float64
 }
 
 // SIMap is a map of one mineral's saturation index: the interpolated
-// surface, the SI = 0 equilibrium contour, wells coloured by their SI with
-// their ids, site features, a colour bar, a scale bar and a north arrow.
-// Coordinates are in Units (UnitsMetres, the default, or UnitsDegrees); the
+// surface (when given) with its near-equilibrium zone |SI| <= Band hatched
+// and edged by thin grey lines, wells coloured by their SI with their ids
+// (and values, when PostValues is set), site features, a colour bar, a
+// scale bar and a north arrow. No SI = 0 line is drawn: within the band the
+// sign of SI is not decided by the data, and the hatched zone says so
+// where a single line would claim a precision the data do not have.
+// The map frame holds the wells, the surface, site areas and points; site
+// lines are cut at the frame. Coordinates are in Units (UnitsMetres, the
+// default, or UnitsDegrees); the
 // map keeps an equal scale on both axes (for degrees, scaled by the cosine
 // of the mid latitude). The scale bar and north arrow refer to grid north
 // of the projected frame.
@@ -123,6 +131,28 @@ type SIMap struct {
 	NorthArrow bool
 	ScaleBar   bool
 	ColorLabel string // default DefaultColorLabel
+	// Band is the half-width of the near-equilibrium band in SI units (0:
+	// DefaultBand; negative: no band drawn).
+	Band float64
+	// Note is a short line under the panel title, e.g. how the surface was
+	// made or why none is drawn.
+	Note string
+	// PostValues writes each well's SI after its label (maps without a
+	// surface show the measured values themselves).
+	PostValues bool
+	// XLabel and YLabel title the axes (default "Easting (m)" and
+	// "Northing (m)", or longitude and latitude in degrees).
+	XLabel, YLabel string
+}
+
+func (m SIMap) band() float64 {
+	switch {
+	case m.Band < 0 || math.IsNaN(m.Band):
+		return 0
+	case m.Band == 0 || math.IsInf(m.Band, 0):
+		return DefaultBand
+	}
+	return m.Band
 }
 
 // Skipped counts the non-finite values left out of the map: grid cells
@@ -193,16 +223,18 @@ type mapState struct {
 	hasCells  bool
 	wells     []Well
 	features  []Feature
-	contour   [][][2]float64
+	band      float64
+	bandEdges [][][2]float64
 	ext       extent
 	noSI      bool
 	kinds     map[MarkerKind]bool
 	mPerUnitX float64 // metres per x unit, for the scale bar
 	aspectX   float64 // x units are drawn shorter by this factor (cos lat)
+	sbCorner  int     // scale bar corner: bit 0 right, bit 1 top
 }
 
 func (m SIMap) prepare() (*mapState, error) {
-	s := &mapState{m: m, lim: m.ColorLimit(), kinds: map[MarkerKind]bool{}}
+	s := &mapState{m: m, lim: m.ColorLimit(), kinds: map[MarkerKind]bool{}, band: m.band()}
 	s.scale = Diverging{Limit: s.lim}
 	s.ext = extent{math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)}
 	if m.Units != "" && m.Units != UnitsMetres && m.Units != UnitsDegrees {
@@ -222,8 +254,8 @@ func (m SIMap) prepare() (*mapState, error) {
 				s.ext.add(x+g.DX/2, y+g.DY/2)
 			}
 		}
-		if s.hasCells {
-			s.contour = zeroContour(g)
+		if s.hasCells && s.band > 0 {
+			s.bandEdges = append(contourAt(g, s.band), contourAt(g, -s.band)...)
 		}
 	}
 	for _, w := range m.Wells {
@@ -259,10 +291,15 @@ func (m SIMap) prepare() (*mapState, error) {
 		default:
 			return nil, fmt.Errorf("%w: feature %q has kind %q (want polygon, line or point)", ErrInput, f.Name, f.Kind)
 		}
+		// Lines (rivers, pipelines) may run far beyond the wells: they are
+		// cut at the map frame instead of widening it.
 		for _, p := range cs {
+			if f.Kind == FeatureLine {
+				break
+			}
 			s.ext.add(p[0], p[1])
 		}
-		s.features = append(s.features, Feature{Kind: f.Kind, Name: f.Name, Coords: cs})
+		s.features = append(s.features, Feature{Kind: f.Kind, Class: f.Class, Name: f.Name, Coords: cs})
 	}
 	s.mPerUnitX, s.aspectX = 1, 1
 	if m.degrees() {
@@ -294,50 +331,9 @@ func (m SIMap) prepare() (*mapState, error) {
 	return s, nil
 }
 
-// Draw draws the map on c.
+// Draw draws the map on c: a figure of one panel.
 func (m SIMap) Draw(c draw.Canvas) error {
-	s, err := m.prepare()
-	if err != nil {
-		return err
-	}
-	caption := m.Caption
-	if m.HasCV && finite(m.CVRMSE) {
-		if caption != "" {
-			caption += " "
-		}
-		caption += fmt.Sprintf("Surface cross-validation (leave-one-out) RMSE: %s SI units.", formatNum(m.CVRMSE, 2))
-	}
-	legend := s.legend()
-	note := ""
-	var lay mapLayout
-	for pass := 0; pass < 2; pass++ {
-		pg := newPage(c, m.Title, caption, legend, note)
-		body, legTop, capTop := pg.layout(c)
-		lay = s.layout(body)
-		lay.page, lay.legTop, lay.capTop = pg, legTop, capTop
-		var dropped []string
-		for i, p := range lay.places {
-			if !p.placed {
-				dropped = append(dropped, lay.texts[i])
-			}
-		}
-		if len(dropped) == 0 {
-			lay.page.legendNote = ""
-			break
-		}
-		msg := fmt.Sprintf("%d labels not shown where symbols crowd.", len(dropped))
-		if len(dropped) <= 6 {
-			msg = "Not labelled where symbols crowd: " + strings.Join(dropped, ", ") + "."
-		}
-		if note == "" {
-			note = msg
-			continue
-		}
-		lay.page.legendNote = msg
-		break
-	}
-	lay.p.Draw(lay.mapC)
-	drawColorBar(c, lay.cbarX, lay.da.Min.Y, lay.da.Max.Y, s.lim, s.colorLabel())
-	lay.page.draw(c, lay.legTop, lay.capTop)
-	return nil
+	one := m
+	one.Title = ""
+	return SIMaps{Title: m.Title, Caption: m.Caption, Maps: []SIMap{one}}.Draw(c)
 }

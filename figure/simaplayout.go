@@ -1,8 +1,11 @@
 package figure
 
 import (
+	"fmt"
 	"image/color"
 	"math"
+	"strconv"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
@@ -19,53 +22,37 @@ func (s *mapState) colorLabel() string {
 	return DefaultColorLabel
 }
 
+// wellFill is the legend fill of a well symbol whose colour shows SI.
+var wellFill = color.NRGBA{R: 0xbb, G: 0xbb, B: 0xbb, A: 0xff}
+
+// bandEdgeStyle edges the hatched near-equilibrium zone.
+var bandEdgeStyle = draw.LineStyle{Color: color.NRGBA{R: 0x55, G: 0x55, B: 0x55, A: 0xff}, Width: 0.6}
+
 func (s *mapState) legend() []legendEntry {
 	var es []legendEntry
 	for _, k := range []MarkerKind{MarkerWell, MarkerInjection, MarkerMonitoring, MarkerSpring} {
 		if s.kinds[k] {
-			es = append(es, legendEntry{label: markerNames[k], kind: legendGlyph, glyph: k.glyph(), fill: color.NRGBA{R: 0xbb, G: 0xbb, B: 0xbb, A: 0xff}})
+			es = append(es, legendEntry{label: markerNames[k] + " (fill: its SI)", kind: legendGlyph, glyph: k.glyph(), fill: wellFill})
 		}
 	}
 	if s.noSI {
 		es = append(es, legendEntry{label: "no SI value", kind: legendGlyph, glyph: glyphCircle, fill: color.White, cross: true})
 	}
-	if len(s.contour) > 0 {
-		es = append(es, legendEntry{label: "SI = 0 (equilibrium)", kind: legendLine, line: contourStyle, halo: true})
+	if s.hasCells && s.band > 0 {
+		es = append(es, bandLegend(s.band))
 	}
-	seen := map[string]bool{}
-	for _, f := range s.features {
-		if f.Kind == FeaturePoint || seen[f.Kind+"\x00"+f.Name] {
-			continue
-		}
-		seen[f.Kind+"\x00"+f.Name] = true
-		name := f.Name
-		if name == "" {
-			name = map[string]string{FeaturePolygon: "site feature", FeatureLine: "line feature"}[f.Kind]
-		}
-		e := legendEntry{label: name, kind: legendLine, line: featureStyle(f.Kind)}
-		if f.Kind == FeaturePolygon {
-			e.kind = legendPatch
-			e.fill = color.Transparent
-		}
-		es = append(es, e)
-	}
-	return es
+	return append(es, featureLegend(s.features)...)
 }
 
-var contourStyle = draw.LineStyle{Color: color.Black, Width: 1.3}
-
-func featureStyle(kind string) draw.LineStyle {
-	if kind == FeatureLine {
-		return draw.LineStyle{Color: color.NRGBA{R: 0x2b, G: 0x2b, B: 0x2b, A: 0xff}, Width: 1.1, Dashes: []vg.Length{5, 2, 1.5, 2}}
-	}
-	return draw.LineStyle{Color: color.NRGBA{R: 0x40, G: 0x40, B: 0x40, A: 0xff}, Width: 1.0, Dashes: []vg.Length{3, 1.5}}
+func bandLegend(band float64) legendEntry {
+	return legendEntry{label: fmt.Sprintf("near equilibrium, SI within ±%s (sign not decided)", formatNum(band, 2)),
+		kind: legendPatch, fill: color.NRGBA{R: 0xf4, G: 0xf4, B: 0xf4, A: 0xff}, hatch: true, line: bandEdgeStyle}
 }
 
 type mapLayout struct {
 	p      *plot.Plot
 	mapC   draw.Canvas
 	da     draw.Canvas
-	cbarX  vg.Length
 	places []labelPlacement
 	items  []labelItem
 	texts  []string
@@ -80,40 +67,42 @@ func colorBarWidth(lim float64) vg.Length {
 	return 10 + 9 + 3 + tw + 6 + lineHeight(textStyle(sizeSmall)) + 4 + lineHeight(textStyle(sizeLabel))
 }
 
-func (s *mapState) layout(body draw.Canvas) mapLayout {
+func (s *mapState) axisLabels() (string, string) {
+	x, y := "Easting (m)", "Northing (m)"
+	if s.m.degrees() {
+		x, y = "Longitude (°)", "Latitude (°)"
+	}
+	if s.m.XLabel != "" {
+		x = s.m.XLabel
+	}
+	if s.m.YLabel != "" {
+		y = s.m.YLabel
+	}
+	return x, y
+}
+
+// layout places the map in body (colour bar excluded). hideY drops the y
+// axis title (panels after the first in a row).
+func (s *mapState) layout(body draw.Canvas, hideY bool) mapLayout {
 	var lay mapLayout
 	mapC := body
-
-	mapC.Max.X -= colorBarWidth(s.lim)
 	p := newPlot()
-	if s.m.degrees() {
-		p.X.Label.Text, p.Y.Label.Text = "Longitude (°)", "Latitude (°)"
-	} else {
-		p.X.Label.Text, p.Y.Label.Text = "Easting (m)", "Northing (m)"
+	p.X.Label.Text, p.Y.Label.Text = s.axisLabels()
+	if hideY {
+		p.Y.Label.Text = ""
 	}
 	// As many x labels as fit side by side, about 1.6 label widths apart.
 	big := math.Max(math.Abs(s.ext.x0), math.Abs(s.ext.x1))
 	lw := float64(textStyle(sizeTick).Width(formatNum(big, 7)))
 	nx := int(float64(mapC.Max.X-mapC.Min.X-60) / (1.6 * lw))
 	ny := int(float64(mapC.Max.Y-mapC.Min.Y-30) / (3.5 * float64(lineHeight(textStyle(sizeTick)))))
-	p.X.Tick.Marker = niceTicks{n: min(max(nx, 2), 6)}
-	p.Y.Tick.Marker = niceTicks{n: min(max(ny, 2), 6)}
-	if s.hasCells {
-		p.Add(gridImage(s.grid, s.scale))
-	}
-	if len(s.features) > 0 {
-		p.Add(&featurePlotter{s.features})
-	}
-	if len(s.contour) > 0 {
-		p.Add(&contourPlotter{s.contour})
-	}
-	ov := &overlay{s: s, lay: &lay}
-	p.Add(ov)
+	p.X.Tick.Marker = innerTicks{niceTicks{n: min(max(nx, 2), 6)}, 0.06}
+	p.Y.Tick.Marker = innerTicks{niceTicks{n: min(max(ny, 2), 6)}, 0.03}
 	x0, x1, y0, y1 := s.ext.x0, s.ext.x1, s.ext.y0, s.ext.y1
 	// Equal scale: expand the shorter range until one unit (scaled by
-	// aspectX along x) takes the same length on both axes. Two passes, as
-	// tick labels change the data area a little.
-	for pass := 0; pass < 3; pass++ {
+	// aspectX along x) takes the same length on both axes. Several passes,
+	// as tick labels change the data area a little.
+	for pass := 0; pass < 8; pass++ {
 		p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
 		da := p.DataCanvas(mapC)
 		w, h := float64(da.Max.X-da.Min.X), float64(da.Max.Y-da.Min.Y)
@@ -124,18 +113,32 @@ func (s *mapState) layout(body draw.Canvas) mapLayout {
 		uy := (s.ext.y1 - s.ext.y0) / h
 		u := math.Max(ux, uy)
 		cx, cy := (s.ext.x0+s.ext.x1)/2, (s.ext.y0+s.ext.y1)/2
-		x0, x1 = cx-u*w/s.aspectX/2, cx+u*w/s.aspectX/2
-		y0, y1 = cy-u*h/2, cy+u*h/2
+		nx0, nx1 := cx-u*w/s.aspectX/2, cx+u*w/s.aspectX/2
+		ny0, ny1 := cy-u*h/2, cy+u*h/2
+		stable := math.Abs(nx1-nx0-(x1-x0)) < 1e-4*(x1-x0) && math.Abs(ny1-ny0-(y1-y0)) < 1e-4*(y1-y0)
+		x0, x1, y0, y1 = nx0, nx1, ny0, ny1
+		if stable && pass > 0 {
+			break
+		}
 	}
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
 	lay.p, lay.mapC = p, mapC
 	lay.da = p.DataCanvas(mapC)
-	lay.cbarX = lay.da.Max.X + 10
+	if s.hasCells {
+		p.Add(&surfacePlotter{g: s.grid, sc: s.scale, band: s.band})
+	}
+	if len(s.bandEdges) > 0 {
+		p.Add(&contourPlotter{lines: s.bandEdges, st: bandEdgeStyle})
+	}
+	if len(s.features) > 0 {
+		p.Add(&featurePlotter{s.features})
+	}
+	p.Add(&overlay{s: s, lay: &lay})
 	lay.items, lay.texts, lay.places = s.placeLabels(p, lay.da)
 	return lay
 }
 
-var wellLabelStyle = textStyle(7.5)
+var wellLabelStyle = textStyle(sizeSmall)
 
 const wellRadius = 3.4
 
@@ -164,8 +167,16 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 			obstacles = append(obstacles, vg.Rectangle{Min: vg.Point{X: pt.X - wellRadius, Y: pt.Y - wellRadius}, Max: vg.Point{X: pt.X + wellRadius, Y: pt.Y + wellRadius}})
 			continue
 		}
-		items = append(items, labelItem{anchor: pt, r: wellRadius, w: wellLabelStyle.Width(w.Label) + 2, h: wellLabelStyle.Height(w.Label) + 1})
-		texts = append(texts, w.Label)
+		t := w.Label
+		if s.m.PostValues {
+			if finite(w.SI) {
+				t += " " + fixedSigned(w.SI)
+			} else {
+				t += " (no SI)"
+			}
+		}
+		items = append(items, labelItem{anchor: pt, r: wellRadius, w: wellLabelStyle.Width(t) + 2, h: wellLabelStyle.Height(t) + 1})
+		texts = append(texts, t)
 	}
 	for _, f := range s.features {
 		if f.Kind != FeaturePoint {
@@ -174,6 +185,7 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 		for _, c := range f.Coords {
 			pt := vg.Point{X: tx(c[0]), Y: ty(c[1])}
 			if f.Name == "" {
+				obstacles = append(obstacles, vg.Rectangle{Min: vg.Point{X: pt.X - 3, Y: pt.Y - 3}, Max: vg.Point{X: pt.X + 3, Y: pt.Y + 3}})
 				continue
 			}
 			items = append(items, labelItem{anchor: pt, r: 3, w: wellLabelStyle.Width(f.Name) + 2, h: wellLabelStyle.Height(f.Name) + 1})
@@ -181,6 +193,23 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 		}
 	}
 	if s.m.ScaleBar {
+		// The corner (bottom left, bottom right, top left) whose scale bar
+		// covers the fewest wells; the north arrow holds the top right.
+		best, bestN := 0, len(s.wells)+1
+		for _, corner := range []int{0, 1, 2} {
+			s.sbCorner = corner
+			r := s.scaleBarRect(p, da)
+			n := 0
+			for _, w := range s.wells {
+				if overlaps(r, grow(vg.Rectangle{Min: vg.Point{X: tx(w.X), Y: ty(w.Y)}, Max: vg.Point{X: tx(w.X), Y: ty(w.Y)}}, wellRadius)) {
+					n++
+				}
+			}
+			if n < bestN {
+				best, bestN = corner, n
+			}
+		}
+		s.sbCorner = best
 		obstacles = append(obstacles, s.scaleBarRect(p, da))
 	}
 	if s.m.NorthArrow {
@@ -188,4 +217,35 @@ func (s *mapState) placeLabels(p *plot.Plot, da draw.Canvas) ([]labelItem, []str
 	}
 	bounds := da.Rectangle
 	return items, texts, placeLabels(items, obstacles, bounds)
+}
+
+// fixedSigned prints an SI with a sign and two decimals (a true minus).
+func fixedSigned(v float64) string {
+	s := strconv.FormatFloat(v, 'f', 2, 64)
+	if s == "-0.00" {
+		return "0.00" // no signed zero
+	}
+	if v >= 0 && s != "0.00" {
+		s = "+" + s
+	}
+	return strings.Replace(s, "-", "\u2212", 1)
+}
+
+// innerTicks drops the labels of ticks within frac of the axis ends, so no
+// label hangs over the end of the axis: the plotting library would shrink
+// the data area for it, which breaks the equal scale of a map.
+type innerTicks struct {
+	m    plot.Ticker
+	frac float64
+}
+
+func (t innerTicks) Ticks(min, max float64) []plot.Tick {
+	ts := t.m.Ticks(min, max)
+	d := t.frac * (max - min)
+	for i := range ts {
+		if ts[i].Value < min+d || ts[i].Value > max-d {
+			ts[i].Label = ""
+		}
+	}
+	return ts
 }

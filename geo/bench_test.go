@@ -1,6 +1,7 @@
 package geo
 
 import (
+	"io"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -65,5 +66,22 @@ func BenchmarkDistance(b *testing.B) {
 	p, q := orb.Point{-101.15, 31.9}, orb.Point{-101.14, 31.905}
 	for b.Loop() {
 		Distance(p, q)
+	}
+}
+
+// A 200 x 200 float32 GeoTIFF and the equilibrium layers of its grid.
+func BenchmarkWriteGeoTIFF200x200(b *testing.B) {
+	pts, vals := benchWells()
+	s, err := InterpolateIDW(pts, vals, GridOptions{NX: 200, NY: 200}, IDWOptions{})
+	if err != nil {
+		b.Fatal(err)
+	}
+	r := RasterFromGrid(s.Grid, 32633)
+	for b.Loop() {
+		if err := WriteGeoTIFF(io.Discard, r); err != nil {
+			b.Fatal(err)
+		}
+		_ = Isolines(s.Grid, 0)
+		_ = BandCells(s.Grid, -0.5, 0.5)
 	}
 }

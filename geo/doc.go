@@ -51,7 +51,19 @@
 // and name, naming the feature index in any FeatureError. WriteSamples writes
 // samples as RFC 7946 Point features with properties in the caller's order,
 // coordinates rounded to 1e-6 degree, NaN values as null and unusable
-// positions as null geometry.
+// positions as null geometry. WriteShapes writes lines and polygons (e.g. an
+// SI = 0 line from Isolines, a near-equilibrium zone from BandCells, site
+// features) the same way, refusing non-finite coordinates and turning
+// exterior rings counter-clockwise (RFC 7946 sec. 3.1.6).
+//
+// # GeoTIFF
+//
+// WriteGeoTIFF writes a Raster (north-up, float32, a projected EPSG code) as
+// a baseline TIFF 6.0 with the GeoTIFF 1.1 (OGC 19-008r4, 2019) tags
+// ModelPixelScale, ModelTiepoint and GeoKeyDirectory; empty cells hold
+// GeoTIFFNoData. RasterFromGrid takes a grid already in the raster's CRS
+// cell for cell; ResampleToCRS moves a LocalFrame grid into a UTM zone by
+// nearest neighbour.
 //
 // Surfaces, maps and distances here are for screening, not design; defer to
 // local codes and licensed professionals.

@@ -1,7 +1,9 @@
 package geo_test
 
 import (
+	"bytes"
 	"fmt"
+	"math"
 	"os"
 	"strings"
 
@@ -140,4 +142,23 @@ func ExampleReadSiteFeatures() {
 	// Output:
 	// 0 boundary Invented site Polygon
 	// 1 injection_well IW-1 Point
+}
+
+// A 2 x 2 grid in UTM zone 33N (EPSG:32633) written as a float32 GeoTIFF;
+// the empty cell holds the no-data value.
+func ExampleWriteGeoTIFF() {
+	g := &geo.Grid{X0: 500050, Y0: 4200050, DX: 100, DY: 100, NX: 2, NY: 2,
+		Values: []float64{0.4, -0.2, math.NaN(), 0.1}, Mask: []bool{true, true, false, true}}
+	r := geo.RasterFromGrid(g, 32633)
+	fmt.Printf("west %.0f north %.0f, %d x %d cells of %.0f m\n", r.West, r.North, r.Cols, r.Rows, r.PixelW)
+	var buf bytes.Buffer
+	if err := geo.WriteGeoTIFF(&buf, r); err != nil {
+		fmt.Println(err)
+		return
+	}
+	// 8-byte header, 15 tags, their values, then 4 cells of 4 bytes.
+	fmt.Println(buf.Len() > 8+2+15*12+4+16, string(buf.Bytes()[:2]))
+	// Output:
+	// west 500000 north 4200200, 2 x 2 cells of 100 m
+	// true II
 }

@@ -29,17 +29,22 @@ func clusterOf(s *hydro.Sample, column string) string {
 	return ""
 }
 
-// profiles draws SI against depth per well cluster, one line per nest
-// (wells within 10 m of each other), for one sampling round.
+// profiles draws SI against depth per well cluster: one row of panels per
+// nest (wells within 10 m of each other), one column per mineral, every
+// sampling round in each panel (rounds told apart by dash and marker fill).
+// Options.ProfileRound, when set, keeps one round only.
 func profiles(placed []placedRec, minerals, rounds []string, opt Options) []report.Fig {
-	round := opt.ProfileRound
-	if round == "" && len(rounds) > 0 {
-		round = rounds[len(rounds)-1]
+	if opt.ProfileRound != "" {
+		rounds = []string{opt.ProfileRound}
+	}
+	inRounds := map[string]bool{}
+	for _, r := range rounds {
+		inRounds[r] = true
 	}
 	byCluster := map[string][]placedRec{}
 	var order []string
 	for _, p := range placed {
-		if !p.hasD || p.rec.Sample().Round != round {
+		if !p.hasD || !inRounds[p.rec.Sample().Round] {
 			continue
 		}
 		c := clusterOf(p.rec.Sample(), opt.ClusterColumn)
@@ -53,33 +58,26 @@ func profiles(placed []placedRec, minerals, rounds []string, opt Options) []repo
 	for _, c := range order {
 		nests := nestsOf(byCluster[c])
 		var panels []figure.ProfilePanel
-		for _, m := range minerals {
-			pp := figure.ProfilePanel{Mineral: m}
-			// Wells standing alone (not in a nest) share one series of
-			// unconnected markers: a line between different wells would
-			// suggest a profile that was never sampled.
-			singles := figure.ProfileLine{Label: "single wells", Points: true}
-			for _, n := range nests {
-				line := figure.ProfileLine{Label: n.label}
-				sort.Slice(n.members, func(i, j int) bool { return n.members[i].depth < n.members[j].depth })
-				for _, p := range n.members {
-					if si, ok := p.rec.Result.SI(m); ok {
-						line.Depth = append(line.Depth, p.depth)
-						line.SI = append(line.SI, si)
-					}
-				}
-				switch {
-				case len(n.members) == 1:
-					singles.Depth = append(singles.Depth, line.Depth...)
-					singles.SI = append(singles.SI, line.SI...)
-				case len(line.Depth) > 0:
-					pp.Lines = append(pp.Lines, line)
-				}
+		nRows := 0
+		// Wells standing alone (not in a nest) share one row of unconnected
+		// markers: a line between different wells would suggest a profile
+		// that was never sampled.
+		var singles []placedRec
+		for _, n := range nests {
+			if len(distinctWells(n.members)) == 1 {
+				singles = append(singles, n.members...)
+				continue
 			}
-			if len(singles.Depth) > 0 {
-				pp.Lines = append(pp.Lines, singles)
+			nRows++
+			for _, m := range minerals {
+				panels = append(panels, figure.ProfilePanel{Mineral: m, Row: "nest " + n.label, Lines: roundLines(n.members, m, rounds, false)})
 			}
-			panels = append(panels, pp)
+		}
+		if len(singles) > 0 {
+			nRows++
+			for _, m := range minerals {
+				panels = append(panels, figure.ProfilePanel{Mineral: m, Row: "single wells", Lines: roundLines(singles, m, rounds, true)})
+			}
 		}
 		name := c
 		if name == "" {
@@ -89,19 +87,59 @@ func profiles(placed []placedRec, minerals, rounds []string, opt Options) []repo
 		if c == "" {
 			title = "All wells"
 		}
-		if round != "" {
-			title += ", round " + round
+		if len(rounds) == 1 && rounds[0] != "" {
+			title += ", round " + rounds[0]
 		}
+		// 16.5 cm wide: a full A4 text width at 100 % (21 cm less margins).
 		figs = append(figs, report.Fig{
 			Stem:  "profile_" + slug(name),
 			Title: title,
-			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle), one line per well nest (wells within 10 m of each other), single wells as unconnected markers; shaded: near-equilibrium band SI within +/-%.1f (common practice); %s model.",
+			Caption: fmt.Sprintf("Saturation index against depth below ground (screen middle): one row per well nest (wells within 10 m of each other), single wells as unconnected markers; each mineral in its own colour and marker; sampling rounds by dash pattern and marker fill (latest solid and filled). Shaded: near-equilibrium band SI within ±%.1f (common practice); %s model.",
 				figure.DefaultBand, opt.Model),
-			Figure: figure.DepthProfile{Title: title, Panels: panels},
-			W:      vg.Length(len(panels))*5*vg.Centimeter + 3*vg.Centimeter, H: 11 * vg.Centimeter,
+			Figure: figure.DepthProfile{Title: title, Panels: panels, Rounds: rounds},
+			W:      16.5 * vg.Centimeter, H: max(vg.Length(nRows)*4.5+3.5, 9) * vg.Centimeter,
 		})
 	}
 	return figs
+}
+
+// distinctWells returns the well labels of ps, each once.
+func distinctWells(ps []placedRec) []string {
+	seen := map[string]bool{}
+	var out []string
+	for _, p := range ps {
+		l := wellLabel(p.rec.Sample())
+		if !seen[l] {
+			seen[l] = true
+			out = append(out, l)
+		}
+	}
+	return out
+}
+
+// roundLines returns one profile line per round of mineral m's SI with depth.
+func roundLines(ps []placedRec, m string, rounds []string, points bool) []figure.ProfileLine {
+	var out []figure.ProfileLine
+	for _, rd := range rounds {
+		line := figure.ProfileLine{Round: rd, Points: points}
+		var sel []placedRec
+		for _, p := range ps {
+			if p.rec.Sample().Round == rd {
+				sel = append(sel, p)
+			}
+		}
+		sort.SliceStable(sel, func(i, j int) bool { return sel[i].depth < sel[j].depth })
+		for _, p := range sel {
+			if si, ok := p.rec.Result.SI(m); ok {
+				line.Depth = append(line.Depth, p.depth)
+				line.SI = append(line.SI, si)
+			}
+		}
+		if len(line.Depth) > 0 {
+			out = append(out, line)
+		}
+	}
+	return out
 }
 
 type nest struct {

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"github.com/paulmach/orb"
+	"github.com/paulmach/orb/project"
 	"gonum.org/v1/plot/vg"
 
 	"gwsat.dev/gwsat/assess"
@@ -22,16 +23,16 @@ type Options struct {
 	// Minerals to map and profile; nil chooses those whose SI crosses zero
 	// somewhere on site (at most MaxAutoMinerals, in data order).
 	Minerals []string
-	// Method is "kriging" (default; falls back to IDW when the variogram
-	// cannot be fitted) or "idw".
+	// Method is "kriging" (default; IDW below MinWellsKriging wells or when
+	// the variogram cannot be fitted) or "idw".
 	Method string
 	// Features are drawn on every map.
 	Features []geo.SiteFeature
 	// BandEdges split sample depths into zones mapped separately (metres
 	// below ground, increasing); nil finds zones from gaps in the depths.
 	BandEdges []float64
-	// ProfileRound is the sampling round shown in depth profiles; "" takes
-	// the last round.
+	// ProfileRound keeps one sampling round in the depth profiles; ""
+	// draws every round.
 	ProfileRound string
 	// Model names the activity model for captions.
 	Model string
@@ -43,12 +44,15 @@ type Options struct {
 // MaxAutoMinerals caps the minerals chosen automatically.
 const MaxAutoMinerals = 6
 
-// SurfaceRow describes one interpolated surface for the surfaces table.
+// SurfaceRow describes one map panel's surface for the surfaces table:
+// Drawn tells whether an interpolated surface is shown, and Note says why
+// or why not (MinWellsSurface, MinWellsKriging, MaxSurfaceCVRMSE).
 type SurfaceRow struct {
 	Mineral, Zone, Round, Method string
 	Wells                        int
 	CVRMSE                       float64
 	HasCV                        bool
+	Drawn                        bool
 	Note                         string
 }
 
@@ -61,6 +65,12 @@ type Site struct {
 	Placed   int
 	Unplaced []string // "ID (reason)" for rows left off the maps
 	Notes    []string
+	// EPSG is the projected CRS of the maps and GIS layers: the WGS 84 UTM
+	// zone of the wells' centroid (326zz north, 327zz south).
+	EPSG int
+
+	grids    []*geo.Grid // per Surfaces row: the drawn surface, or nil
+	features []geo.SiteFeature
 }
 
 // Zone is a depth interval mapped on its own.
@@ -104,11 +114,24 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 	for _, p := range placed {
 		lls = append(lls, p.ll)
 	}
-	frame := geo.NewLocalFrame(lls)
-	for i := range placed {
-		placed[i].xy = frame.Forward(placed[i].ll)
+	// Maps are drawn in the UTM zone of the wells' centroid, so their axes
+	// are real eastings and northings (distances within 0.1 % across a
+	// zone: UTM scale factor 0.9996 to about 1.001, NIMA TM8358.2, `from
+	// memory`; far below what interpolation can resolve).
+	site.EPSG = geo.UTMEPSG(geo.NewLocalFrame(lls).Centre)
+	site.features = opt.Features
+	toMap := func(p orb.Point) orb.Point {
+		x, y, err := geo.FromLonLat(p, site.EPSG)
+		if err != nil {
+			return orb.Point{math.NaN(), math.NaN()}
+		}
+		return orb.Point{x, y}
 	}
-	feats := projectFeatures(frame, opt.Features)
+	for i := range placed {
+		placed[i].xy = toMap(placed[i].ll)
+	}
+	feats := projectFeatures(toMap, opt.Features)
+	xLabel, yLabel := axisTitles(site.EPSG)
 
 	if opt.Minerals != nil {
 		site.Minerals = opt.Minerals
@@ -124,7 +147,7 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 
 	for _, m := range site.Minerals {
 		for _, z := range site.Zones {
-			var panels []figure.Figure
+			var panels []figure.SIMap
 			for _, rd := range rounds {
 				var pts []orb.Point
 				var vals []float64
@@ -144,16 +167,18 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 				if len(wells) == 0 {
 					continue
 				}
-				sm := figure.SIMap{Title: panelTitle(m, rd, z), Wells: wells, Features: feats, Units: figure.UnitsMetres, NorthArrow: true, ScaleBar: true}
+				sm := figure.SIMap{Title: panelTitle(m, rd, z), Wells: wells, Features: feats, Units: figure.UnitsMetres,
+					NorthArrow: true, ScaleBar: true, Band: assess.NearEquilibriumBand, XLabel: xLabel, YLabel: yLabel}
 				row := SurfaceRow{Mineral: m, Zone: z.Label, Round: rd, Wells: len(wells)}
-				surf, err := interpolate(pts, vals, opt.Method)
-				if err != nil {
-					row.Method = "none"
-					row.Note = err.Error()
-				} else {
-					row.Method, row.CVRMSE, row.HasCV = surf.Method, surf.CVRMSE, true
+				surf := surfaceFor(pts, vals, opt.Method, &row)
+				if surf != nil {
 					sm.Grid = toMapGrid(surf.Grid)
-					sm.CVRMSE, sm.HasCV = surf.CVRMSE, true
+					sm.Note = fmt.Sprintf("%s; leave-one-out error %s SI", shortMethod(surf.Method), formatSI(surf.CVRMSE))
+					site.grids = append(site.grids, surf.Grid)
+				} else {
+					sm.PostValues = true
+					sm.Note = "measured values only: " + strings.TrimSuffix(strings.TrimPrefix(row.Note, "no surface: "), "; measured values shown")
+					site.grids = append(site.grids, nil)
 				}
 				site.Surfaces = append(site.Surfaces, row)
 				panels = append(panels, sm)
@@ -164,21 +189,27 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 			// One colour scale for all panels of a figure, so rounds compare.
 			lim := colourLimit(panels)
 			for i := range panels {
-				sm := panels[i].(figure.SIMap)
-				sm.Limit = lim
-				panels[i] = sm
+				panels[i].Limit = lim
 			}
 			cap := fmt.Sprintf("%s saturation index, %s; each panel one sampling round; speciated at each sample's temperature with the %s model. "+
-				"Blue: undersaturated (may dissolve); orange: supersaturated (may deposit); black line: SI = 0.", m, z.Label, opt.Model)
+				"Blue: undersaturated (may dissolve); orange: supersaturated (may deposit); hatched: within ±%.1f of equilibrium, where the data do not decide the sign. "+
+				"A surface is drawn only from at least %d wells and with a leave-one-out error below %.1f SI; otherwise the measured values are posted. "+
+				"Coordinates: WGS 84 / UTM, EPSG:%d.",
+				m, z.Label, opt.Model, assess.NearEquilibriumBand, MinWellsSurface, MaxSurfaceCVRMSE, site.EPSG)
 			if n := len(site.Unplaced); n > 0 {
 				cap += fmt.Sprintf(" %d row(s) without a usable position or result not shown.", n)
 			}
 			if n := noDepthCount(placed); n > 0 && z.Label != noDepthZone {
 				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone figure.", n)
 			}
+			title := fmt.Sprintf("%s, %s", m, z.Label)
+			maps := figure.SIMaps{Title: title, Maps: panels}
+			// 16.5 cm wide: a full A4 text width at 100 %, so type prints at
+			// its nominal size (8 pt and more).
+			w := 16.5 * vg.Centimeter
 			site.Figures = append(site.Figures, report.Fig{
-				Stem: "map_" + slug(m) + "_" + slug(z.Label), Title: fmt.Sprintf("%s, %s", m, z.Label), Caption: cap,
-				Figure: figure.Panels(panels, len(panels)), W: vg.Length(len(panels)) * 14 * vg.Centimeter, H: 13 * vg.Centimeter,
+				Stem: "map_" + slug(m) + "_" + slug(z.Label), Title: title, Caption: cap,
+				Figure: maps, W: w, H: maps.FitHeight(w),
 			})
 		}
 	}
@@ -195,17 +226,6 @@ func (z Zone) contains(p placedRec) bool {
 
 const noDepthZone = "depth not reported"
 
-func interpolate(pts []orb.Point, vals []float64, method string) (*geo.Surface, error) {
-	if method == "idw" {
-		return geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
-	}
-	s, err := geo.InterpolateKriging(pts, vals, geo.GridOptions{}, geo.KrigingOptions{})
-	if err != nil && !errors.Is(err, geo.ErrTooFewWells) {
-		return geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
-	}
-	return s, err
-}
-
 func toMapGrid(g *geo.Grid) *figure.Grid {
 	mg := &figure.Grid{X0: g.X0, Y0: g.Y0, DX: g.DX, DY: g.DY, NX: g.NX, NY: g.NY,
 		Z: make([]float64, len(g.Values)), Valid: make([]bool, len(g.Values))}
@@ -219,12 +239,15 @@ func toMapGrid(g *geo.Grid) *figure.Grid {
 	return mg
 }
 
-func projectFeatures(frame geo.LocalFrame, fs []geo.SiteFeature) []figure.Feature {
+func projectFeatures(proj orb.Projection, fs []geo.SiteFeature) []figure.Feature {
 	var out []figure.Feature
 	for _, f := range fs {
-		g := frame.ProjectGeometry(f.Geometry)
+		if f.Geometry == nil {
+			continue
+		}
+		g := project.Geometry(orb.Clone(f.Geometry), proj)
 		add := func(kind string, pts []orb.Point) {
-			mf := figure.Feature{Kind: kind, Name: f.Name}
+			mf := figure.Feature{Kind: kind, Class: f.Kind, Name: f.Name}
 			for _, p := range pts {
 				mf.Coords = append(mf.Coords, [2]float64{p[0], p[1]})
 			}
@@ -376,10 +399,10 @@ func noDepthCount(placed []placedRec) int {
 
 // colourLimit is the largest |SI| of the wells in the panels, rounded up to
 // a multiple of 0.5 and at least 0.5, so every panel shares one scale.
-func colourLimit(panels []figure.Figure) float64 {
+func colourLimit(panels []figure.SIMap) float64 {
 	m := 0.0
 	for _, f := range panels {
-		for _, w := range f.(figure.SIMap).Wells {
+		for _, w := range f.Wells {
 			if !math.IsNaN(w.SI) && !math.IsInf(w.SI, 0) {
 				m = math.Max(m, math.Abs(w.SI))
 			}
@@ -387,3 +410,26 @@ func colourLimit(panels []figure.Figure) float64 {
 	}
 	return math.Max(0.5, math.Ceil(m/0.5)*0.5)
 }
+
+// axisTitles names the map axes with their UTM zone.
+func axisTitles(epsg int) (string, string) {
+	c, err := geo.ParseEPSG(epsg)
+	if err != nil || c.Geographic {
+		return "Easting (m)", "Northing (m)"
+	}
+	h := "N"
+	if c.South {
+		h = "S"
+	}
+	return fmt.Sprintf("Easting (m), UTM %d%s", c.Zone, h), "Northing (m)"
+}
+
+// shortMethod is the interpolation method without its fitted parameters.
+func shortMethod(m string) string {
+	if i := strings.IndexAny(m, "(,"); i > 0 {
+		return strings.TrimSpace(m[:i])
+	}
+	return m
+}
+
+func formatSI(v float64) string { return fmt.Sprintf("%.2f", v) }

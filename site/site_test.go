@@ -1,7 +1,11 @@
 package site
 
 import (
+	"math"
+	"strings"
 	"testing"
+
+	"github.com/paulmach/orb"
 )
 
 // Nested wells at 40, 70 and 108-128 m split into three zones at the gaps;
@@ -48,6 +52,57 @@ func TestCommonPrefix(t *testing.T) {
 	} {
 		if got := commonPrefix(c.in); got != c.want {
 			t.Errorf("commonPrefix(%v) = %q, want %q", c.in, got, c.want)
+		}
+	}
+}
+
+// surfaceFor draws a surface only from enough wells and with a leave-one-out
+// error below the near-equilibrium band, and says why in the note.
+func TestSurfaceForRules(t *testing.T) {
+	grid := func(n int, field func(x, y float64) float64) ([]orb.Point, []float64) {
+		var pts []orb.Point
+		var vals []float64
+		side := int(math.Ceil(math.Sqrt(float64(n))))
+		for k := 0; k < n; k++ {
+			x, y := float64(k%side)*200, float64(k/side)*200
+			pts = append(pts, orb.Point{x, y})
+			vals = append(vals, field(x, y))
+		}
+		return pts, vals
+	}
+	smooth := func(x, y float64) float64 { return -0.3 + 0.0004*x }
+	// Alternating +-2 SI between neighbours: no interpolator predicts a
+	// left-out well to within 0.5.
+	rough := func(x, y float64) float64 { return 2 * math.Cos(math.Pi*(x+y)/200) }
+	for _, c := range []struct {
+		name    string
+		n       int
+		field   func(x, y float64) float64
+		method  string
+		drawn   bool
+		method0 string // prefix of the method used
+		note    string
+	}{
+		{"too few wells", MinWellsSurface - 1, smooth, "", false, "none", "fewer than the 10"},
+		{"IDW below the kriging minimum", 12, smooth, "", true, "IDW", "a variogram needs"},
+		{"kriging from enough wells", 36, smooth, "", true, "ordinary kriging", "surface drawn"},
+		{"IDW asked", 36, smooth, "idw", true, "IDW", "surface drawn"},
+		{"error above the band", 25, rough, "idw", false, "IDW", "not below the near-equilibrium band"},
+	} {
+		pts, vals := grid(c.n, c.field)
+		var row SurfaceRow
+		s := surfaceFor(pts, vals, c.method, &row)
+		if (s != nil) != c.drawn || row.Drawn != c.drawn {
+			t.Errorf("%s: drawn %v (surface %v), want %v; note %q", c.name, row.Drawn, s != nil, c.drawn, row.Note)
+		}
+		if !strings.HasPrefix(row.Method, c.method0) {
+			t.Errorf("%s: method %q, want prefix %q", c.name, row.Method, c.method0)
+		}
+		if !strings.Contains(row.Note, c.note) {
+			t.Errorf("%s: note %q lacks %q", c.name, row.Note, c.note)
+		}
+		if row.HasCV && row.Drawn != (row.CVRMSE < MaxSurfaceCVRMSE) {
+			t.Errorf("%s: CV %v but drawn %v", c.name, row.CVRMSE, row.Drawn)
 		}
 	}
 }
