@@ -8,6 +8,7 @@ import (
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
 	"gwsat.dev/gwsat/speciation/reaction"
 )
 
@@ -30,6 +31,9 @@ type BlendResult struct {
 	Native, Injectate string
 	Options           BlendOptions
 	Model             string
+
+	db    *speciation.Database
+	model speciation.ActivityModel
 }
 
 // DefaultShares are the shares of a blend sweep when none are given.
@@ -63,7 +67,7 @@ func (p *Planner) Blend(opt BlendOptions) (*BlendResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &BlendResult{Sweep: sw, Native: opt.Native, Injectate: opt.Injectate, Options: opt, Model: p.reactor.Model().Name()}, nil
+	return &BlendResult{Sweep: sw, Native: opt.Native, Injectate: opt.Injectate, Options: opt, Model: p.reactor.Model().Name(), db: p.db, model: p.reactor.Model()}, nil
 }
 
 // Table is one row per share with the SI of every mineral.
@@ -98,6 +102,8 @@ func (b *BlendResult) Summary() []string {
 	for _, m := range b.Sweep.Maxima() {
 		out = append(out, fmt.Sprintf("  %-16s peak SI %+.2f at injectate share %.2f (%s)", m.Mineral, m.SI, m.Fraction, assess.State(m.SI)))
 	}
+	maxI, temps := sweepRange(b.Sweep)
+	out = append(out, rangeNotes(b.db, b.model, maxI, temps, b.Sweep.Minerals)...)
 	return append(out, "  "+report.CautionLine)
 }
 

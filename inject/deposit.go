@@ -86,6 +86,7 @@ type DepositResult struct {
 	Oxidation *Oxidation
 	Name      string // the water, in words
 	Model     string
+	notes     []string // range warnings, in the words of the row checks
 }
 
 // Deposit computes how much of each supersaturated candidate mineral would
@@ -103,7 +104,15 @@ func (p *Planner) Deposit(opt DepositOptions) (*DepositResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &DepositResult{Precipitation: pr, Oxidation: ox, Name: name, Model: p.reactor.Model().Name()}, nil
+	var notes []string
+	if br := pr.BeforeResult; br != nil {
+		var names []string
+		for _, m := range br.Minerals {
+			names = append(names, m.Name)
+		}
+		notes = rangeNotes(p.db, p.reactor.Model(), br.IonicStrength, []float64{br.TempC}, names)
+	}
+	return &DepositResult{Precipitation: pr, Oxidation: ox, Name: name, Model: p.reactor.Model().Name(), notes: notes}, nil
 }
 
 // Table lists each candidate deposited alone and all together.
@@ -143,5 +152,6 @@ func (d *DepositResult) Summary() []string {
 			out = append(out, "  "+s)
 		}
 	}
+	out = append(out, d.notes...)
 	return append(out, "  "+report.CautionLine)
 }

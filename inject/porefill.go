@@ -120,5 +120,5 @@ func (r *PoreFillResult) Summary() []string {
 	for _, s := range r.Sentences() {
 		out = append(out, "  "+s)
 	}
-	return out
+	return append(out, r.Deposit.notes...)
 }

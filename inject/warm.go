@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/plot/vg"
 
 	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/speciation"
 	"gwsat.dev/gwsat/speciation/reaction"
 )
 
@@ -22,6 +23,9 @@ type WarmResult struct {
 	Sample  string
 	Options WarmOptions
 	Model   string
+
+	db    *speciation.Database
+	model speciation.ActivityModel
 }
 
 // DefaultTemps are the temperatures of a warming sweep when none are given.
@@ -51,7 +55,7 @@ func (p *Planner) Warm(opt WarmOptions) (*WarmResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &WarmResult{Sweep: sw, Sample: opt.Sample, Options: opt, Model: p.reactor.Model().Name()}, nil
+	return &WarmResult{Sweep: sw, Sample: opt.Sample, Options: opt, Model: p.reactor.Model().Name(), db: p.db, model: p.reactor.Model()}, nil
 }
 
 // Table is one row per temperature with the SI of every mineral.
@@ -75,5 +79,7 @@ func (r *WarmResult) Summary() []string {
 	for _, m := range r.Sweep.Maxima() {
 		out = append(out, fmt.Sprintf("  %-16s peak SI %+.2f at %.0f C", m.Mineral, m.SI, m.TempC))
 	}
+	maxI, temps := sweepRange(r.Sweep)
+	out = append(out, rangeNotes(r.db, r.model, maxI, temps, r.Sweep.Minerals)...)
 	return append(out, "  "+report.CautionLine)
 }
