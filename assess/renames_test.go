@@ -1,8 +1,6 @@
 package assess_test
 
 import (
-	"bytes"
-	"context"
 	"encoding/csv"
 	"math"
 	"os"
@@ -10,22 +8,20 @@ import (
 	"testing"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/data"
-	"gwsat.dev/gwsat/hydro"
-	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/internal/demotest"
 )
 
-// The interface renames (charge notation, mineral names, column scheme) must not move a
-// single number: every saturation index of the demo, by sample and mineral, equals the
-// one computed before the renames (testdata/demo_si_before_renames.csv, see
-// testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
-// the database accepts on input.
 // newTemperatureData are the minerals whose log K(T) was replaced after the
 // baseline was written (heat-capacity data that hold to 100 C; see their entries
 // in speciation/thermo.txt and the brine tests): their SIs moved by design, by up
 // to 0.013 on the demo, and are checked against published solubilities instead.
 var newTemperatureData = map[string]bool{"gypsum": true, "anhydrite": true, "celestine": true, "halite": true}
 
+// The interface renames (charge notation, mineral names, column scheme) must not move a
+// single number: every saturation index of the demo, by sample and mineral, equals the
+// one computed before the renames (testdata/demo_si_before_renames.csv, see
+// testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
+// the database accepts on input.
 func TestDemoSIUnchangedByRenames(t *testing.T) {
 	f, err := os.Open("../testdata/demo_si_before_renames.csv")
 	if err != nil {
@@ -36,22 +32,7 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	raw, err := data.Demo().ReadFile("demo/samples.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	b, err := hydro.Read(bytes.NewReader(raw), "demo/samples.csv", hydro.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	db, err := speciation.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	recs, err := assess.Run(context.Background(), db, []*hydro.Batch{b}, assess.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	db, recs := demotest.Records(t)
 	// By sample id: the demo's lines moved down by one when it gained a
 	// units row.
 	byID := map[string]*assess.Record{}

@@ -1,14 +1,13 @@
 package findings
 
 import (
-	"bytes"
 	"context"
 	"strings"
 	"testing"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/internal/demotest"
 	"gwsat.dev/gwsat/speciation"
 	"gwsat.dev/gwsat/uncertainty"
 )
@@ -39,15 +38,7 @@ func assessBatch(t testing.TB, b *hydro.Batch) (*speciation.Database, []assess.R
 // demoRecords assesses the embedded demo (invented data).
 func demoRecords(t testing.TB) (*speciation.Database, []assess.Record) {
 	t.Helper()
-	raw, err := data.Demo().ReadFile("demo/samples.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	b, err := hydro.Read(bytes.NewReader(raw), "demo/samples.csv", hydro.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	return assessBatch(t, b)
+	return demotest.Records(t)
 }
 
 // demoFindings runs the whole chain on the demo with the linear estimate

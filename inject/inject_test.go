@@ -1,7 +1,6 @@
 package inject
 
 import (
-	"bytes"
 	"context"
 	"errors"
 	"math"
@@ -9,29 +8,14 @@ import (
 	"testing"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/hydro"
+	"gwsat.dev/gwsat/internal/demotest"
 	"gwsat.dev/gwsat/speciation"
 )
 
 func demoPlanner(t testing.TB) *Planner {
 	t.Helper()
-	raw, err := data.Demo().ReadFile("demo/samples.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	b, err := hydro.Read(bytes.NewReader(raw), "demo/samples.csv", hydro.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	db, err := speciation.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	recs, err := assess.Run(context.Background(), db, []*hydro.Batch{b}, assess.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	db, recs := demotest.Records(t)
 	return NewPlanner(db, speciation.TruesdellJones{}, recs)
 }
 
