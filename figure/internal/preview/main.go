@@ -1,4 +1,4 @@
-// Command preview renders every figure kind of package maps from invented
+// Command preview renders every figure kind of package figure from invented
 // demo data (a made-up well field, not a real site) to PNG files in a
 // folder, for looking at: go run ./maps/internal/preview [-out dir].
 package main
