@@ -36,6 +36,11 @@ func WriteWaterView(w io.Writer, r *assess.Record, verbose bool) error {
 		if res.HasLogPCO2 {
 			fmt.Fprintf(&b, "  log pCO2 %.2f (CO2 partial pressure in atm, in equilibrium with the water)\n", res.LogPCO2)
 		}
+		if res.HasPE {
+			fmt.Fprintf(&b, "  pe %.2f (Eh %.0f mV), from %s\n", res.PE, speciation.EhMVFromPE(res.PE, res.TempC), r.PESource)
+		} else {
+			fmt.Fprintln(&b, "  no redox reading: iron and manganese oxides and sulfides not computed")
+		}
 	}
 	if bal.CationsMeqL > 0 || bal.AnionsMeqL > 0 {
 		fmt.Fprintf(&b, "  cations %.3f meq/L, anions %.3f meq/L: charge balance %.2f %% (%s; %s)\n", bal.CationsMeqL, bal.AnionsMeqL, bal.ErrorPct, bal.Status, bal.Criterion)
@@ -46,7 +51,6 @@ func WriteWaterView(w io.Writer, r *assess.Record, verbose bool) error {
 		_, err := io.WriteString(w, b.String())
 		return err
 	}
-	fmt.Fprintf(&b, "  charge balance after speciation %.2f %%\n", res.ChargeBalance)
 	if ix := res.Indices; ix.HasLangelier {
 		fmt.Fprintf(&b, "  Langelier index %.2f (pHs %.2f), Ryznar index %.2f", ix.Langelier, ix.PHs, ix.Ryznar)
 		if ix.HasLarsonSkold {
@@ -55,7 +59,7 @@ func WriteWaterView(w io.Writer, r *assess.Record, verbose bool) error {
 		fmt.Fprintln(&b)
 	}
 	if verbose {
-		fmt.Fprintf(&b, "  solved in %d Newton %s\n", res.Iterations, plural(res.Iterations, "step", "steps"))
+		fmt.Fprintf(&b, "  solver: %d Newton %s; ions of the speciated water balance to %.2f %%\n", res.Iterations, plural(res.Iterations, "step", "steps"), res.ChargeBalance)
 	}
 	writeCarriers(&b, res)
 	writeEquilibrium(&b, res)
