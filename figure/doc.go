@@ -27,7 +27,7 @@
 // figures stay readable in grey-scale print and for colour-blind readers.
 // Each mineral keeps one colour, marker and dash pattern in every curve,
 // profile and bar chart: [MineralStyle], from colour-blind-safe palettes in
-// the fixed order of [MineralOrder]. Map well symbols show SI colour
+// the fixed order of [mineralOrder]. Map well symbols show SI colour
 // instead.
 //
 // Non-finite values (NaN, ±Inf) never reach the plotting library: they are

@@ -9,13 +9,13 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
-// MineralOrder fixes the style of each mineral: the k-th name takes colour
+// mineralOrder fixes the style of each mineral: the k-th name takes colour
 // k mod 11 of mineralColors (colour-blind-safe qualitative colours), and a
 // filled marker and dash pattern that together with the colour are unique
 // for the first 55 names. The order puts minerals often shown together (carbonates,
 // sulfates, silica) in different colours. A name not listed gets a style
 // fixed by a hash of its name, so it too is the same in every figure.
-var MineralOrder = []string{
+var mineralOrder = []string{
 	"calcite", "dolomite", "gypsum", "baryte", "chalcedony", "aragonite", "siderite",
 	"quartz", "magnesite", "celestine", "fluorite",
 	"anhydrite", "halite", "strontianite", "witherite", "rhodochrosite", "amorphous silica",
@@ -61,14 +61,14 @@ func MineralStyle(name string) Style {
 
 func mineralIndex(name string) int {
 	n := strings.ToLower(strings.TrimSpace(name))
-	for i, m := range MineralOrder {
+	for i, m := range mineralOrder {
 		if m == n {
 			return i
 		}
 	}
 	h := fnv.New32a()
 	h.Write([]byte(n))
-	return len(MineralOrder) + int(h.Sum32()%32)
+	return len(mineralOrder) + int(h.Sum32()%32)
 }
 
 // mineralGlyphs are the markers of minerals: only shapes with a fill, so
@@ -101,3 +101,6 @@ func (st seriesStyle) withDashes(d []vg.Length) seriesStyle {
 	st.line = draw.LineStyle{Color: st.line.Color, Width: st.line.Width, Dashes: d}
 	return st
 }
+
+// MineralOrder returns a copy of mineralOrder (read-only package data).
+func MineralOrder() []string { return append([]string(nil), mineralOrder...) }

@@ -15,7 +15,7 @@ import (
 func TestMineralStyleUnique(t *testing.T) {
 	seen := map[[2]string]string{}
 	colours := map[color.NRGBA]string{}
-	for k, m := range MineralOrder {
+	for k, m := range mineralOrder {
 		st := MineralStyle(m)
 		key := [2]string{fmtColor(st.Color), st.Marker}
 		if other, ok := seen[key]; ok {

@@ -6,7 +6,7 @@
 // and the water types.
 //
 // Trends tests every well's series, each mineral's saturation index and
-// the major analytes (TrendAnalytes, in mg/L), with the Mann-Kendall test
+// the major analytes (trendAnalytes, in mg/L), with the Mann-Kendall test
 // and the Sen slope (package trend). The time axis of a well is decimal
 // years when all its samples are dated, else its sampling rounds (an
 // ordinal axis). A well needs MinEvents (4) sampling events; with fewer it
@@ -24,7 +24,7 @@
 // measured, the first and last event supersaturated, and the SI trend.
 // Findings.Lines words them: one sentence per mineral supersaturated with
 // confidence; minerals that are supersaturated but slow to form at aquifer
-// temperatures (SlowMinerals) in one line; minerals near equilibrium in
+// temperatures (slowMinerals) in one line; minerals near equilibrium in
 // some samples; minerals undersaturated with confidence everywhere in one
 // line; SIs rising significantly; water types; and the caution.
 // Findings.Table is the same as findings.csv, TrendTable the trends.

@@ -6,14 +6,14 @@ import (
 	"gwsat.dev/gwsat/speciation"
 )
 
-// ScaleMinerals are the common scale minerals of wells and injection
+// scaleMinerals are the common scale minerals of wells and injection
 // systems (common practice): carbonate, sulfate and iron carbonate scales.
-var ScaleMinerals = []string{"calcite", "gypsum", "baryte", "celestine", "siderite"}
+var scaleMinerals = []string{"calcite", "gypsum", "baryte", "celestine", "siderite"}
 
-// OxideMinerals are iron and manganese (hydr)oxides that clog wells where
+// oxideMinerals are iron and manganese (hydr)oxides that clog wells where
 // oxygenated water meets reduced groundwater (common practice); they are
 // mapped when the database has them.
-var OxideMinerals = []string{"ferrihydrite", "goethite", "lepidocrocite", "hematite", "birnessite", "pyrolusite", "manganite", "hausmannite"}
+var oxideMinerals = []string{"ferrihydrite", "goethite", "lepidocrocite", "hematite", "birnessite", "pyrolusite", "manganite", "hausmannite"}
 
 // DefaultMinerals returns the minerals to map and profile: the scale
 // minerals and the oxides the database has, then every mineral
@@ -28,10 +28,10 @@ func DefaultMinerals(db *speciation.Database, f *Findings) []string {
 		}
 		out = append(out, m.Name)
 	}
-	for _, n := range ScaleMinerals {
+	for _, n := range scaleMinerals {
 		add(n)
 	}
-	for _, n := range OxideMinerals {
+	for _, n := range oxideMinerals {
 		add(n)
 	}
 	if f != nil {
@@ -41,3 +41,9 @@ func DefaultMinerals(db *speciation.Database, f *Findings) []string {
 	}
 	return out
 }
+
+// ScaleMinerals returns a copy of scaleMinerals (read-only package data).
+func ScaleMinerals() []string { return append([]string(nil), scaleMinerals...) }
+
+// OxideMinerals returns a copy of oxideMinerals (read-only package data).
+func OxideMinerals() []string { return append([]string(nil), oxideMinerals...) }

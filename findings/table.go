@@ -7,14 +7,14 @@ import (
 	"gwsat.dev/gwsat/report"
 )
 
-// TableHeader is the header of findings.csv.
-var TableHeader = []string{"mineral", "cluster", "zone", "state", "wells", "samples", "supersaturated", "undecided", "undersaturated",
+// tableHeader is the header of findings.csv.
+var tableHeader = []string{"mineral", "cluster", "zone", "state", "wells", "samples", "supersaturated", "undecided", "undersaturated",
 	"median_si", "max_si", "max_at", "first_supersaturated", "last_supersaturated", "supersaturated_wells", "si_trend", "sentence"}
 
 // Table is findings.csv: one row per mineral and group, cells made safe
 // for spreadsheets by report.Text.
 func (f *Findings) Table() *report.Table {
-	t := &report.Table{Header: append([]string(nil), TableHeader...)}
+	t := &report.Table{Header: append([]string(nil), tableHeader...)}
 	for i := range f.Rows {
 		r := &f.Rows[i]
 		t.Add(report.Text(r.Mineral), report.Text(r.Cluster), report.Text(r.Zone), r.State,
@@ -25,12 +25,12 @@ func (f *Findings) Table() *report.Table {
 	return t
 }
 
-// TrendHeader is the header of the trend table.
-var TrendHeader = []string{"well", "quantity", "events", "state", "direction", "p_value", "sen_slope", "slope_low", "slope_high", "per", "latest", "toward_saturation"}
+// trendHeader is the header of the trend table.
+var trendHeader = []string{"well", "quantity", "events", "state", "direction", "p_value", "sen_slope", "slope_low", "slope_high", "per", "latest", "toward_saturation"}
 
 // TrendTable is the trend tests as a table, one row per well and quantity.
 func TrendTable(trends []Trend) *report.Table {
-	t := &report.Table{Header: append([]string(nil), TrendHeader...)}
+	t := &report.Table{Header: append([]string(nil), trendHeader...)}
 	for _, tr := range trends {
 		dir, p, sl, lo, hi := "", "", "", "", ""
 		if tr.State == TrendTested {
@@ -46,3 +46,9 @@ func TrendTable(trends []Trend) *report.Table {
 	}
 	return t
 }
+
+// TableHeader returns a copy of tableHeader (read-only package data).
+func TableHeader() []string { return append([]string(nil), tableHeader...) }
+
+// TrendHeader returns a copy of trendHeader (read-only package data).
+func TrendHeader() []string { return append([]string(nil), trendHeader...) }

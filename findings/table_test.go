@@ -23,7 +23,7 @@ func TestFindingsTable(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !slices.Equal(rows[0], TableHeader) || len(rows) != len(f.Rows)+1 {
+	if !slices.Equal(rows[0], tableHeader) || len(rows) != len(f.Rows)+1 {
 		t.Fatalf("header %v, %d rows for %d", rows[0], len(rows)-1, len(f.Rows))
 	}
 	seen := map[string]bool{}
@@ -61,10 +61,10 @@ func TestDefaultMinerals(t *testing.T) {
 		t.Fatal(err)
 	}
 	got := DefaultMinerals(db, &Findings{Supersaturated: []string{"baryte", "quartz"}})
-	if !slices.Equal(got[:5], ScaleMinerals) || got[len(got)-1] != "quartz" || slices.Index(got, "baryte") != 2 {
+	if !slices.Equal(got[:5], scaleMinerals) || got[len(got)-1] != "quartz" || slices.Index(got, "baryte") != 2 {
 		t.Errorf("DefaultMinerals = %v", got)
 	}
-	if plain := DefaultMinerals(db, nil); len(plain) < len(ScaleMinerals) {
+	if plain := DefaultMinerals(db, nil); len(plain) < len(scaleMinerals) {
 		t.Errorf("without findings: %v", plain)
 	}
 }

@@ -18,9 +18,9 @@ const MinEvents = trend.MinPoints
 // (common practice).
 const DefaultAlpha = 0.05
 
-// TrendAnalytes are the analytes whose series are tested, as hydro keys;
+// trendAnalytes are the analytes whose series are tested, as hydro keys;
 // their values are in mg/L (alkalinity as CaCO3).
-var TrendAnalytes = []string{"Ca", "Mg", "Na", "K", "Cl", "SO4", "Alk", "Ba", "Sr", "Fe"}
+var trendAnalytes = []string{"Ca", "Mg", "Na", "K", "Cl", "SO4", "Alk", "Ba", "Sr", "Fe"}
 
 // Trend states.
 const (
@@ -73,7 +73,7 @@ func (t Trend) Words() string {
 }
 
 // Trends tests, for every well, each mineral's saturation index and each of
-// TrendAnalytes for a monotonic trend (Mann-Kendall with the Sen slope,
+// trendAnalytes for a monotonic trend (Mann-Kendall with the Sen slope,
 // package trend) at significance level alpha (DefaultAlpha when 0). A
 // well's time axis is decimal years when every sample of it is dated, else
 // its sampling rounds. A well with fewer than MinEvents events gets a row
@@ -101,7 +101,7 @@ func Trends(recs []assess.Record, minerals []string, alpha float64) []Trend {
 				out = append(out, t)
 			}
 		}
-		for _, a := range TrendAnalytes {
+		for _, a := range trendAnalytes {
 			t := series(recs, ws, a+" (mg/L)", alpha, func(r *assess.Record) (float64, bool) {
 				return analyteMgL(r, a)
 			})
@@ -176,3 +176,6 @@ func series(recs []assess.Record, ws wellSeries, quantity string, alpha float64,
 	}
 	return t
 }
+
+// TrendAnalytes returns a copy of trendAnalytes (read-only package data).
+func TrendAnalytes() []string { return append([]string(nil), trendAnalytes...) }

@@ -10,13 +10,13 @@ import (
 	"gwsat.dev/gwsat/uncertainty"
 )
 
-// SlowMinerals are minerals that groundwater is often supersaturated with
+// slowMinerals are minerals that groundwater is often supersaturated with
 // but that do not form at aquifer temperatures on the time scales of a
 // monitoring programme (quartz, and the ordered Mg carbonates dolomite and
 // magnesite; from memory, e.g. Appelo & Postma 2005, Geochemistry,
 // Groundwater and Pollution, 2nd ed., ch. 5 and 9). Their supersaturation
 // is reported in one line apart.
-var SlowMinerals = []string{"quartz", "dolomite", "magnesite"}
+var slowMinerals = []string{"quartz", "dolomite", "magnesite"}
 
 // where words a row's place: "cluster A at 108-128 m depth"; without a
 // cluster, the depth zone, or else the wells (with their sample type when
@@ -120,7 +120,7 @@ func (f *Findings) Lines() []string {
 				rows = append(rows, &f.Rows[i])
 			}
 		}
-		if slices.Contains(SlowMinerals, m) {
+		if slices.Contains(slowMinerals, m) {
 			r := f.SIRange[m]
 			n := 0
 			for _, row := range rows {
@@ -182,3 +182,6 @@ func (f *Findings) WriteText(w io.Writer) error {
 	_, err := io.WriteString(w, strings.Join(f.Lines(), "\n")+"\n")
 	return err
 }
+
+// SlowMinerals returns a copy of slowMinerals (read-only package data).
+func SlowMinerals() []string { return append([]string(nil), slowMinerals...) }

@@ -10,11 +10,11 @@ import (
 	"sync"
 )
 
-// PitzerText is the text of the embedded ion-interaction parameter set (pitzer.txt beside
+// pitzerText is the text of the embedded ion-interaction parameter set (pitzer.txt beside
 // this file; its format is described at its top). DefaultPitzerParams parses it.
 //
 //go:embed pitzer.txt
-var PitzerText string
+var pitzerText string
 
 // ErrPitzerParams is wrapped by every error of ParsePitzerParams (inside a *DataError
 // that names the line).
@@ -83,9 +83,9 @@ var (
 	pitzerErr    error
 )
 
-// DefaultPitzerParams returns the embedded parameter set (PitzerText), parsed once.
+// DefaultPitzerParams returns the embedded parameter set (pitzerText), parsed once.
 func DefaultPitzerParams() (*PitzerParams, error) {
-	pitzerOnce.Do(func() { pitzerParams, pitzerErr = ParsePitzerParams(PitzerText) })
+	pitzerOnce.Do(func() { pitzerParams, pitzerErr = ParsePitzerParams(pitzerText) })
 	return pitzerParams, pitzerErr
 }
 
@@ -260,3 +260,6 @@ func parseTempFunc(s string) (pzTemp, error) {
 	}
 	return t, fmt.Errorf("temperature function %q: want \"-\", \"slope S\" or \"fit8\" with 8 numbers", s)
 }
+
+// PitzerText returns the embedded text (read-only).
+func PitzerText() string { return pitzerText }

@@ -132,7 +132,7 @@ func TestPitzerParamsEmbedded(t *testing.T) {
 			t.Errorf("%s treated", s)
 		}
 	}
-	for i, line := range strings.Split(PitzerText, "\n") {
+	for i, line := range strings.Split(pitzerText, "\n") {
 		line = strings.TrimSpace(line)
 		if line == "" || strings.HasPrefix(line, "#") {
 			continue

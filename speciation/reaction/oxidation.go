@@ -8,7 +8,7 @@ import (
 )
 
 // OxidationOrderBasis states why the reductants of a mixture are oxidised in the
-// order of OxidationOrder.
+// order of oxidationOrder.
 const OxidationOrderBasis = "reductants are oxidised in the order of their redox couples' pe at " +
 	"neutral pH, lowest first (the redox ladder: SO4 2-/HS- near pe -3.6, Fe(OH)3/Fe2+ near 0 to 2, " +
 	"MnO2/Mn2+ near 10 at pH 7 with 1e-5 mol/kg of each metal; Stumm & Morgan 1996, Aquatic Chemistry, " +
@@ -27,9 +27,9 @@ const (
 	electronsNO3     = 5 // NO3- to N2
 )
 
-// OxidationOrder lists the reductants in the order they are oxidised (see
+// oxidationOrder lists the reductants in the order they are oxidised (see
 // OxidationOrderBasis): total sulfide, Fe(II), Mn(II).
-var OxidationOrder = []string{"sulfide", "Fe(II)", "Mn(II)"}
+var oxidationOrder = []string{"sulfide", "Fe(II)", "Mn(II)"}
 
 // RedoxInput is what a Solution does not carry about redox, mol/kgw: dissolved O2,
 // total dissolved sulfide (H2S + HS-, not part of the SO4 2- total) and the part of
@@ -123,7 +123,7 @@ func redoxAmounts(s Solution, in RedoxInput) RedoxAmounts {
 
 // Oxidize mixes a and b (f the mass fraction of b's water, as in Mix) with their
 // redox content ra and rb, oxidises the reductants of the mixture with its oxidants
-// by an electron balance in the order of OxidationOrder, removes the ferrihydrite
+// by an electron balance in the order of oxidationOrder, removes the ferrihydrite
 // (Fe(II) oxidised plus any Fe(III) carried in) and MnO2 formed, and re-solves the
 // rest at tempC. The Fe(OH)3 and MnO2 amounts follow 4 Fe2+ + O2 + 10 H2O = 4 Fe(OH)3
 // + 8 H+ and 2 Mn2+ + O2 + 2 H2O = 2 MnO2 + 4 H+ (and with nitrate, 5 Fe2+ + NO3- +
@@ -232,7 +232,7 @@ func (r *Reactor) Oxidize(a, b Solution, ra, rb RedoxInput, f, tempC float64, op
 	return out, nil
 }
 
-// electronBalance oxidises the reductants of m in OxidationOrder with O2, then (if
+// electronBalance oxidises the reductants of m in oxidationOrder with O2, then (if
 // nitrate) NO3-, changing m in place, and returns the steps.
 func electronBalance(m *RedoxAmounts, nitrate bool) []OxidationStep {
 	type ox struct {
@@ -291,3 +291,6 @@ func (o *Oxidation) String() string {
 	}
 	return s
 }
+
+// OxidationOrder returns a copy of oxidationOrder (read-only package data).
+func OxidationOrder() []string { return append([]string(nil), oxidationOrder...) }
