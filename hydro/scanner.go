@@ -1,6 +1,7 @@
 package hydro
 
 import (
+	"bytes"
 	"fmt"
 	"io"
 	"os"
@@ -45,6 +46,7 @@ type Scanner struct {
 	// finalMapping is the mapping of the whole file, known after a first
 	// pass (long files list parameters as they are met).
 	finalMapping []HeaderMapping
+	count        int // rows found by a first pass, -1 when none was made
 	done         bool
 	err          error
 }
@@ -71,25 +73,38 @@ func ScanFile(path string, opt Options) (*Scanner, error) {
 	return scanFile(path, opt, false)
 }
 
+// ScanBytes reads a lab file held in memory as ScanFile reads one from
+// disk (two passes).
+func ScanBytes(raw []byte, file string, opt Options) (*Scanner, error) {
+	return scanTwice(func() (io.ReadCloser, error) { return io.NopCloser(bytes.NewReader(raw)), nil }, file, opt, false)
+}
+
 func scanFile(path string, opt Options, fieldSheet bool) (*Scanner, error) {
-	open := func() (*os.File, error) {
+	open := func() (io.ReadCloser, error) {
 		f, err := os.Open(path)
 		if err != nil {
 			return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 		}
 		return f, nil
 	}
+	return scanTwice(open, path, opt, fieldSheet)
+}
+
+// scanTwice reads a file once for its duplicate ids, well places and
+// parameter names, then returns a Scanner over it from the start.
+func scanTwice(open func() (io.ReadCloser, error), file string, opt Options, fieldSheet bool) (*Scanner, error) {
 	f, err := open()
 	if err != nil {
 		return nil, err
 	}
-	first, err := newScanner(f, path, opt, fieldSheet)
+	first, err := newScanner(f, file, opt, fieldSheet)
 	if err != nil {
 		f.Close()
 		return nil, err
 	}
 	first.closer = f
 	dups := first.dups
+	n := 0
 	for {
 		r, ok, err := first.next()
 		if err != nil {
@@ -99,7 +114,8 @@ func scanFile(path string, opt Options, fieldSheet bool) (*Scanner, error) {
 		if !ok {
 			break
 		}
-		dups.observe(&r)
+			dups.observe(&r)
+		n++
 	}
 	mapping := first.Batch().Mapping
 	if err := first.Close(); err != nil {
@@ -109,13 +125,23 @@ func scanFile(path string, opt Options, fieldSheet bool) (*Scanner, error) {
 	if err != nil {
 		return nil, err
 	}
-	s, err := newScanner(f, path, opt, fieldSheet)
+	s, err := newScanner(f, file, opt, fieldSheet)
 	if err != nil {
 		f.Close()
 		return nil, err
 	}
-	s.closer, s.dups, s.finalMapping = f, dups, mapping
+	s.closer, s.dups, s.finalMapping, s.count = f, dups, mapping, n
 	return s, nil
+}
+
+// Len returns the number of rows, known when the file was read twice
+// (ScanFile, ScanBytes); -1 otherwise.
+func (s *Scanner) Len() int { return s.count }
+
+// HasRows says whether the file has any data row (or an unreadable rest
+// that is reported as one).
+func (s *Scanner) HasRows() bool {
+	return len(s.pend) > 0 || len(s.queue) > 0 || s.csv != nil && s.csv.brokenAt > 0
 }
 
 // newScanner reads the header and the prefix.
@@ -141,7 +167,7 @@ func newScanner(r io.Reader, file string, opt Options, fieldSheet bool) (*Scanne
 	if err != nil {
 		return nil, err
 	}
-	s := &Scanner{src: cs, csv: cs, dups: newDupIndex()}
+	s := &Scanner{src: cs, csv: cs, dups: newDupIndex(), count: -1}
 	if err := s.start(&grid{file: file, delim: delim, fieldSheet: fieldSheet}, opt); err != nil {
 		return nil, err
 	}
@@ -150,7 +176,7 @@ func newScanner(r io.Reader, file string, opt Options, fieldSheet bool) (*Scanne
 
 // gridScanner hands out the rows of a table held in memory.
 func gridScanner(g *grid, opt Options) (*Scanner, error) {
-	s := &Scanner{src: &gridSource{g: g}, dups: newDupIndex()}
+	s := &Scanner{src: &gridSource{g: g}, dups: newDupIndex(), count: -1}
 	if err := s.start(g, opt); err != nil {
 		return nil, err
 	}

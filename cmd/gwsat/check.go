@@ -78,22 +78,40 @@ type checkOutputs struct{ table, json, geojson string }
 // input order: read, speciate on every core, write; only a bounded number of
 // rows is in flight.
 func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs checkOutputs, sh shard, showColumns bool) error {
-	batches, err := in.readInputs(e, args)
+	ins, fieldName, err := in.openInputs(e, args)
 	if err != nil {
 		return usageErr(err)
+	}
+	defer func() {
+		for _, x := range ins {
+			x.sc.Close()
+		}
+	}()
+	metas := make([]*hydro.Batch, len(ins))
+	for i, x := range ins {
+		metas[i] = x.meta
 	}
 	ch, err := in.chemistry()
 	if err != nil {
 		return usageErr(err)
 	}
 	minerals := ch.db.MineralNames()
-	cols := report.ColumnsFor(batches, minerals)
-	sum := assess.NewSummary(files(batches)...)
+	// The table's header is written before the first row: its columns
+	// come from the files' header mappings, not from the rows.
+	cols := columnsOf(metas, minerals)
+	sum := assess.NewSummary(files(metas)...)
+	// The total is known when every file was read twice (not from
+	// standard input); without it no bar is shown.
 	total := 0
-	for _, b := range batches {
-		total += len(b.Rows)
+	var barOut io.Writer = stderrFile(e)
+	for _, x := range ins {
+		if n := x.sc.Len(); n >= 0 {
+			total += n
+		} else {
+			barOut = io.Discard
+		}
 	}
-	bar := progress.New(stderrFile(e), "speciating", sh.count(total))
+	bar := progress.New(barOut, "speciating", sh.count(total))
 	opt := ch.options(bar, outs.json != "")
 	opt.Progress = nil
 	err = e.writeFile(outs.table, func(tw io.Writer) error {
@@ -111,7 +129,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 				if gw != nil {
 					gs = geo.NewSampleWriter(gw)
 				}
-				err := assess.Stream(e.ctx, ch.db, sh.filter(assess.BatchItems(batches)), opt, func(r *assess.Record) error {
+				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
 					bar.Add(1)
 					sum.Add(r)
 					if err := cw.Write(cols.Row(r)); err != nil {
@@ -152,8 +170,14 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 	if err != nil {
 		return failed(fmt.Errorf("writing the outputs: %w", err))
 	}
+	printJoin(e, ins, fieldName)
 	if showColumns {
-		printColumns(e.stderr, batches)
+		printColumns(e.stderr, metas)
+	}
+	for _, x := range ins {
+		for _, is := range x.sc.FileIssues() {
+			e.printLines([]string{fmt.Sprintf("gwsat: %s: %s", x.meta.File, is)})
+		}
 	}
 	if !oc.quiet {
 		if err := e.writeSummary(sum); err != nil {
@@ -161,6 +185,29 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		}
 	}
 	return oc.verdict(sum)
+}
+
+// columnsOf builds the table's columns from the files' header mappings
+// (hydro.Batch.TableColumns), so that the header is known before any row.
+func columnsOf(metas []*hydro.Batch, minerals []string) report.Columns {
+	var analytes, extra []string
+	seenA, seenX := map[string]bool{}, map[string]bool{}
+	for _, b := range metas {
+		a, x := b.TableColumns()
+		for _, k := range a {
+			if !seenA[k] {
+				seenA[k] = true
+				analytes = append(analytes, k)
+			}
+		}
+		for _, h := range x {
+			if !seenX[h] {
+				seenX[h] = true
+				extra = append(extra, h)
+			}
+		}
+	}
+	return report.ColumnsOf(minerals, analytes, extra)
 }
 
 // withOptional runs fill with a writer for path, or with nil when path is "".
