@@ -114,7 +114,7 @@ func scanTwice(open func() (io.ReadCloser, error), file string, opt Options, fie
 		if !ok {
 			break
 		}
-			dups.observe(&r)
+		dups.observe(&r)
 		n++
 	}
 	mapping := first.Batch().Mapping
