@@ -47,8 +47,10 @@ type Scanner struct {
 	// pass (long files list parameters as they are met).
 	finalMapping []HeaderMapping
 	count        int // rows found by a first pass, -1 when none was made
-	done         bool
-	err          error
+	// early is how many held records the decisions were taken from.
+	early int
+	done  bool
+	err   error
 }
 
 // NewScanner starts reading a lab file (CSV text, or an .xlsx workbook
@@ -235,13 +237,14 @@ func (s *Scanner) start(g *grid, opt Options) error {
 		b.UnitsLine = lines[0]
 		recs, lines = recs[1:], lines[1:]
 	}
-	rd.decComma = !g.workbook && decideDecimal(opt.DecimalSep, g.delim, recs, rd)
+	rd.decComma = !g.workbook && decideDecimal(opt.DecimalSep, g.delim, recs[:min(len(recs), PrefixRows)], rd)
 	if len(recs) > 0 && rd.shape == Wide && rd.applyLimitsRow(recs[0], lines[0]) {
 		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipLimitsRow, Cells: recs[0]})
 		recs, lines = recs[1:], lines[1:]
 	}
-	rd.decideDateOrder(recs)
-	rd.scanPH(recs)
+	s.early = min(len(recs), PrefixRows)
+	rd.decideDateOrder(recs[:s.early])
+	rd.scanPH(recs[:s.early])
 	s.pend, s.pendLines = recs, lines
 	rd.finishMapping()
 	b.Shape, b.DecimalComma, b.Mapping = rd.shape, rd.decComma, rd.mapping
@@ -347,6 +350,11 @@ func (s *Scanner) record() ([]string, int, error) {
 		rec, line := s.pend[0], s.pendLines[0]
 		s.pend[0] = nil
 		s.pend, s.pendLines = s.pend[1:], s.pendLines[1:]
+		if s.early > 0 {
+			s.early--
+		} else {
+			s.rd.late = true
+		}
 		return rec, line, nil
 	}
 	rec, line, err := s.src.next()
