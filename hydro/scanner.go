@@ -47,6 +47,9 @@ type Scanner struct {
 	// pass (long files list parameters as they are met).
 	finalMapping []HeaderMapping
 	count        int // rows found by a first pass, -1 when none was made
+	// keysOnly: a first pass, reading only what duplicate checks compare
+	// (wide shape; a long file is read whole for its parameter names).
+	keysOnly bool
 	// early is how many held records the decisions were taken from.
 	early int
 	done  bool
@@ -104,7 +107,7 @@ func scanTwice(open func() (io.ReadCloser, error), file string, opt Options, fie
 		f.Close()
 		return nil, err
 	}
-	first.closer = f
+	first.closer, first.keysOnly = f, true
 	dups := first.dups
 	n := 0
 	for {
@@ -335,6 +338,10 @@ func (s *Scanner) next() (Row, bool, error) {
 			if r, ok := s.long.add(rec, line); ok {
 				s.queue = append(s.queue, r)
 			}
+			continue
+		}
+		if s.keysOnly {
+			s.queue = append(s.queue, s.rd.keyRow(rec, line))
 			continue
 		}
 		s.queue = append(s.queue, s.rd.wideRow(rec, line))

@@ -388,3 +388,38 @@ func TestTableColumnsCoverRows(t *testing.T) {
 		}
 	}
 }
+
+// The first pass's key rows carry the same ids, events and places as the
+// rows themselves.
+func TestKeyRowsMatchRows(t *testing.T) {
+	inputs := map[string]string{}
+	for k, v := range scanInputs {
+		inputs[k] = v
+	}
+	inputs["utm"] = "Sample,Well,Easting,Northing,EPSG,Sampled,Time,Ca\nA,W1,500000,5800000,32631,03/04/2024,10:00,1\nB,W1,500050,5800000,,13/04/2024,,1\n"
+	for name, text := range inputs {
+		s, err := NewScanner(strings.NewReader(text), name, Options{EPSG: 32632})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if s.rd.shape == Long {
+			continue
+		}
+		k, err := NewScanner(strings.NewReader(text), name, Options{EPSG: 32632})
+		if err != nil {
+			t.Fatal(err)
+		}
+		k.keysOnly = true
+		rows := scanAll(t, s)
+		for i := range rows {
+			kr, ok, err := k.next()
+			if err != nil || !ok {
+				t.Fatalf("%s: key row %d: %v %v", name, i, ok, err)
+			}
+			a, b := &rows[i].Sample, &kr.Sample
+			if a.ID != b.ID || a.Event != b.Event || a.WellID != b.WellID || a.Lat != b.Lat || a.Lon != b.Lon || a.Easting != b.Easting || a.Northing != b.Northing || a.EPSG != b.EPSG {
+				t.Errorf("%s line %d: key row %+v differs from row %+v", name, rows[i].Line, b, a)
+			}
+		}
+	}
+}

@@ -88,6 +88,25 @@ func (rd *reader) wideRow(rec []string, line int) Row {
 	return row
 }
 
+// keyRow reads only what duplicate checks compare (sample and well ids,
+// round, date, place) from a record: the first pass of a file read twice.
+// The values are those wideRow gives (the same setField and event rule).
+func (rd *reader) keyRow(rec []string, line int) Row {
+	row := Row{Line: line, Sample: newSample()}
+	for i, sp := range rd.specs {
+		if i >= len(rec) || sp.Param == "" || sp.Sub != "" || sp.Class == clConc || i == rd.rowUnitCol {
+			continue
+		}
+		switch sp.Class {
+		case clText, clDate, clInt, clDegrees, clCoord:
+			rd.setField(&row, line, rd.header[i], rd.header[i], sp, rec[i])
+		}
+	}
+	rd.defaultEPSG(&row.Sample)
+	setEvent(&row.Sample)
+	return row
+}
+
 // rowUnitSpec gives an analyte column without a unit of its own the unit
 // of the row's unit cell; a blank unit cell leaves mg/L assumed.
 func (rd *reader) rowUnitSpec(sp colSpec, unit string) (colSpec, string) {
