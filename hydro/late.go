@@ -6,7 +6,7 @@ import "strings"
 // contradict a decision taken from the prefix: a decimal point in a file
 // read with decimal commas, or a slash date that can only be read in the
 // other day/month order.
-func (rd *reader) checkLate(row *Row, rec []string) {
+func (rd *reader) checkLate(row *Row, line int, rec []string) {
 	if !rd.late {
 		return
 	}
@@ -19,11 +19,11 @@ func (rd *reader) checkLate(row *Row, rec []string) {
 		case sp.Class == clDate && rd.opt.DateOrder == DateAuto:
 			o := rd.dateOrder[rd.header[i]]
 			if got := slashOrder(c); o != 0 && got != 0 && got != o {
-				row.add(Warning, CodeLateContradiction, row.Line, rd.header[i], "date %q can only be read %s, but the first %d rows settled %s for this column", c, orderName(got), PrefixRows, orderName(o))
+				row.add(Warning, CodeLateContradiction, line, rd.header[i], "date %q can only be read %s, but the first %d rows settled %s for this column", c, orderName(got), PrefixRows, orderName(o))
 			}
 		case rd.decComma && rd.opt.DecimalSep == 0 && sp.Class != clText && sp.Class != clDate && sp.Class != clLongParam:
 			if rePointDec.MatchString(c) && !strings.Contains(c, ",") {
-				row.add(Warning, CodeLateContradiction, row.Line, rd.header[i], "%q has a decimal point, but the first %d rows use decimal commas: read with a decimal point", c, PrefixRows)
+				row.add(Warning, CodeLateContradiction, line, rd.header[i], "%q has a decimal point, but the first %d rows use decimal commas: read with a decimal point", c, PrefixRows)
 			}
 		}
 	}

@@ -60,7 +60,8 @@ func (g *longGroup) add(rec []string, line int) (finished Row, done bool) {
 	g.lines = append(g.lines, line)
 	row := g.row
 	s := &row.Sample
-	firstLine, seenParam, specCache, mapped := g.firstLine, g.seenParam, g.specCache, g.mapped
+	firstLine, seenParam := g.firstLine, g.seenParam
+	rd.checkLate(row, line, rec)
 	if rd.ragged(rec) {
 		col := ""
 		if len(rec) < len(rd.header) {
@@ -124,33 +125,7 @@ func (g *longGroup) add(rec []string, line int) (finished Row, done bool) {
 		}
 		return finished, done
 	}
-	ck := name + "\x00" + unit
-	sp, ok := specCache[ck]
-	if !ok {
-		sp = parseHeader(name)
-		if sp.Param != "" && sp.Sub == "" && unit != "" {
-			sp = withUnit(sp, unit)
-		}
-		if sp.Sub != "" || sp.Class >= clLongParam || sp.Param == pSampleID || sp.Param == pID || sp.Param == pSampleNo {
-			sp = colSpec{}
-		}
-		if sp.Param == pPH {
-			sp.Param = pPHLab
-		}
-		specCache[ck] = sp
-	}
-	if !mapped[ck] {
-		mapped[ck] = true
-		src := UnitFromCell
-		if unit == "" {
-			src = rd.initialUnitSource(sp)
-		}
-		m := mappingFor(rd.paramCol+1, name, sp, src)
-		if unit != "" && m.Note == "not recognised; kept in Extra" {
-			m.Unit = unit
-		}
-		rd.longMapping = append(rd.longMapping, m)
-	}
+	sp := g.param(name, unit)
 	if sp.Param == "" {
 		if val != "" {
 			row.add(Warning, CodeUnknownParameter, line, rd.header[rd.paramCol], "unknown parameter %q: kept in Extra", name)
@@ -183,6 +158,58 @@ func (g *longGroup) add(rec []string, line int) (finished Row, done bool) {
 		rd.setField(row, line, valCol, name, sp, val)
 	}
 	return finished, done
+}
+
+// param returns what a parameter name with its unit cell means, and lists
+// it in the mapping the first time it is met.
+func (g *longGroup) param(name, unit string) colSpec {
+	rd := g.rd
+	ck := name + "\x00" + unit
+	sp, ok := g.specCache[ck]
+	if !ok {
+		sp = parseHeader(name)
+		if sp.Param != "" && sp.Sub == "" && unit != "" {
+			sp = withUnit(sp, unit)
+		}
+		if sp.Sub != "" || sp.Class >= clLongParam || sp.Param == pSampleID || sp.Param == pID || sp.Param == pSampleNo {
+			sp = colSpec{}
+		}
+		if sp.Param == pPH {
+			sp.Param = pPHLab
+		}
+		g.specCache[ck] = sp
+	}
+	if !g.mapped[ck] {
+		g.mapped[ck] = true
+		src := UnitFromCell
+		if unit == "" {
+			src = rd.initialUnitSource(sp)
+		}
+		m := mappingFor(rd.paramCol+1, name, sp, src)
+		if unit != "" && m.Note == "not recognised; kept in Extra" {
+			m.Unit = unit
+		}
+		rd.longMapping = append(rd.longMapping, m)
+	}
+	return sp
+}
+
+// premap lists in the mapping the parameter names of records not read yet
+// (the held prefix), in file order, so that the mapping is known before
+// their rows.
+func (g *longGroup) premap(recs [][]string) {
+	rd := g.rd
+	for _, rec := range recs {
+		get := func(j int) string {
+			if j >= 0 && j < len(rec) {
+				return rec[j]
+			}
+			return ""
+		}
+		if name := get(rd.paramCol); name != "" {
+			g.param(name, get(rd.unitCol))
+		}
+	}
 }
 
 // prevCell returns cell i of the current sample's line fl.

@@ -255,6 +255,7 @@ func (s *Scanner) start(g *grid, opt Options) error {
 	b.Warnings = rd.fileWarnings
 	if rd.shape == Long {
 		s.long = newLongGroup(rd)
+		s.long.premap(s.pend)
 	}
 	s.b, s.rd = b, rd
 	return nil

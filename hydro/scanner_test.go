@@ -103,6 +103,13 @@ func TestScannerReadOnce(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
+			// the metadata, long-shape parameter names too, is known
+			// before the first row
+			meta, whole := s.Batch(), *want
+			whole.Rows = nil
+			if !reflect.DeepEqual(meta, &whole) {
+				t.Errorf("metadata before the rows:\n got %+v\nwant %+v", meta, &whole)
+			}
 			got := scanAll(t, s)
 			if len(got) != len(want.Rows) {
 				t.Fatalf("%d rows, want %d", len(got), len(want.Rows))

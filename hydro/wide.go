@@ -40,7 +40,7 @@ func (rd *reader) wideRow(rec []string, line int) Row {
 			break
 		}
 	}
-	rd.checkLate(&row, rec)
+	rd.checkLate(&row, line, rec)
 	rd.checkDupCells(&row, rec)
 	rowUnit := ""
 	if rd.rowUnitCol >= 0 && rd.rowUnitCol < len(rec) {

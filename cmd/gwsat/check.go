@@ -4,6 +4,8 @@ import (
 	"encoding/csv"
 	"fmt"
 	"io"
+	"sort"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -100,6 +102,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 	// come from the files' header mappings, not from the rows.
 	cols := columnsOf(metas, minerals)
 	sum := assess.NewSummary(files(metas)...)
+	off := newOffTable(cols)
 	// The total is known when every file was read twice (not from
 	// standard input); without it no bar is shown.
 	total := 0
@@ -132,6 +135,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
 					bar.Add(1)
 					sum.Add(r)
+					off.count(r)
 					if err := cw.Write(cols.Row(r)); err != nil {
 						return err
 					}
@@ -172,7 +176,14 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 	}
 	printJoin(e, ins, fieldName)
 	if showColumns {
-		printColumns(e.stderr, metas)
+		final := make([]*hydro.Batch, len(ins))
+		for i, x := range ins {
+			final[i] = x.sc.Batch() // a long file read once: every name met
+		}
+		printColumns(e.stderr, final)
+	}
+	if l := off.line(); l != "" {
+		e.printLines([]string{l})
 	}
 	for _, x := range ins {
 		for _, is := range x.sc.FileIssues() {
@@ -208,6 +219,55 @@ func columnsOf(metas []*hydro.Batch, minerals []string) report.Columns {
 		}
 	}
 	return report.ColumnsOf(minerals, analytes, extra)
+}
+
+// offTable counts the values of rows that the table has no column for: a
+// long file read once from standard input whose parameter is first met
+// after the rows the header was built from (hydro.PrefixRows). The JSON
+// output still carries them.
+type offTable struct {
+	analytes, extra map[string]bool
+	n               int
+	names           map[string]bool
+}
+
+func newOffTable(c report.Columns) *offTable {
+	o := &offTable{analytes: map[string]bool{}, extra: map[string]bool{}, names: map[string]bool{}}
+	for _, a := range c.Analytes {
+		o.analytes[a] = true
+	}
+	for _, x := range c.Extra {
+		o.extra[x] = true
+	}
+	return o
+}
+
+func (o *offTable) count(r *assess.Record) {
+	for k := range r.Row.Sample.Analytes {
+		if !o.analytes[k] {
+			o.n++
+			o.names[k] = true
+		}
+	}
+	for _, x := range r.Row.Sample.ExtraColumns {
+		if !o.extra[x.Header] {
+			o.n++
+			o.names[x.Header] = true
+		}
+	}
+}
+
+// line says what was left out of the table, "" when nothing was.
+func (o *offTable) line() string {
+	if o.n == 0 {
+		return ""
+	}
+	names := make([]string, 0, len(o.names))
+	for k := range o.names {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	return fmt.Sprintf("gwsat: %d values of %s have no table column (first met after the first %d rows of a file read once; read it from a file, or see --json)", o.n, strings.Join(limitList(names, 10), ", "), hydro.PrefixRows)
 }
 
 // withOptional runs fill with a writer for path, or with nil when path is "".
