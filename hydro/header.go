@@ -86,7 +86,7 @@ func (rd *reader) mapHeader() error {
 		if j, dup := first[k]; dup {
 			rd.dupCols = append(rd.dupCols, [2]int{j, i})
 			rd.fileWarnings = append(rd.fileWarnings, Issue{Severity: Warning, Code: CodeDuplicateColumn, Column: rd.header[i],
-				Message: fmt.Sprintf("column %d (%q) means the same (%s) as column %d (%q): the first is used, the second kept as an extra column; rows where they differ are warned", i+1, rd.header[i], k, j+1, rd.header[j])})
+				Message: fmt.Sprintf("column %d (%q) means the same (%s) as column %d (%q): the first is used, the second kept as an extra column; rows where they differ are warned", i+1, rd.header[i], strings.TrimSuffix(k, "."), j+1, rd.header[j])})
 			*s = colSpec{Note: fmt.Sprintf("same parameter as column %d (%q); kept unmapped", j+1, rd.header[j])}
 			continue
 		}

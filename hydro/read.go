@@ -80,15 +80,16 @@ func sniffZip(r io.Reader) (io.Reader, bool, error) {
 
 // limitedReader fails once more than n bytes are read.
 type limitedReader struct {
-	r io.Reader
-	n int64
+	r     io.Reader
+	n     int64
+	limit int64
 }
 
 func (l *limitedReader) Read(p []byte) (int, error) {
 	n, err := l.r.Read(p)
 	l.n -= int64(n)
 	if l.n < 0 {
-		return n, fmt.Errorf("%w: larger than the byte limit", ErrRead)
+		return n, fmt.Errorf("larger than %d bytes (Options.MaxBytes)", l.limit)
 	}
 	return n, err
 }

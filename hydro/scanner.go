@@ -166,7 +166,7 @@ func newScanner(r io.Reader, file string, opt Options, fieldSheet bool) (*Scanne
 		return gridScanner(g, opt)
 	}
 	if opt.MaxBytes > 0 {
-		br = &limitedReader{r: br, n: opt.MaxBytes}
+		br = &limitedReader{r: br, n: opt.MaxBytes, limit: opt.MaxBytes}
 	}
 	cs, delim, err := newCSVSource(br, file, opt)
 	if err != nil {
@@ -278,12 +278,12 @@ func (s *Scanner) Batch() *Batch {
 
 // FileIssues returns the issues about the file as a whole: duplicate
 // columns (as Batch().Warnings) and, once the rows are read, how many
-// earlier rows of a duplicate could not be warned because the input was
-// read once.
+// duplicate warnings could not be given to the earlier row because the
+// input was read once.
 func (s *Scanner) FileIssues() []Issue {
 	out := append([]Issue(nil), s.b.Warnings...)
 	if s.once && s.dups.late > 0 {
-		out = append(out, Issue{Severity: Warning, Code: CodeDuplicateID, Message: fmt.Sprintf("%d earlier rows share a sample id (same event) or a well id (far apart) with a later row; the later rows name them (the input was read once: read it from a file to have both warned)", s.dups.late)})
+		out = append(out, Issue{Severity: Warning, Code: CodeDuplicateID, Message: fmt.Sprintf("%d duplicate warnings (a sample id used again in one event, or a well id far apart) could not be given to the earlier row: the later rows name the earlier lines (the input was read once; read it from a file to have both rows warned)", s.dups.late)})
 	}
 	return out
 }

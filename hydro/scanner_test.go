@@ -430,3 +430,28 @@ func TestKeyRowsMatchRows(t *testing.T) {
 		}
 	}
 }
+
+// A header with a cell of almost MaxLineBytes, or thousands of cells, is
+// read (the long cell is an unmapped column), in bounded work: parseHeader
+// gives up on a cell longer than maxHeaderLen before any pattern runs.
+func TestHostileHeaders(t *testing.T) {
+	long := strings.Repeat("Ca (mg/L) ", (MaxLineBytes-100)/10)
+	many := strings.Repeat("zz,", 20000)
+	cases := []struct {
+		name, header string
+		cols         int
+	}{
+		{"long cell", "Sample,Ca (mg/L)," + long, 3},
+		{"many cells", "Sample,Ca (mg/L)," + many + "y", 20003},
+	}
+	for _, c := range cases {
+		text := c.header + "\nA,1\n"
+		b, err := Read(strings.NewReader(text), "f.csv", Options{})
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if len(b.Mapping) != c.cols || b.Mapping[2].Param != "" || b.Rows[0].Sample.Analytes["Ca"].Value != 1 {
+			t.Errorf("%s: %d columns, third %q", c.name, len(b.Mapping), b.Mapping[2].Param)
+		}
+	}
+}

@@ -2,6 +2,7 @@ package main
 
 import (
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"sort"
@@ -171,6 +172,10 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		})
 	})
 	bar.Done()
+	var ie *inputError
+	if errors.As(err, &ie) {
+		return failed(ie.err)
+	}
 	if err != nil {
 		return failed(fmt.Errorf("writing the outputs: %w", err))
 	}
@@ -186,9 +191,11 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		e.printLines([]string{l})
 	}
 	for _, x := range ins {
+		var l []string
 		for _, is := range x.sc.FileIssues() {
-			e.printLines([]string{fmt.Sprintf("gwsat: %s: %s", x.meta.File, is)})
+			l = append(l, fmt.Sprintf("gwsat: %s: %s", x.meta.File, is))
 		}
+		e.printLines(limitList(l, 10))
 	}
 	if !oc.quiet {
 		if err := e.writeSummary(sum); err != nil {

@@ -367,7 +367,7 @@ func scanItems(ins []*labInput) func() (assess.Item, bool, error) {
 			in := ins[k]
 			r, ok, err := in.sc.Next()
 			if err != nil {
-				return assess.Item{}, false, fmt.Errorf("reading %s: %w", in.meta.File, err)
+				return assess.Item{}, false, &inputError{fmt.Errorf("reading %s: %w", in.meta.File, err)}
 			}
 			if !ok {
 				k++
@@ -384,6 +384,14 @@ func scanItems(ins []*labInput) func() (assess.Item, bool, error) {
 		return assess.Item{}, false, nil
 	}
 }
+
+// inputError is a lab file that could not be read to its end (binary data
+// or an overlong line after the start): the rows before it were assessed,
+// and the outputs are not written.
+type inputError struct{ err error }
+
+func (e *inputError) Error() string { return e.err.Error() }
+func (e *inputError) Unwrap() error { return e.err }
 
 // printJoin lists, after the rows are read, how the field sheet joined.
 func printJoin(e *env, ins []*labInput, name string) {
