@@ -49,7 +49,7 @@ func collect(s *Scanner, err error) (*Batch, error) {
 		return nil, err
 	}
 	d := s.dups
-	if s.finalMapping == nil {
+	if s.count < 0 { // read once: observe every row before warning any
 		for i := range rows {
 			d.observe(&rows[i])
 		}

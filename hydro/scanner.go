@@ -72,8 +72,9 @@ func NewScanner(r io.Reader, file string, opt Options) (*Scanner, error) {
 // ScanFile reads the lab file at path as NewScanner does, but in two
 // passes: the first reads the whole file for sample ids, well places and
 // (long shape) parameter names, so that both rows of a duplicate are
-// warned and Batch().Mapping is complete from the start. Close the Scanner
-// when done.
+// warned and Batch().Mapping is complete from the start. A path that is not
+// a regular file (a pipe) is read once, as by NewScanner. Close the
+// Scanner when done.
 func ScanFile(path string, opt Options) (*Scanner, error) {
 	return scanFile(path, opt, false)
 }
@@ -91,6 +92,21 @@ func scanFile(path string, opt Options, fieldSheet bool) (*Scanner, error) {
 			return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 		}
 		return f, nil
+	}
+	// A pipe or device (a shell's process substitution, /dev/stdin)
+	// cannot be read twice: read it once.
+	if fi, err := os.Stat(path); err == nil && !fi.Mode().IsRegular() {
+		f, err := open()
+		if err != nil {
+			return nil, err
+		}
+		s, err := newScanner(f, path, opt, fieldSheet)
+		if err != nil {
+			f.Close()
+			return nil, err
+		}
+		s.closer, s.once = f, true
+		return s, nil
 	}
 	return scanTwice(open, path, opt, fieldSheet)
 }
