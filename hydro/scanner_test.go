@@ -455,3 +455,15 @@ func TestHostileHeaders(t *testing.T) {
 		}
 	}
 }
+
+// Blank lines above the table are not an empty file, however many.
+func TestBlankLinesAbove(t *testing.T) {
+	text := strings.Repeat("\n", 100) + "Sample,Ca (mg/L)\nA,1\n"
+	b, err := Read(strings.NewReader(text), "f.csv", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(b.Rows) != 1 || b.Rows[0].Line != 102 {
+		t.Errorf("rows %+v", b.Rows)
+	}
+}

@@ -38,11 +38,11 @@ func newCSVSource(r io.Reader, file string, opt Options) (*csvSource, rune, erro
 	br := bufio.NewReaderSize(tr, MaxLineBytes)
 	delim := opt.Delimiter
 	if delim == 0 {
-		head, err := peekLines(br, 40)
+		head, all, err := peekLines(br, 40)
 		if err != nil {
 			return nil, 0, &ReadError{File: file, Err: err}
 		}
-		if len(bytes.TrimSpace(bytes.ReplaceAll(head, []byte("\ufeff"), nil))) == 0 {
+		if all && len(bytes.TrimSpace(bytes.ReplaceAll(head, []byte("\ufeff"), nil))) == 0 {
 			return nil, 0, &ReadError{File: file, Err: ErrEmpty}
 		}
 		delim = detectDelimiter(string(head))
@@ -59,23 +59,22 @@ func newCSVSource(r io.Reader, file string, opt Options) (*csvSource, rune, erro
 }
 
 // peekLines returns the first n lines of br (or fewer, at the end of the
-// text) without consuming them. A line is at most MaxLineBytes (the text
-// reader refuses longer ones), so the peek is bounded.
-func peekLines(br *bufio.Reader, n int) ([]byte, error) {
+// text or when they fill br's buffer) without consuming them, and whether
+// they are the whole text. A line is at most MaxLineBytes (the text reader
+// refuses longer ones), so the peek is bounded.
+func peekLines(br *bufio.Reader, n int) ([]byte, bool, error) {
 	size := 64 << 10
 	for {
 		b, err := br.Peek(size)
-		if bytes.Count(b, []byte{'\n'}) >= n || err != nil && len(b) < size {
-			if err != nil && err != io.EOF && !errors.Is(err, bufio.ErrBufferFull) {
-				return nil, err
-			}
-			return b, nil
+		switch {
+		case err == io.EOF:
+			return b, true, nil
+		case err != nil && !errors.Is(err, bufio.ErrBufferFull):
+			return nil, false, err
+		case bytes.Count(b, []byte{'\n'}) >= n || size >= br.Size():
+			return b, false, nil
 		}
-		if size >= br.Size() {
-			// the buffer is full of fewer than n lines: enough to decide
-			return b, nil
-		}
-		size *= 2
+		size = min(2*size, br.Size())
 	}
 }
 
