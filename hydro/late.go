@@ -38,7 +38,7 @@ func orderName(o byte) string {
 
 // checkDupCells warns a row whose two columns of one meaning hold
 // different values (the first column's value is used).
-func (rd *reader) checkDupCells(row *Row, rec []string) {
+func (rd *reader) checkDupCells(row *Row, line int, rec []string) {
 	for _, p := range rd.dupCols {
 		a, b := p[0], p[1]
 		if a >= len(rec) || b >= len(rec) || rec[a] == "" || rec[b] == "" || rec[a] == rec[b] {
@@ -49,6 +49,6 @@ func (rd *reader) checkDupCells(row *Row, rec []string) {
 				continue // "40" and "40.0"
 			}
 		}
-		row.add(Warning, CodeDuplicateColumn, row.Line, rd.header[b], "columns %d (%q) and %d (%q) mean the same but differ: %q and %q; the first used", a+1, rd.header[a], b+1, rd.header[b], rec[a], rec[b])
+		row.add(Warning, CodeDuplicateColumn, line, rd.header[b], "columns %d (%q) and %d (%q) mean the same but differ: %q and %q; the first used", a+1, rd.header[a], b+1, rd.header[b], rec[a], rec[b])
 	}
 }

@@ -62,6 +62,7 @@ func (g *longGroup) add(rec []string, line int) (finished Row, done bool) {
 	s := &row.Sample
 	firstLine, seenParam := g.firstLine, g.seenParam
 	rd.checkLate(row, line, rec)
+	rd.checkDupCells(row, line, rec)
 	if rd.ragged(rec) {
 		col := ""
 		if len(rec) < len(rd.header) {

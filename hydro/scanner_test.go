@@ -45,6 +45,7 @@ var scanInputs = map[string]string{
 	"latin1":    "Sample,Ca (mg/L),Temp (\xb0C)\nA,40,12\n",
 	"places":    "Sample,Well,Lat,Lon,Ca\nA,W1,52.0,5.0,1\nB,W1,52.0,5.0001,1\nC,W1,53.0,5.0,1\nD,W1,52.0,6.0,1\n",
 	"dupcols":   "Sample,Ca,Ca (mg/L),Cl\nA,40,40.0,1\nB,40,41,1\nC,,41,1\n",
+	"longdup":   "Sample;Well;Site;Parameter;Value;Unit\nS1;W1;W1;Ca;40;mg/L\nS1;W1;W2;Cl;3;mg/L\n",
 }
 
 // Every file reads to the same rows and metadata whether collected by Read,
@@ -292,6 +293,27 @@ func TestControlCharactersKept(t *testing.T) {
 	}
 	if got := b.Rows[0].Sample.ID; got != "A\x1b[2J" {
 		t.Errorf("id %q", got)
+	}
+}
+
+// In a long file too, two sample-level columns of one meaning are warned
+// on the line where they differ.
+func TestDuplicateColumnsLong(t *testing.T) {
+	b, err := Read(strings.NewReader(scanInputs["longdup"]), "f.csv", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(b.Warnings) != 1 || len(b.Rows) != 1 {
+		t.Fatalf("warnings %v, %d rows", b.Warnings, len(b.Rows))
+	}
+	var lines []int
+	for _, is := range b.Rows[0].Issues {
+		if is.Code == CodeDuplicateColumn {
+			lines = append(lines, is.Line)
+		}
+	}
+	if !reflect.DeepEqual(lines, []int{3}) {
+		t.Errorf("duplicate-column warnings on lines %v, want [3] (%v)", lines, b.Rows[0].Issues)
 	}
 }
 

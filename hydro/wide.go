@@ -41,7 +41,7 @@ func (rd *reader) wideRow(rec []string, line int) Row {
 		}
 	}
 	rd.checkLate(&row, line, rec)
-	rd.checkDupCells(&row, rec)
+	rd.checkDupCells(&row, line, rec)
 	rowUnit := ""
 	if rd.rowUnitCol >= 0 && rd.rowUnitCol < len(rec) {
 		rowUnit = rec[rd.rowUnitCol]
