@@ -14,6 +14,12 @@ const (
 	CodeEmptySampleID Code = "empty-sample-id"
 	CodeDuplicateID   Code = "duplicate-sample-id"
 	CodeWellApart     Code = "well-id-places-apart"
+	// CodeDuplicateColumn: two columns of the same meaning (a file-level
+	// warning in Batch.Warnings, and a row warning where they differ).
+	CodeDuplicateColumn Code = "duplicate-column"
+	// CodeLateContradiction: a row read after the first PrefixRows rows
+	// contradicts a decision taken from them (decimal comma, date order).
+	CodeLateContradiction Code = "contradicts-earlier-rows"
 
 	// One cell.
 	CodeNotNumber       Code = "not-a-number"

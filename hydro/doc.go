@@ -73,6 +73,38 @@
 // per column from its values (a day above 12 settles it), or set by
 // Options.DateOrder; an undecidable date is left empty with a warning.
 //
+// # Large files
+//
+// A Scanner reads a lab file one Row at a time in bounded memory, for
+// files of millions of rows: ScanFile (from disk, two passes), ScanBytes
+// (in memory, two passes) or NewScanner (any reader, one pass, such as
+// standard input). Read, ReadFile and ReadFieldSheet collect a Scanner's
+// rows, so both give the same rows. CSV text streams: the byte-order mark,
+// line endings and Latin-1 are handled as the bytes are read (the text
+// encoding is decided from the first MiB), no limit applies to the whole
+// text unless Options.MaxBytes sets one, and a line longer than
+// MaxLineBytes is refused (ErrLineTooLong) before it is held. A workbook is
+// read into memory whole (Options.MaxBytes, 256 MiB by default) and then
+// handed out row by row.
+//
+// What needs many rows to decide (a decimal comma, the order of slash
+// dates per date column, a pH column that holds mV) is decided from the
+// first PrefixRows data rows, which are held until handed out; later rows
+// are read with those decisions, and one that contradicts them gets a
+// warning (CodeLateContradiction). A long file's samples are grouped as
+// they are read (consecutive lines of one id); only the current sample's
+// lines are held.
+//
+// Duplicate sample ids and far-apart wells are found from compact state
+// (per id and event its first line, per well its first located row). A
+// file read twice warns every row of a duplicate, as Read does; read once,
+// the later row names the earlier line and Scanner.FileIssues counts the
+// earlier rows that went unwarned. Batch.TableColumns gives a table's
+// analyte and extra columns from the header mapping alone, and FieldIndex
+// joins a field sheet to rows as they pass. Two columns of one meaning are
+// a file warning in Batch.Warnings and a row warning where they differ
+// (CodeDuplicateColumn).
+//
 // # Units
 //
 // Concentration units come from the header ("Ca (mg/L)", "Ba [ug/L]",
@@ -165,5 +197,5 @@
 // the measured/calculated TDS ratio of the same section.
 //
 // Main types: Batch, Row, Sample, Measurement, Unit, Issue, Code, Options,
-// FieldJoin, Water, Balance, ReadError.
+// Scanner, FieldJoin, FieldIndex, Water, Balance, ReadError.
 package hydro

@@ -15,6 +15,8 @@ var (
 	ErrColumnMap  = errors.New("hydro: bad column map")
 	ErrOption     = errors.New("hydro: bad option")
 	ErrSheet      = errors.New("hydro: no such sheet")
+	// ErrLineTooLong: a line of CSV text longer than MaxLineBytes.
+	ErrLineTooLong = errors.New("hydro: line too long")
 )
 
 // ReadError is a file-level error with its position, modelled on

@@ -19,21 +19,29 @@ import (
 // cells hold their value in every cell they cover. Row.Line is the sheet's
 // row number.
 func ReadExcel(r io.Reader, file string, opt Options) (*Batch, error) {
+	if err := opt.check(); err != nil {
+		return nil, &ReadError{File: file, Err: err}
+	}
+	g, err := readWorkbook(r, file, opt, false)
+	if err != nil {
+		return nil, err
+	}
+	return collect(gridScanner(g, opt))
+}
+
+// readWorkbook reads a workbook's sheet into memory as a grid of cells.
+func readWorkbook(r io.Reader, file string, opt Options, fieldSheet bool) (g *grid, err error) {
 	raw, err := readLimited(r, file, opt)
 	if err != nil {
 		return nil, err
 	}
-	return readExcelBytes(raw, file, opt, false)
-}
-
-func readExcelBytes(raw []byte, file string, opt Options, fieldSheet bool) (b *Batch, err error) {
 	f, err := excelize.OpenReader(bytes.NewReader(raw))
 	if err != nil {
 		return nil, &ReadError{File: file, Err: fmt.Errorf("%w (nor a readable workbook: %w)", ErrNotCSV, err)}
 	}
 	defer func() {
 		if cerr := f.Close(); cerr != nil && err == nil {
-			b, err = nil, &ReadError{File: file, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
+			g, err = nil, &ReadError{File: file, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
 		}
 	}()
 	sheet, err := pickSheet(f.GetSheetList(), opt.Sheet)
@@ -55,7 +63,7 @@ func readExcelBytes(raw []byte, file string, opt Options, fieldSheet bool) (b *B
 	if err := fillMerged(rows, merged); err != nil {
 		return nil, &ReadError{File: file, Field: sheet, Err: fmt.Errorf("%w: %w", ErrRead, err)}
 	}
-	g := &grid{file: file, sheet: sheet, workbook: true, date1904: props.Date1904 != nil && *props.Date1904, fieldSheet: fieldSheet}
+	g = &grid{file: file, sheet: sheet, workbook: true, date1904: props.Date1904 != nil && *props.Date1904, fieldSheet: fieldSheet}
 	width := 0
 	for _, r := range rows {
 		width = max(width, len(r))
@@ -74,7 +82,7 @@ func readExcelBytes(raw []byte, file string, opt Options, fieldSheet bool) (b *B
 	if len(g.recs) == 0 {
 		return nil, &ReadError{File: file, Field: sheet, Err: ErrEmpty}
 	}
-	return readGrid(g, opt)
+	return g, nil
 }
 
 // pickSheet finds a sheet by name (ignoring case) or 1-based number.

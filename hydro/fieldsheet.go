@@ -3,7 +3,6 @@ package hydro
 import (
 	"fmt"
 	"io"
-	"os"
 	"strings"
 )
 
@@ -18,15 +17,7 @@ func ReadFieldSheet(r io.Reader, file string, opt Options) (*Batch, error) {
 
 // ReadFieldSheetFile reads a field sheet from disk; see ReadFieldSheet.
 func ReadFieldSheetFile(path string, opt Options) (*Batch, error) {
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
-	}
-	b, err := readAny(f, path, opt, true)
-	if cerr := f.Close(); cerr != nil && err == nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
-	}
-	return b, err
+	return collect(scanFile(path, opt, true))
 }
 
 // FieldJoin says how a field sheet was joined to lab rows.

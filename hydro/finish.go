@@ -20,9 +20,7 @@ func (rd *reader) finishSample(row *Row) {
 		s.TempC, s.TempSource = rd.opt.SiteTempC, TempFromSite
 		row.add(Info, CodeSiteTemp, row.Line, "", "no temperature: the site temperature, %g C, used", rd.opt.SiteTempC.V)
 	}
-	if s.EPSG == 0 && (s.Easting.OK || s.Northing.OK) {
-		s.EPSG = rd.opt.EPSG
-	}
+	rd.defaultEPSG(s)
 	if s.ScreenTopM.OK && s.ScreenBottomM.OK && s.ScreenTopM.V > s.ScreenBottomM.V {
 		row.add(Warning, CodeScreen, row.Line, "", "screen top %g m below screen bottom %g m", s.ScreenTopM.V, s.ScreenBottomM.V)
 	}
@@ -44,10 +42,7 @@ func (rd *reader) finishSample(row *Row) {
 			}
 		}
 	}
-	s.Event = s.Round
-	if s.Event == "" && !s.SampledAt.IsZero() {
-		s.Event = s.SampledAt.Format("2006-01-02")
-	}
+	setEvent(s)
 	convertMgL(row)
 	checkPlausible(row, rd.opt.ConfirmUnits)
 	if s.ID == "" && !hasError(row) {
@@ -99,5 +94,19 @@ func convertMgL(row *Row) {
 	}
 	if len(perMass) > 0 {
 		row.add(Info, CodePerMassUnit, row.Line, "", "%s converted to per litre with a density of %.4g kg/L (%s)", strings.Join(perMass, ", "), sol.DensityKgL, src)
+	}
+}
+
+func (rd *reader) defaultEPSG(s *Sample) {
+	if s.EPSG == 0 && (s.Easting.OK || s.Northing.OK) {
+		s.EPSG = rd.opt.EPSG
+	}
+}
+
+// setEvent sets the sampling event: the round, else the sampling day.
+func setEvent(s *Sample) {
+	s.Event = s.Round
+	if s.Event == "" && !s.SampledAt.IsZero() {
+		s.Event = s.SampledAt.Format("2006-01-02")
 	}
 }

@@ -22,58 +22,6 @@ type grid struct {
 	fieldSheet bool
 }
 
-// readGrid finds the header (skipping a preamble), a units row and a
-// detection-limit row under it, and reads the rows below.
-func readGrid(g *grid, opt Options) (*Batch, error) {
-	if err := opt.check(); err != nil {
-		return nil, &ReadError{File: g.file, Err: err}
-	}
-	h := findHeader(g.recs, opt.ColumnMap)
-	rd := &reader{file: g.file, opt: opt, delim: g.delim, header: g.recs[h], headerLine: g.lines[h], workbook: g.workbook, date1904: g.date1904, fieldSheet: g.fieldSheet}
-	b := &Batch{File: g.file, Sheet: g.sheet, Delimiter: g.delim, HeaderLine: g.lines[h]}
-	for k := 0; k < h; k++ {
-		b.Skipped = append(b.Skipped, SkippedLine{Line: g.lines[k], Kind: SkipPreamble, Cells: g.recs[k]})
-	}
-	if err := rd.mapHeader(); err != nil {
-		return nil, err
-	}
-	recs, lines := g.recs[h+1:], g.lines[h+1:]
-	if len(recs) > 0 && rd.isHeaderRepeat(recs[0]) {
-		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipHeaderRow, Cells: recs[0]})
-		recs, lines = recs[1:], lines[1:]
-	}
-	if len(recs) > 0 && rd.shape == Wide && rd.applyUnitsRow(recs[0], lines[0]) {
-		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipUnitsRow, Cells: recs[0]})
-		b.UnitsLine = lines[0]
-		recs, lines = recs[1:], lines[1:]
-	}
-	rd.decComma = !g.workbook && decideDecimal(opt.DecimalSep, g.delim, recs, rd)
-	if len(recs) > 0 && rd.shape == Wide && rd.applyLimitsRow(recs[0], lines[0]) {
-		b.Skipped = append(b.Skipped, SkippedLine{Line: lines[0], Kind: SkipLimitsRow, Cells: recs[0]})
-		recs, lines = recs[1:], lines[1:]
-	}
-	rd.decideDateOrder(recs)
-	rd.scanPH(recs)
-	if rd.shape == Long {
-		b.Rows = rd.readLong(recs, lines)
-	} else {
-		b.Rows = rd.readWide(recs, lines)
-	}
-	rd.finishMapping()
-	b.Shape, b.DecimalComma, b.Mapping = rd.shape, rd.decComma, rd.mapping
-	b.DateOrder = rd.dateOrderUsed()
-	if g.brokenAt > 0 {
-		r := Row{Line: g.brokenAt, Sample: newSample()}
-		r.add(Error, CodeQuoting, r.Line, "", "%s", g.broken)
-		b.Rows = append(b.Rows, r)
-	}
-	markDuplicates(b.Rows)
-	for i := range b.Rows {
-		b.Rows[i].settle()
-	}
-	return b, nil
-}
-
 // check refuses options that cannot be meant.
 func (o Options) check() error {
 	if o.SiteTempC.OK && !(o.SiteTempC.V >= 0 && o.SiteTempC.V <= 100) {

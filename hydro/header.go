@@ -42,6 +42,13 @@ type reader struct {
 	rowUnitCol int
 	// long shape
 	paramCol, valueCol, unitCol, lqualCol, ldlCol int
+	// dupCols are pairs of columns of the same meaning (the first used);
+	// fileWarnings the issues about the file as a whole.
+	dupCols      [][2]int
+	fileWarnings []Issue
+	// late: the rows now read come after the prefix the decisions were
+	// taken from (see PrefixRows).
+	late bool
 }
 
 func (rd *reader) fatal(err error, col int, field string) error {
@@ -77,6 +84,9 @@ func (rd *reader) mapHeader() error {
 		}
 		k := s.Param + "." + s.Sub
 		if j, dup := first[k]; dup {
+			rd.dupCols = append(rd.dupCols, [2]int{j, i})
+			rd.fileWarnings = append(rd.fileWarnings, Issue{Severity: Warning, Code: CodeDuplicateColumn, Column: rd.header[i],
+				Message: fmt.Sprintf("column %d (%q) means the same (%s) as column %d (%q): the first is used, the second kept as an extra column; rows where they differ are warned", i+1, rd.header[i], strings.TrimSuffix(k, "."), j+1, rd.header[j])})
 			*s = colSpec{Note: fmt.Sprintf("same parameter as column %d (%q); kept unmapped", j+1, rd.header[j])}
 			continue
 		}

@@ -60,7 +60,9 @@ type Options struct {
 	// EPSG is the coordinate reference system of easting/northing columns
 	// when the file has no EPSG column.
 	EPSG int
-	// MaxBytes limits how much is read (0: 256 MiB).
+	// MaxBytes limits how much is read: a workbook, read into memory whole
+	// (0: 256 MiB), and streamed CSV text when set (0: no limit on the
+	// whole text; each line is limited to MaxLineBytes).
 	MaxBytes int64
 	// ConfirmUnits says that analytes with no unit anywhere (header, units
 	// row, unit column, column map) are indeed in mg/L, and that values the

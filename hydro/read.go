@@ -1,52 +1,103 @@
 package hydro
 
 import (
-	"encoding/csv"
-	"errors"
+	"bufio"
 	"fmt"
 	"io"
-	"os"
-	"strings"
 )
 
 // ReadFile reads a lab file from disk; see Read.
 func ReadFile(path string, opt Options) (*Batch, error) {
-	f, err := os.Open(path)
-	if err != nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, err)}
-	}
-	b, err := readAny(f, path, opt, false)
-	if cerr := f.Close(); cerr != nil && err == nil {
-		return nil, &ReadError{File: path, Err: fmt.Errorf("%w: %w", ErrRead, cerr)}
-	}
-	return b, err
+	return collect(scanFile(path, opt, false))
 }
 
 // Read reads a lab file of wide or long shape from CSV text (or from an
 // .xlsx workbook, recognised by its first bytes, as ReadExcel). file names
 // the input in messages. The error is only for problems with the file as a
 // whole (see the ErrXxx sentinels, wrapped in a *ReadError); every
-// row-level problem is reported in its Row.
+// row-level problem is reported in its Row. Read holds every row: for
+// large files use a Scanner, which Read is built on.
 func Read(r io.Reader, file string, opt Options) (*Batch, error) {
 	return readAny(r, file, opt, false)
 }
 
-// readAny reads a workbook or CSV text.
+// readAny reads a workbook or CSV text whole.
 func readAny(r io.Reader, file string, opt Options, fieldSheet bool) (*Batch, error) {
-	raw, err := readLimited(r, file, opt)
+	return collect(newScanner(r, file, opt, fieldSheet))
+}
+
+// collect reads every row of a scanner into its batch. The rows are all
+// observed for duplicates before any is warned, so that every row of a
+// duplicate is.
+func collect(s *Scanner, err error) (*Batch, error) {
 	if err != nil {
 		return nil, err
 	}
-	if isZip(raw) {
-		return readExcelBytes(raw, file, opt, fieldSheet)
+	var rows []Row
+	for {
+		r, ok, err := s.next()
+		if err != nil {
+			s.Close()
+			return nil, err
+		}
+		if !ok {
+			break
+		}
+		rows = append(rows, r)
 	}
-	return readCSVBytes(raw, file, opt, fieldSheet)
+	if err := s.Close(); err != nil {
+		return nil, err
+	}
+	d := s.dups
+	if s.count < 0 { // read once: observe every row before warning any
+		for i := range rows {
+			d.observe(&rows[i])
+		}
+	}
+	for i := range rows {
+		d.annotate(&rows[i])
+		rows[i].settle()
+	}
+	b := s.Batch()
+	b.Rows = rows
+	return b, nil
+}
+
+// defaultWorkbookBytes limits a workbook, which is read into memory whole,
+// when Options.MaxBytes is 0.
+const defaultWorkbookBytes = 256 << 20
+
+// sniffZip says whether r starts like a zip archive (an .xlsx workbook),
+// and returns a reader of all of r.
+func sniffZip(r io.Reader) (io.Reader, bool, error) {
+	br := bufio.NewReader(r)
+	head, err := br.Peek(4)
+	if err != nil && err != io.EOF {
+		return nil, false, err
+	}
+	return br, isZip(head), nil
+}
+
+// limitedReader fails once more than n bytes are read.
+type limitedReader struct {
+	r     io.Reader
+	n     int64
+	limit int64
+}
+
+func (l *limitedReader) Read(p []byte) (int, error) {
+	n, err := l.r.Read(p)
+	l.n -= int64(n)
+	if l.n < 0 {
+		return n, fmt.Errorf("larger than %d bytes (Options.MaxBytes)", l.limit)
+	}
+	return n, err
 }
 
 func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
 	limit := opt.MaxBytes
 	if limit <= 0 {
-		limit = 256 << 20
+		limit = defaultWorkbookBytes
 	}
 	raw, err := io.ReadAll(io.LimitReader(r, limit+1))
 	if err != nil {
@@ -56,65 +107,6 @@ func readLimited(r io.Reader, file string, opt Options) ([]byte, error) {
 		return nil, &ReadError{File: file, Err: fmt.Errorf("%w: larger than %d bytes", ErrRead, limit)}
 	}
 	return raw, nil
-}
-
-// readCSVBytes splits CSV text into a grid of cells and reads it.
-func readCSVBytes(raw []byte, file string, opt Options, fieldSheet bool) (*Batch, error) {
-	text, err := normalise(raw)
-	if err != nil {
-		return nil, &ReadError{File: file, Err: err}
-	}
-	if strings.TrimSpace(strings.ReplaceAll(text, "\ufeff", "")) == "" {
-		return nil, &ReadError{File: file, Err: ErrEmpty}
-	}
-	delim := opt.Delimiter
-	if delim == 0 {
-		delim = detectDelimiter(text)
-	}
-	cr := csv.NewReader(strings.NewReader(text))
-	cr.Comma = delim
-	cr.FieldsPerRecord = -1
-	cr.LazyQuotes = true
-	cr.TrimLeadingSpace = delim != '\t'
-	g := &grid{file: file, delim: delim, fieldSheet: fieldSheet}
-	for {
-		rec, err := cr.Read()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			var pe *csv.ParseError
-			if !errors.As(err, &pe) {
-				return nil, &ReadError{File: file, Err: fmt.Errorf("%w: %w", ErrRead, err)}
-			}
-			if len(g.recs) == 0 {
-				return nil, &ReadError{File: file, Line: pe.StartLine, Column: pe.Column, Err: fmt.Errorf("%w: %w", ErrNotCSV, pe.Err)}
-			}
-			// A quoting error after the header: the rows read so far stand;
-			// the rest of the file cannot be split into rows, and is
-			// reported as one rejected row.
-			g.brokenAt = pe.StartLine
-			g.broken = fmt.Sprintf("CSV quoting error at line %d, column %d: %v; the rest of the file is unreadable", pe.Line, pe.Column, pe.Err)
-			break
-		}
-		// FieldPos cannot fail for field 0 of a record just read.
-		line, _ := cr.FieldPos(0)
-		for i := range rec {
-			rec[i] = trimCell(rec[i])
-		}
-		if allEmpty(rec) {
-			// A line of bare delimiters (",,,,", common at the end of
-			// spreadsheet exports) is a blank line, as encoding/csv treats
-			// an empty line: not a row.
-			continue
-		}
-		g.recs = append(g.recs, rec)
-		g.lines = append(g.lines, line)
-	}
-	if len(g.recs) == 0 {
-		return nil, &ReadError{File: file, Err: ErrEmpty}
-	}
-	return readGrid(g, opt)
 }
 
 // isZip says whether raw starts like a zip archive (an .xlsx workbook).

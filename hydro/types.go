@@ -164,7 +164,11 @@ type Batch struct {
 	DateOrder    string
 	Skipped      []SkippedLine
 	Mapping      []HeaderMapping
-	Rows         []Row
+	// Warnings are issues about the file as a whole (two columns with the
+	// same meaning, CodeDuplicateColumn); Issue.Line is 0 and
+	// Issue.Column names the column concerned.
+	Warnings []Issue
+	Rows     []Row
 }
 
 // Counts returns the number of rows per status.

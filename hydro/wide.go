@@ -23,71 +23,88 @@ func (rd *reader) ragged(rec []string) bool {
 	return false
 }
 
-// readWide reads one Row per record.
-func (rd *reader) readWide(recs [][]string, lines []int) []Row {
-	rows := make([]Row, 0, len(recs))
-	for k, rec := range recs {
-		row := Row{Line: lines[k], Sample: newSample()}
-		s := &row.Sample
-		if rd.ragged(rec) {
-			if len(rec) < len(rd.header) {
-				row.add(Error, CodeRaggedRow, row.Line, rd.header[len(rec)], "ragged row: %d fields, the header has %d (missing from column %d, %q, on)", len(rec), len(rd.header), len(rec)+1, rd.header[len(rec)])
-			} else {
-				row.add(Error, CodeRaggedRow, row.Line, "", "ragged row: %d fields, the header has %d (extra fields from column %d on)", len(rec), len(rd.header), len(rd.header)+1)
-			}
+// wideRow reads one record as one Row.
+func (rd *reader) wideRow(rec []string, line int) Row {
+	row := Row{Line: line, Sample: newSample()}
+	s := &row.Sample
+	if rd.ragged(rec) {
+		if len(rec) < len(rd.header) {
+			row.add(Error, CodeRaggedRow, row.Line, rd.header[len(rec)], "ragged row: %d fields, the header has %d (missing from column %d, %q, on)", len(rec), len(rd.header), len(rec)+1, rd.header[len(rec)])
+		} else {
+			row.add(Error, CodeRaggedRow, row.Line, "", "ragged row: %d fields, the header has %d (extra fields from column %d on)", len(rec), len(rd.header), len(rd.header)+1)
 		}
-		for i, c := range rec {
-			if n := strings.Count(c, "\n"); n > 0 && i < len(rd.header) && len(rec) != len(rd.header) {
-				row.add(Error, CodeQuoting, row.Line, rd.header[i], "a quote opened here is not closed: lines %d-%d read as one row", row.Line, row.Line+n)
-				break
-			}
-		}
-		rowUnit := ""
-		if rd.rowUnitCol >= 0 && rd.rowUnitCol < len(rec) {
-			rowUnit = rec[rd.rowUnitCol]
-		}
-		var assumed []string
-		for i := range rd.specs {
-			c := ""
-			if i < len(rec) {
-				c = rec[i]
-			}
-			sp := rd.specs[i]
-			if sp.Param == "" {
-				if rd.header[i] != "" || c != "" {
-					s.ExtraColumns = append(s.ExtraColumns, ExtraColumn{Header: rd.header[i], Value: c})
-				}
-				if c != "" {
-					s.Extra[rd.header[i]] = c
-				}
-				continue
-			}
-			if sp.Sub != "" || i == rd.rowUnitCol || i >= len(rec) {
-				continue
-			}
-			if sp.Class == clConc {
-				in := concIn{col: rd.header[i], name: rd.header[i], sp: sp, raw: c, unitSrc: rd.unitSrc[i], colDL: rd.colDL[i]}
-				if j := rd.qualCol[i]; j >= 0 && j < len(rec) {
-					in.qual = rec[j]
-				}
-				if j := rd.dlCol[i]; j >= 0 && j < len(rec) {
-					in.dl = rec[j]
-				}
-				if in.unitSrc == UnitPerRow {
-					in.sp, in.unitSrc = rd.rowUnitSpec(sp, rowUnit)
-				}
-				if rd.setConc(&row, row.Line, in) {
-					assumed = append(assumed, rd.header[i])
-				}
-				continue
-			}
-			rd.setField(&row, row.Line, rd.header[i], rd.header[i], sp, c)
-		}
-		rd.warnAssumed(&row, row.Line, assumed)
-		rd.finishSample(&row)
-		rows = append(rows, row)
 	}
-	return rows
+	for i, c := range rec {
+		if n := strings.Count(c, "\n"); n > 0 && i < len(rd.header) && len(rec) != len(rd.header) {
+			row.add(Error, CodeQuoting, row.Line, rd.header[i], "a quote opened here is not closed: lines %d-%d read as one row", row.Line, row.Line+n)
+			break
+		}
+	}
+	rd.checkLate(&row, line, rec)
+	rd.checkDupCells(&row, line, rec)
+	rowUnit := ""
+	if rd.rowUnitCol >= 0 && rd.rowUnitCol < len(rec) {
+		rowUnit = rec[rd.rowUnitCol]
+	}
+	var assumed []string
+	for i := range rd.specs {
+		c := ""
+		if i < len(rec) {
+			c = rec[i]
+		}
+		sp := rd.specs[i]
+		if sp.Param == "" {
+			if rd.header[i] != "" || c != "" {
+				s.ExtraColumns = append(s.ExtraColumns, ExtraColumn{Header: rd.header[i], Value: c})
+			}
+			if c != "" {
+				s.Extra[rd.header[i]] = c
+			}
+			continue
+		}
+		if sp.Sub != "" || i == rd.rowUnitCol || i >= len(rec) {
+			continue
+		}
+		if sp.Class == clConc {
+			in := concIn{col: rd.header[i], name: rd.header[i], sp: sp, raw: c, unitSrc: rd.unitSrc[i], colDL: rd.colDL[i]}
+			if j := rd.qualCol[i]; j >= 0 && j < len(rec) {
+				in.qual = rec[j]
+			}
+			if j := rd.dlCol[i]; j >= 0 && j < len(rec) {
+				in.dl = rec[j]
+			}
+			if in.unitSrc == UnitPerRow {
+				in.sp, in.unitSrc = rd.rowUnitSpec(sp, rowUnit)
+			}
+			if rd.setConc(&row, row.Line, in) {
+				assumed = append(assumed, rd.header[i])
+			}
+			continue
+		}
+		rd.setField(&row, row.Line, rd.header[i], rd.header[i], sp, c)
+	}
+	rd.warnAssumed(&row, row.Line, assumed)
+	rd.finishSample(&row)
+	return row
+}
+
+// keyRow reads only what duplicate checks compare (sample and well ids,
+// round, date, place) from a record: the first pass of a file read twice.
+// The values are those wideRow gives (the same setField and event rule).
+func (rd *reader) keyRow(rec []string, line int) Row {
+	row := Row{Line: line, Sample: newSample()}
+	for i, sp := range rd.specs {
+		if i >= len(rec) || sp.Param == "" || sp.Sub != "" || sp.Class == clConc || i == rd.rowUnitCol {
+			continue
+		}
+		switch sp.Class {
+		case clText, clDate, clInt, clDegrees, clCoord:
+			rd.setField(&row, line, rd.header[i], rd.header[i], sp, rec[i])
+		}
+	}
+	rd.defaultEPSG(&row.Sample)
+	setEvent(&row.Sample)
+	return row
 }
 
 // rowUnitSpec gives an analyte column without a unit of its own the unit

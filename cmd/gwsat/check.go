@@ -2,8 +2,11 @@ package main
 
 import (
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
+	"sort"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -78,22 +81,41 @@ type checkOutputs struct{ table, json, geojson string }
 // input order: read, speciate on every core, write; only a bounded number of
 // rows is in flight.
 func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs checkOutputs, sh shard, showColumns bool) error {
-	batches, err := in.readInputs(e, args)
+	ins, fieldName, err := in.openInputs(e, args)
 	if err != nil {
 		return usageErr(err)
+	}
+	defer func() {
+		for _, x := range ins {
+			x.sc.Close()
+		}
+	}()
+	metas := make([]*hydro.Batch, len(ins))
+	for i, x := range ins {
+		metas[i] = x.meta
 	}
 	ch, err := in.chemistry()
 	if err != nil {
 		return usageErr(err)
 	}
 	minerals := ch.db.MineralNames()
-	cols := report.ColumnsFor(batches, minerals)
-	sum := assess.NewSummary(files(batches)...)
+	// The table's header is written before the first row: its columns
+	// come from the files' header mappings, not from the rows.
+	cols := columnsOf(metas, minerals)
+	sum := assess.NewSummary(files(metas)...)
+	off := newOffTable(cols)
+	// The total is known when every file was read twice (not from
+	// standard input); without it no bar is shown.
 	total := 0
-	for _, b := range batches {
-		total += len(b.Rows)
+	var barOut io.Writer = stderrFile(e)
+	for _, x := range ins {
+		if n := x.sc.Len(); n >= 0 {
+			total += n
+		} else {
+			barOut = io.Discard
+		}
 	}
-	bar := progress.New(stderrFile(e), "speciating", sh.count(total))
+	bar := progress.New(barOut, "speciating", sh.count(total))
 	opt := ch.options(bar, outs.json != "")
 	opt.Progress = nil
 	err = e.writeFile(outs.table, func(tw io.Writer) error {
@@ -111,9 +133,10 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 				if gw != nil {
 					gs = geo.NewSampleWriter(gw)
 				}
-				err := assess.Stream(e.ctx, ch.db, sh.filter(assess.BatchItems(batches)), opt, func(r *assess.Record) error {
+				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
 					bar.Add(1)
 					sum.Add(r)
+					off.count(r)
 					if err := cw.Write(cols.Row(r)); err != nil {
 						return err
 					}
@@ -149,11 +172,30 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		})
 	})
 	bar.Done()
+	var ie *inputError
+	if errors.As(err, &ie) {
+		return failed(ie.err)
+	}
 	if err != nil {
 		return failed(fmt.Errorf("writing the outputs: %w", err))
 	}
+	printJoin(e, ins, fieldName)
 	if showColumns {
-		printColumns(e.stderr, batches)
+		final := make([]*hydro.Batch, len(ins))
+		for i, x := range ins {
+			final[i] = x.sc.Batch() // a long file read once: every name met
+		}
+		printColumns(e.stderr, final)
+	}
+	if l := off.line(); l != "" {
+		e.printLines([]string{l})
+	}
+	for _, x := range ins {
+		var l []string
+		for _, is := range x.sc.FileIssues() {
+			l = append(l, fmt.Sprintf("gwsat: %s: %s", x.meta.File, is))
+		}
+		e.printLines(limitList(l, 10))
 	}
 	if !oc.quiet {
 		if err := e.writeSummary(sum); err != nil {
@@ -161,6 +203,78 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		}
 	}
 	return oc.verdict(sum)
+}
+
+// columnsOf builds the table's columns from the files' header mappings
+// (hydro.Batch.TableColumns), so that the header is known before any row.
+func columnsOf(metas []*hydro.Batch, minerals []string) report.Columns {
+	var analytes, extra []string
+	seenA, seenX := map[string]bool{}, map[string]bool{}
+	for _, b := range metas {
+		a, x := b.TableColumns()
+		for _, k := range a {
+			if !seenA[k] {
+				seenA[k] = true
+				analytes = append(analytes, k)
+			}
+		}
+		for _, h := range x {
+			if !seenX[h] {
+				seenX[h] = true
+				extra = append(extra, h)
+			}
+		}
+	}
+	return report.ColumnsOf(minerals, analytes, extra)
+}
+
+// offTable counts the values of rows that the table has no column for: a
+// long file read once from standard input whose parameter is first met
+// after the rows the header was built from (hydro.PrefixRows). The JSON
+// output still carries them.
+type offTable struct {
+	analytes, extra map[string]bool
+	n               int
+	names           map[string]bool
+}
+
+func newOffTable(c report.Columns) *offTable {
+	o := &offTable{analytes: map[string]bool{}, extra: map[string]bool{}, names: map[string]bool{}}
+	for _, a := range c.Analytes {
+		o.analytes[a] = true
+	}
+	for _, x := range c.Extra {
+		o.extra[x] = true
+	}
+	return o
+}
+
+func (o *offTable) count(r *assess.Record) {
+	for k := range r.Row.Sample.Analytes {
+		if !o.analytes[k] {
+			o.n++
+			o.names[k] = true
+		}
+	}
+	for _, x := range r.Row.Sample.ExtraColumns {
+		if !o.extra[x.Header] {
+			o.n++
+			o.names[x.Header] = true
+		}
+	}
+}
+
+// line says what was left out of the table, "" when nothing was.
+func (o *offTable) line() string {
+	if o.n == 0 {
+		return ""
+	}
+	names := make([]string, 0, len(o.names))
+	for k := range o.names {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	return fmt.Sprintf("gwsat: %d values of %s have no table column (first met after the first %d rows of a file read once; read it from a file, or see --json)", o.n, strings.Join(limitList(names, 10), ", "), hydro.PrefixRows)
 }
 
 // withOptional runs fill with a writer for path, or with nil when path is "".

@@ -285,3 +285,166 @@ func files(batches []*hydro.Batch) []string {
 	}
 	return out
 }
+
+// labInput is one lab file read row by row, with the field sheet's index
+// for it (nil without a field sheet) and what its join left unmatched.
+type labInput struct {
+	sc         *hydro.Scanner
+	meta       *hydro.Batch
+	field      *hydro.FieldIndex
+	unmatched  []string
+	nUnmatched int
+}
+
+// openInputs starts reading the files named in args ("-" for standard
+// input, read once), or the demo, row by row: the streaming counterpart of
+// readInputs. A file-level error is fatal. Close the scanners when done.
+func (f *inputFlags) openInputs(e *env, args []string) ([]*labInput, string, error) {
+	opt, err := f.options()
+	if err != nil {
+		return nil, "", err
+	}
+	var ins []*labInput
+	fail := func(err error) ([]*labInput, string, error) {
+		for _, in := range ins {
+			in.sc.Close()
+		}
+		return nil, "", err
+	}
+	add := func(sc *hydro.Scanner) error {
+		in := &labInput{sc: sc, meta: sc.Batch()}
+		ins = append(ins, in)
+		if !sc.HasRows() {
+			return fmt.Errorf("%s: no data rows below the header line", in.meta.File)
+		}
+		return nil
+	}
+	if f.demo {
+		if len(args) > 0 {
+			return nil, "", fmt.Errorf("give either --demo or files, not both")
+		}
+		raw, err := data.Demo().ReadFile(DemoFile)
+		if err != nil {
+			return nil, "", err
+		}
+		sc, err := hydro.ScanBytes(raw, DemoFile, opt)
+		if err != nil {
+			return nil, "", err
+		}
+		if err := add(sc); err != nil {
+			return fail(err)
+		}
+	} else {
+		if len(args) == 0 {
+			return nil, "", fmt.Errorf("no input: name one or more CSV files, '-' for standard input, or --demo")
+		}
+		for _, a := range args {
+			var sc *hydro.Scanner
+			if a == "-" {
+				sc, err = hydro.NewScanner(e.stdin, "<stdin>", opt)
+			} else {
+				sc, err = hydro.ScanFile(a, opt)
+			}
+			if err != nil {
+				return fail(err)
+			}
+			if err := add(sc); err != nil {
+				return fail(err)
+			}
+		}
+	}
+	field, name, err := f.readFieldSheet(opt)
+	if err != nil {
+		return fail(err)
+	}
+	if field != nil {
+		for _, in := range ins {
+			in.field = hydro.NewFieldIndex(field)
+		}
+	}
+	return ins, name, nil
+}
+
+// readFieldSheet reads the field sheet named by the flags (or the demo's),
+// nil when there is none.
+func (f *inputFlags) readFieldSheet(opt hydro.Options) (*hydro.Batch, string, error) {
+	var field *hydro.Batch
+	var err error
+	name := f.fieldSheet
+	switch {
+	case name != "":
+		field, err = hydro.ReadFieldSheetFile(name, opt)
+	case f.demo:
+		// The demo comes with its field sheet (round 3, invented).
+		name = DemoFieldSheet
+		var raw []byte
+		if raw, err = data.Demo().ReadFile(name); err == nil {
+			field, err = hydro.ReadFieldSheet(bytes.NewReader(raw), name, opt)
+		}
+	default:
+		return nil, "", nil
+	}
+	if err != nil {
+		return nil, "", fmt.Errorf("field sheet: %w", err)
+	}
+	return field, name, nil
+}
+
+// scanItems returns a next function for assess.Stream over the rows of the
+// inputs, joining each to the field sheet as it passes.
+func scanItems(ins []*labInput) func() (assess.Item, bool, error) {
+	k := 0
+	return func() (assess.Item, bool, error) {
+		for k < len(ins) {
+			in := ins[k]
+			r, ok, err := in.sc.Next()
+			if err != nil {
+				return assess.Item{}, false, &inputError{fmt.Errorf("reading %s: %w", in.meta.File, err)}
+			}
+			if !ok {
+				k++
+				continue
+			}
+			if in.field != nil && !in.field.Join(&r) {
+				in.nUnmatched++
+				if len(in.unmatched) < 5 {
+					in.unmatched = append(in.unmatched, fmt.Sprintf("%s line %d (%s)", in.meta.File, r.Line, r.Sample.ID))
+				}
+			}
+			return assess.Item{File: in.meta.File, Row: r}, true, nil
+		}
+		return assess.Item{}, false, nil
+	}
+}
+
+// inputError is a lab file that could not be read to its end (binary data
+// or an overlong line after the start): the rows before it were assessed,
+// and the outputs are not written.
+type inputError struct{ err error }
+
+func (e *inputError) Error() string { return e.err.Error() }
+func (e *inputError) Unwrap() error { return e.err }
+
+// printJoin lists, after the rows are read, how the field sheet joined.
+func printJoin(e *env, ins []*labInput, name string) {
+	for _, in := range ins {
+		if in.field == nil {
+			continue
+		}
+		e.printLines([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, in.field.Joined)})
+		if in.nUnmatched > 0 {
+			l := in.unmatched
+			if in.nUnmatched > len(l) {
+				l = append(l, fmt.Sprintf("and %d more", in.nUnmatched-len(l)))
+			}
+			e.printLines([]string{fmt.Sprintf("  %d lab rows without field values: %s", in.nUnmatched, strings.Join(l, "; "))})
+		}
+		if um := in.field.Unmatched(); len(um) > 0 {
+			var fl []string
+			for _, r := range um {
+				fl = append(fl, fmt.Sprintf("line %d (%s)", r.Line, r.Sample.ID))
+			}
+			e.printLines([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
+		}
+	}
+}

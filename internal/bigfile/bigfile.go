@@ -23,7 +23,8 @@ var numericColumns = map[string]bool{
 	"Ba (ug/L)": true, "SiO2 (mg/L)": true, "F (mg/L)": true,
 }
 
-// Write writes a wide lab CSV of rows data rows to w, with the demo's header.
+// Write writes a wide lab CSV of rows data rows to w, with the demo's header
+// and units row.
 // The same seed gives the same bytes.
 func Write(w io.Writer, rows int, seed uint64) error {
 	raw, err := data.Demo().ReadFile("demo/samples.csv")
@@ -35,11 +36,22 @@ func Write(w io.Writer, rows int, seed uint64) error {
 		return fmt.Errorf("bigfile: demo: %w", err)
 	}
 	header, body := recs[0], recs[1:]
+	// The demo's second line is its units row (a blank sample id): written
+	// once under the header, never copied as a sample.
+	var units []string
+	if len(body) > 0 && body[0][0] == "" {
+		units, body = body[0], body[1:]
+	}
 	rng := rand.New(rand.NewPCG(seed, 0x9e3779b97f4a7c15))
 	bw := bufio.NewWriterSize(w, 1<<16)
 	cw := csv.NewWriter(bw)
 	if err := cw.Write(header); err != nil {
 		return err
+	}
+	if units != nil {
+		if err := cw.Write(units); err != nil {
+			return err
+		}
 	}
 	row := make([]string, len(header))
 	for i := 0; i < rows; i++ {

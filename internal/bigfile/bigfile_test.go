@@ -23,11 +23,15 @@ func TestWrite(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(recs) != 501 {
-		t.Fatalf("%d lines, want 501", len(recs))
+	// header, units row, 500 samples
+	if len(recs) != 502 {
+		t.Fatalf("%d lines, want 502", len(recs))
 	}
 	ids := map[string]bool{}
-	for _, r := range recs[1:] {
+	for _, r := range recs[2:] {
+		if r[0] == "" {
+			t.Fatal("a sample without an id (the units row copied?)")
+		}
 		if ids[r[0]] {
 			t.Fatalf("id %s twice", r[0])
 		}
