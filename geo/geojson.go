@@ -46,8 +46,9 @@ func WriteSamples(w io.Writer, pts []PointFeature) error {
 // time, in the form of WriteSamples, so that a file of any length streams
 // through bounded memory. Close ends the collection.
 type SampleWriter struct {
-	bw *bufio.Writer
-	n  int
+	bw  *bufio.Writer
+	n   int
+	buf []byte
 }
 
 // NewSampleWriter starts a FeatureCollection on w.
@@ -91,14 +92,13 @@ func (sw *SampleWriter) Write(f PointFeature) error {
 		if k > 0 {
 			bw.WriteByte(',')
 		}
-		key, _ := json.Marshal(pr.Key) // a string always marshals
-		val, err := json.Marshal(cleanValue(pr.Value))
-		if err != nil {
+		sw.buf = appendJSONString(sw.buf[:0], pr.Key)
+		sw.buf = append(sw.buf, ':')
+		var err error
+		if sw.buf, err = appendJSONValue(sw.buf, cleanValue(pr.Value)); err != nil {
 			return fmt.Errorf("geo: feature %d: property %q: %w", i, pr.Key, err)
 		}
-		bw.Write(key)
-		bw.WriteByte(':')
-		bw.Write(val)
+		bw.Write(sw.buf)
 	}
 	bw.WriteString("}}")
 	return nil
@@ -108,6 +108,41 @@ func (sw *SampleWriter) Write(f PointFeature) error {
 func (sw *SampleWriter) Close() error {
 	sw.bw.WriteString("\n]}\n")
 	return sw.bw.Flush()
+}
+
+// appendJSONValue appends v as JSON: strings, finite floats, ints and nil
+// directly (the common properties, without reflection), anything else through
+// encoding/json.
+func appendJSONValue(dst []byte, v any) ([]byte, error) {
+	switch x := v.(type) {
+	case nil:
+		return append(dst, "null"...), nil
+	case string:
+		return appendJSONString(dst, x), nil
+	case float64:
+		return strconv.AppendFloat(dst, x, 'g', -1, 64), nil
+	case int:
+		return strconv.AppendInt(dst, int64(x), 10), nil
+	case bool:
+		return strconv.AppendBool(dst, x), nil
+	}
+	b, err := json.Marshal(v)
+	return append(dst, b...), err
+}
+
+// appendJSONString appends s as a JSON string: printable ASCII without quote
+// or backslash as it is, anything else through encoding/json (which escapes
+// control characters, invalid UTF-8 and the HTML-sensitive <, >, &).
+func appendJSONString(dst []byte, s string) []byte {
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c < 0x20 || c >= 0x7f || c == '"' || c == '\\' || c == '<' || c == '>' || c == '&' {
+			b, _ := json.Marshal(s) // a string always marshals
+			return append(dst, b...)
+		}
+	}
+	dst = append(dst, '"')
+	dst = append(dst, s...)
+	return append(dst, '"')
 }
 
 func cleanValue(v any) any {

@@ -3,6 +3,8 @@ package speciation
 import (
 	"errors"
 	"math"
+	"strings"
+	"unicode"
 )
 
 // Errors of a solve. A *SolveError wraps one of these.
@@ -142,10 +144,16 @@ func (r *Result) SI(mineral string) (float64, bool) {
 // Mineral returns the saturation record of the named mineral, or nil. Names are
 // matched as by Database.MineralIndex (any case; aliases such as barite).
 func (r *Result) Mineral(name string) *MineralSI {
-	for i := range r.Minerals {
-		if r.Minerals[i].Name == name {
-			return &r.Minerals[i]
-		}
+	if m := r.exactMineral(name); m != nil {
+		return m
+	}
+	if a, ok := mineralAliases[name]; ok {
+		return r.exactMineral(a)
+	}
+	if !strings.ContainsFunc(name, notCanonical) {
+		// A data-set name that is simply absent (e.g. an oxide without a pe):
+		// no other spelling can match, and no key need be built.
+		return nil
 	}
 	key := mineralKey(name)
 	if alias, ok := aliasKeys[key]; ok {
@@ -158,6 +166,20 @@ func (r *Result) Mineral(name string) *MineralSI {
 	}
 	return nil
 }
+
+func (r *Result) exactMineral(name string) *MineralSI {
+	for i := range r.Minerals {
+		if r.Minerals[i].Name == name {
+			return &r.Minerals[i]
+		}
+	}
+	return nil
+}
+
+// notCanonical reports a rune that the data set's mineral names never hold
+// (they are lower case, with spaces), so that a name with one may be another
+// spelling of a data-set name.
+func notCanonical(c rune) bool { return unicode.IsUpper(c) || c == '_' || c == '-' }
 
 // SpeciesByName returns the named species, or nil if absent.
 func (r *Result) SpeciesByName(name string) *SpeciesResult {
