@@ -73,7 +73,7 @@ func (p *Planner) Section(opt SectionOptions) (*report.Section, []report.Fig, er
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("Calcium carbonate precipitation potential (Standard Methods 2330) of that blend: %.1f mg/L as CaCO3.", prec.CCPP))
 	}
 	sec.Paragraphs = append(sec.Paragraphs, "Pore-filling screen, if every m3 injected were that blend: "+strings.Join(pf.Sentences(), " "))
-	sec.Table = blend.PeaksTable()
+	sec.Tables = []*report.PageTable{report.NewPageTable(blend.PeaksTable(), "Peak saturation index of each mineral along the blend", nil)}
 	figs := []report.Fig{blend.Figure(), warm.Figure()}
 	if pf.Deposit.HasFigure() {
 		figs = append(figs, pf.Deposit.Figure())

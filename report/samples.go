@@ -17,7 +17,7 @@ import (
 // IsSIColumn reports whether a sample-table header is a mineral's saturation
 // index (ColumnName), not one of the water-engineering indices.
 func IsSIColumn(h string) bool {
-	return strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si"
+	return strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si" && h != "loo_cv_rmse_si"
 }
 
 // ColumnName returns the table column of a mineral's saturation index:
@@ -127,7 +127,7 @@ func SampleTable(recs []assess.Record, minerals []string) *Table {
 			Cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
 		for _, m := range minerals {
 			si, ok := res.SI(m)
-			row = append(row, Cond(ok, Num(si, 3)))
+			row = append(row, Cond(ok, Full(si))) // every digit: the page rounds
 		}
 		t.Rows = append(t.Rows, row)
 	}
@@ -158,7 +158,7 @@ func (f jsonNum) MarshalJSON() ([]byte, error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return []byte("null"), nil
 	}
-	return strconv.AppendFloat(nil, v, 'g', 8, 64), nil
+	return strconv.AppendFloat(nil, v, 'g', -1, 64), nil // every digit
 }
 
 type jsonSpecies struct {
