@@ -123,7 +123,7 @@ func checkFolder(dir string, allow bool) (map[string]bool, error) {
 		return nil, err
 	}
 	if len(other) > 0 && !allow {
-		return nil, fmt.Errorf("%w: %s holds %s; choose an empty or new folder, or allow other files (they are left alone)",
+		return nil, fmt.Errorf("%w: %s holds %s; choose an empty or new folder",
 			ErrOtherFiles, dir, strings.Join(other, ", "))
 	}
 	return listed, nil
