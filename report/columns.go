@@ -66,7 +66,7 @@ var columnTitles = map[string]string{
 	"together_mg_l":          "Together (mg/L)",
 	"native_water":           "Native water",
 	"zone":                   "Zone",
-	"worst_share":            "Worst injectate share",
+	"worst_share":            "Worst share of water (1)",
 	"worst_mineral":          "Most supersaturated mineral",
 	"worst_si":               "Its SI",
 	"deposit_mg_l":           "Deposit to equilibrium (mg/L)",

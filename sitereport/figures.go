@@ -80,7 +80,7 @@ func renderOne(dir string, f report.Fig, fmts []string, out *report.IndexFigure)
 		}
 		label := strings.ToUpper(format)
 		if format == "png" {
-			label = fmt.Sprintf("PNG, %d dpi", figure.PNGDPI)
+			label = fmt.Sprintf("PNG (%d dpi)", figure.PNGDPI)
 		}
 		out.Links = append(out.Links, report.Link{Label: label, Href: filepath.ToSlash(name)})
 	}

@@ -117,7 +117,11 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	}
 	figs := append([]report.Fig(nil), st.Figures...)
 	var sections []report.Section
-	sec, mfigs, err := inject.NewPlanner(opt.DB, opt.Model, recs).Section(opt.Inject)
+	inj := opt.Inject
+	if inj.Minerals == nil && st != nil {
+		inj.Minerals = st.Minerals // the blend figures show what the maps show
+	}
+	sec, mfigs, err := inject.NewPlanner(opt.DB, opt.Model, recs).Section(inj)
 	if err != nil {
 		return nil, fmt.Errorf("injection planning: %w", err)
 	}
