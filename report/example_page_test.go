@@ -1,0 +1,42 @@
+package report_test
+
+import (
+	"fmt"
+
+	"gwsat.dev/gwsat/report"
+)
+
+// A saturation index as the page shows it: the state marker (near
+// equilibrium within ±0.5), two decimals with a sign, and the cell's shading
+// class.
+func ExampleSICell() {
+	for _, si := range []float64{0.623, -1.2, -0.004} {
+		text, class := report.SICell(si)
+		fmt.Printf("%q %s\n", text, class)
+	}
+	// Output:
+	// "▲ +0.62" si-sup
+	// "▼ -1.20" si-und
+	// "≈ 0.00" si-near
+}
+
+// Column headings in words with units; a mineral's SI column is named after
+// the mineral.
+func ExampleColumnTitle() {
+	fmt.Println(report.ColumnTitle("ionic_strength_mol_kgw"))
+	fmt.Println(report.ColumnTitle(report.ColumnName("amorphous silica")))
+	// Output:
+	// Ionic strength (mol/kg water)
+	// amorphous silica SI
+}
+
+// The page view of a CSV table: every digit stays in the CSV, the page shows
+// two decimals and the state.
+func ExampleNewPageTable() {
+	t := &report.Table{Header: []string{"sample_id", "baryte_si"}}
+	t.Add("MW-1", report.Full(0.9134567))
+	pt := report.NewPageTable(t, "Key minerals", nil)
+	fmt.Println(pt.Header[1].Title, "|", pt.Rows[0][1].Text, "|", t.Rows[0][1])
+	// Output:
+	// baryte SI | ▲ +0.91 | 0.9134567
+}
