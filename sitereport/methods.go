@@ -137,7 +137,8 @@ func thresholds(model speciation.ActivityModel) []report.Threshold {
 		{What: "Charge balance, anion sum 0-3.0 meq/L", Value: 0.2, Unit: "meq/L (absolute difference)", Source: "Standard Methods 1030 E, 23rd ed."},
 		{What: "Charge balance, anion sum 3.0-10.0 meq/L", Value: 2, Unit: "%", Source: "Standard Methods 1030 E, 23rd ed."},
 		{What: "Charge balance, anion sum 10-800 meq/L", Value: 5, Unit: "%", Source: "Standard Methods 1030 E, 23rd ed."},
-		{What: "Measured/calculated TDS, acceptable from 1.0 to", Value: 1.2, Unit: "(ratio)", Source: "Standard Methods 1030 E"},
+		{What: "Measured/calculated TDS ratio, lower limit", Value: 1.0, Unit: "(no unit)", Source: "Standard Methods 1030 E"},
+		{What: "Measured/calculated TDS ratio, upper limit", Value: 1.2, Unit: "(no unit)", Source: "Standard Methods 1030 E"},
 		{What: "Charge balance after speciation, or with ions missing", Value: assess.SpeciatedBalanceLimitPct, Unit: "%", Source: "common practice"},
 		{What: "Ionic strength up to which the " + model.Name() + " model is used", Value: model.MaxIonicStrength(), Unit: "mol/kg water", Source: modelSource(model)},
 	}

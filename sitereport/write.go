@@ -214,7 +214,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	for i := range recs {
 		r := &recs[i]
 		if r.Status != hydro.StatusOK {
-			ix.QA = append(ix.QA, fmt.Sprintf("%s line %d, sample %s (%s): %s", r.File, r.Row.Line, r.Sample().ID, r.Status, r.FirstProblem()))
+			ix.QA = append(ix.QA, qaLine(r))
 		}
 	}
 	for _, f := range tableFiles {
@@ -231,6 +231,16 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		return nil, err
 	}
 	return out, nil
+}
+
+// qaLine words a row that is not ok: where it is, its status, and its first
+// problem (without the severity word, which the status already gives).
+func qaLine(r *assess.Record) string {
+	p := r.FirstProblem()
+	for _, sev := range []string{"error: ", "warning: ", "info: "} {
+		p = strings.TrimPrefix(p, sev)
+	}
+	return fmt.Sprintf("%s line %d, sample %s, %s: %s", r.File, r.Row.Line, r.Sample().ID, r.Status, p)
 }
 
 func batchFiles(bs []*hydro.Batch) []string {
