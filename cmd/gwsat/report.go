@@ -155,6 +155,7 @@ func reportCmd(e *env) *cobra.Command {
 type sectionFlags struct {
 	injectate, native string
 	aquiferTemp       float64
+	noCrossFlow       bool
 	well              inject.Well
 }
 
@@ -162,9 +163,10 @@ func (s *sectionFlags) register(c *cobra.Command) {
 	f := c.Flags()
 	w := inject.DefaultWell()
 	f.StringVar(&s.injectate, "injectate", "", "sample id of the injectate (default: the first row whose sample type is injectate; demo: "+demoInjectate+")")
-	f.StringVar(&s.native, "native", "", "sample id of the native groundwater (default: the first row whose sample type is native; demo: "+demoNative+")")
-	f.Float64Var(&s.aquiferTemp, "aquifer-temp", math.NaN(), "aquifer temperature for the blends, C (default: the native water's)")
-	f.Lookup("aquifer-temp").DefValue = "the native water's"
+	f.StringVar(&s.native, "native", "", "sample id of a native groundwater to evaluate besides every row whose sample type is native (one per zone; demo: "+demoNative+", "+demoDeep+" and the shallow zone's)")
+	f.Float64Var(&s.aquiferTemp, "aquifer-temp", math.NaN(), "temperature of the blends of the injectate with the native waters, C")
+	f.Lookup("aquifer-temp").DefValue = "each native water's own"
+	f.BoolVar(&s.noCrossFlow, "no-cross-flow", false, "leave out the blends of native waters of adjacent zones (cross-flow along a screen open to both)")
 	f.Float64Var(&s.well.RateM3PerDay, "rate", w.RateM3PerDay, "injection rate for the pore-filling screen, m3/day")
 	f.Float64Var(&s.well.ScreenLengthM, "screen", w.ScreenLengthM, "screen length for the pore-filling screen, m")
 	f.Float64Var(&s.well.Porosity, "porosity", w.Porosity, "aquifer porosity for the pore-filling screen")
@@ -180,7 +182,7 @@ func (s *sectionFlags) options() (inject.SectionOptions, error) {
 			return inject.SectionOptions{}, fmt.Errorf("--aquifer-temp: %w", err)
 		}
 	}
-	return inject.SectionOptions{Injectate: s.injectate, Native: s.native, AquiferTempC: s.aquiferTemp, Well: s.well}, nil
+	return inject.SectionOptions{Injectate: s.injectate, Native: s.native, AquiferTempC: s.aquiferTemp, Well: s.well, NoCrossFlow: s.noCrossFlow}, nil
 }
 
 // siteFeatures reads the site-feature file, or the demo's.
