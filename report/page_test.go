@@ -139,3 +139,16 @@ func TestIsSIColumn(t *testing.T) {
 		t.Error("ColumnName must end in _si")
 	}
 }
+
+// JSON numbers keep every digit, write -0 as 0 and NaN or Inf as null.
+func TestJSONNum(t *testing.T) {
+	for _, c := range []struct {
+		v    float64
+		want string
+	}{{0.1234567890123, "0.1234567890123"}, {math.Copysign(0, -1), "0"}, {math.NaN(), "null"}, {math.Inf(-1), "null"}, {-1.5e-12, "-1.5e-12"}} {
+		b, err := jsonNum(c.v).MarshalJSON()
+		if err != nil || string(b) != c.want {
+			t.Errorf("jsonNum(%v) = %s, %v; want %s", c.v, b, err, c.want)
+		}
+	}
+}

@@ -158,6 +158,9 @@ func (f jsonNum) MarshalJSON() ([]byte, error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return []byte("null"), nil
 	}
+	if v == 0 {
+		return []byte("0"), nil // never -0
+	}
 	return strconv.AppendFloat(nil, v, 'g', -1, 64), nil // every digit
 }
 
