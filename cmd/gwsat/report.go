@@ -129,7 +129,7 @@ func reportCmd(e *env) *cobra.Command {
 				fmt.Fprintf(e.stderr, "  report: %s (%d %s; open index.html)\n", oc2.Index, oc2.Figures, plural(oc2.Figures, "figure", "figures"))
 			}
 			if len(oc2.FigureErrors) > 0 {
-				return failed(fmt.Errorf("%d figure(s) could not be drawn or written (see above)", len(oc2.FigureErrors)))
+				return failed(fmt.Errorf("%d %s could not be drawn or written (see above)", len(oc2.FigureErrors), plural(len(oc2.FigureErrors), "figure", "figures")))
 			}
 			return oc.verdict(oc2.Summary)
 		},
