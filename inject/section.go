@@ -106,7 +106,15 @@ func (p *Planner) Section(opt SectionOptions) (*report.Section, []report.Fig, er
 	}
 	sec.Paragraphs = append(sec.Paragraphs, worstSentence(w, inj))
 	if wc >= 0 {
-		sec.Paragraphs = append(sec.Paragraphs, worstSentence(pairs[wc], ""))
+		c := pairs[wc]
+		sec.Paragraphs = append(sec.Paragraphs, worstSentence(c, ""))
+		if c.Worst.Score > 0 {
+			d, err := p.Deposit(DepositOptions{Water: WaterChoice{Native: c.First, Injectate: c.Second, Share: c.Worst.Share}})
+			if err != nil {
+				return nil, nil, err
+			}
+			sec.Paragraphs = append(sec.Paragraphs, depositSentence("That cross-flow blend ("+d.Name+")", d.Precipitation))
+		}
 	}
 	prec := pf.Deposit.Precipitation
 	sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("The deposit is computed for that worst blend with the injectate: %s.", pf.Deposit.Name))
@@ -161,6 +169,18 @@ func worstSentence(p pairing, inj string) string {
 		return fmt.Sprintf("%s: no scale mineral is supersaturated at any share; the closest is %s (SI %s at share %.2f).", what, p.Worst.Mineral, report.Signed(p.Worst.SI, 2), p.Worst.Share)
 	}
 	return fmt.Sprintf("%s at a share of %.2f, where %s is the most supersaturated scale mineral (SI %s).", what, p.Worst.Share, p.Worst.Mineral, report.Signed(p.Worst.SI, 2))
+}
+
+// depositSentence words what a water would deposit, all candidates together.
+func depositSentence(where string, pr *reaction.Precipitation) string {
+	if len(pr.Together.Amounts) == 0 {
+		return where + ": no common scale mineral would deposit."
+	}
+	var parts []string
+	for _, a := range pr.Together.Amounts {
+		parts = append(parts, fmt.Sprintf("%s %s mg/L (SI %s before)", a.Mineral, report.Sig(a.MgL, 3), report.Signed(a.SIBefore, 2)))
+	}
+	return where + " would deposit, to equilibrium: " + strings.Join(parts, ", ") + "."
 }
 
 // worstOf returns the index of the pairing (cross-flow or with the
