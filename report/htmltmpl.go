@@ -62,7 +62,7 @@ func stateKey(band float64) template.HTML {
 		`<span class="si-near">` + MarkNearEquilibrium + ` +0.10</span>near equilibrium, within &plusmn;` + b + ` ` +
 		`<span class="si-und">` + MarkUndersaturated + ` -1.20</span>undersaturated, SI &lt; -` + b + ` (it may dissolve it). ` +
 		`The band of &plusmn;` + b + ` stands for the uncertainty of analyses and thermodynamic data (common practice: &plusmn;0.2 to &plusmn;0.5). ` +
-		`SI = log<sub>10</sub>(IAP/K), no unit; two decimals here, every digit in samples.csv and samples.json.</p>`)
+		`SI = log<sub>10</sub>(IAP/K), no unit; two decimals here (the state is judged on the unrounded value), every digit in samples.csv and samples.json.</p>`)
 }
 
 // sectionID makes an HTML id from a title.
