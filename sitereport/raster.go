@@ -52,11 +52,11 @@ func rasterise(f figure.Figure, w, h vg.Length) (out rasters, err error) {
 	if !ok {
 		return rasters{}, fmt.Errorf("figure: unexpected image type %T", cv.Image())
 	}
-	// The full-resolution file favours speed (it is linked, not embedded); the
+	// The full-resolution file favours speed (it is linked, not embedded:
+	// encodeFigurePNG); the
 	// screen copy is embedded, so it is reduced to a palette and compressed well.
-	fast := png.Encoder{CompressionLevel: png.BestSpeed}
 	var fb, sb bytes.Buffer
-	if err := fast.Encode(&fb, full); err != nil {
+	if err := encodeFigurePNG(&fb, full); err != nil {
 		return rasters{}, fmt.Errorf("figure: encoding png: %w", err)
 	}
 	small := shrink(full, float64(figure.PNGDPI)/ScreenDPI)
