@@ -53,8 +53,8 @@ func rasterise(f figure.Figure, w, h vg.Length) (out rasters, err error) {
 		return rasters{}, fmt.Errorf("figure: unexpected image type %T", cv.Image())
 	}
 	// The full-resolution file favours speed (it is linked, not embedded:
-	// encodeFigurePNG); the
-	// screen copy is embedded, so it is reduced to a palette and compressed well.
+	// encodeFigurePNG); the screen copy is embedded, so it is reduced to a
+	// palette and compressed well.
 	var fb, sb bytes.Buffer
 	if err := encodeFigurePNG(&fb, full); err != nil {
 		return rasters{}, fmt.Errorf("figure: encoding png: %w", err)
