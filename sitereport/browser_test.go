@@ -96,8 +96,9 @@ func fileURL(path string) string {
 // The printed page holds every sample and the SI column of every key
 // mineral: nothing is cut off or hidden in a scroll box on paper.
 func TestPrintedReportShowsEverySample(t *testing.T) {
-	dir, _ := demoReport(t)
+	needTool(t, "chromium", "chromium-browser")
 	pdftotext := needTool(t, "pdftotext")
+	dir, _ := demoReport(t)
 	pdf := filepath.Join(t.TempDir(), "report.pdf")
 	chromium(t, "--no-pdf-header-footer", "--print-to-pdf="+pdf, fileURL(filepath.Join(dir, "index.html")))
 	txt, err := exec.Command(pdftotext, pdf, "-").Output()
@@ -148,6 +149,7 @@ var widthRE = regexp.MustCompile(`<title>W(\d+)/(\d+)</title>`)
 // At 1280 pixels (and on a narrower 800-pixel window) the page does not
 // scroll sideways: wide tables scroll in their own box.
 func TestNoHorizontalOverflow(t *testing.T) {
+	needTool(t, "chromium", "chromium-browser")
 	dir, _ := demoReport(t)
 	page, err := os.ReadFile(filepath.Join(dir, "index.html"))
 	if err != nil {
