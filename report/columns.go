@@ -64,6 +64,7 @@ var columnTitles = map[string]string{
 	"alone_mg_l":             "Alone (mg/L)",
 	"together_mmol_kgw":      "Together (mmol/kg water)",
 	"together_mg_l":          "Together (mg/L)",
+	"blend":                  "Blend",
 	"native_water":           "Native water",
 	"zone":                   "Zone",
 	"worst_share":            "Worst share of water (1)",
