@@ -175,3 +175,22 @@ func TestNoHorizontalOverflow(t *testing.T) {
 		}
 	}
 }
+
+// Every column heading of the demo page is in words (ColumnTitle), none is a
+// bare CSV name.
+func TestEveryHeadingHasATitle(t *testing.T) {
+	dir, _ := demoReport(t)
+	page, err := os.ReadFile(filepath.Join(dir, "index.html"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	heads := regexp.MustCompile(`<th scope="col" title="([^"]*)">([^<]*)<`).FindAllSubmatch(page, -1)
+	if len(heads) < 20 {
+		t.Fatalf("%d headings", len(heads))
+	}
+	for _, h := range heads {
+		if string(h[1]) == string(h[2]) {
+			t.Errorf("column %s has no title", h[1])
+		}
+	}
+}
