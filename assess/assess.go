@@ -5,12 +5,19 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"runtime"
-	"sync"
+	"strings"
 
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/speciation"
 )
+
+// AutoModelSwitch is the ionic strength (mol/kgw) above which the automatic model
+// choice solves a row with Pitzer's equations instead of Truesdell-Jones: at 0.5
+// mol/kg the extended Debye-Hueckel forms begin to depart from measured mean
+// activity coefficients (Davies is 7.7 % low for NaCl there; Robinson & Stokes
+// 1959 tables), while over random waters the sulfate SIs of the two models still
+// agree within 0.1 up to I = 1 (measured in the brine tests of package speciation).
+const AutoModelSwitch = 0.5
 
 // DefaultTempC is the temperature assumed for a sample reported without one
 // (25 C, the reference temperature of the data; common practice). The row
@@ -28,7 +35,9 @@ const (
 
 // Options control Run.
 type Options struct {
-	// Model is the activity model (default Truesdell-Jones).
+	// Model is the activity model; nil chooses per row by ionic strength (see
+	// AutoModelSwitch): Truesdell-Jones for fresh and brackish water, Pitzer for
+	// brines. The model used is recorded in every result.
 	Model speciation.ActivityModel
 	// BalanceOn names a component (e.g. "Cl-", "Na+") whose total is
 	// adjusted so that the speciated water is electrically neutral; "" for
@@ -39,6 +48,10 @@ type Options struct {
 	// Progress, when not nil, is called after each record is done (from one
 	// goroutine at a time).
 	Progress func()
+	// ORPReference names the reference electrode of ORP readings (e.g.
+	// "Ag/AgCl sat KCl"; see speciation.ParseReferenceElectrode); "" leaves ORP
+	// unused.
+	ORPReference string
 	// Detail keeps every species and the distribution of each component in
 	// the results (for JSON output and the species view). Without it only
 	// the summary quantities are kept (ionic strength, SIs, indices...),
@@ -59,6 +72,9 @@ type Record struct {
 	SolveError string
 	// PHAdjusted is set when a charge-balance adjustment was asked for.
 	Adjusted string
+	// PESource says where the pe came from ("O2/H2O", "Eh", "ORP"...), "" when
+	// the water was solved without one.
+	PESource string
 
 	// Status and Issues are the final verdict: the reader's, the unit
 	// conversion's, the charge balance's, the position check's and the
@@ -96,50 +112,15 @@ func (r *Record) Sample() *hydro.Sample { return &r.Row.Sample }
 // Run assesses every row of the batches, in order. It returns one record per
 // row; the error is only for a cancelled context.
 func Run(ctx context.Context, db *speciation.Database, batches []*hydro.Batch, opt Options) ([]Record, error) {
-	if opt.Model == nil {
-		opt.Model = speciation.TruesdellJones{}
-	}
-	var recs []Record
+	n := 0
 	for _, b := range batches {
-		for _, row := range b.Rows {
-			recs = append(recs, Record{File: b.File, Row: row})
-		}
+		n += len(b.Rows)
 	}
-	workers := opt.Workers
-	if workers <= 0 {
-		workers = runtime.GOMAXPROCS(0)
-	}
-	jobs := make(chan int)
-	var wg sync.WaitGroup
-	var mu sync.Mutex
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			solver := speciation.NewSolver(db, opt.Model)
-			var sw speciation.Water
-			for i := range jobs {
-				assessOne(&recs[i], solver, &sw, opt)
-				if opt.Progress != nil {
-					mu.Lock()
-					opt.Progress()
-					mu.Unlock()
-				}
-			}
-		}()
-	}
-	var err error
-feed:
-	for i := range recs {
-		select {
-		case jobs <- i:
-		case <-ctx.Done():
-			err = ctx.Err()
-			break feed
-		}
-	}
-	close(jobs)
-	wg.Wait()
+	recs := make([]Record, 0, n)
+	err := Stream(ctx, db, BatchItems(batches), opt, func(r *Record) error {
+		recs = append(recs, *r)
+		return nil
+	})
 	return recs, err
 }
 
@@ -164,7 +145,7 @@ func statusOf(sev hydro.Severity) hydro.Status {
 }
 
 // Note adds an issue and raises the status to what its severity asks.
-func (r *Record) Note(sev hydro.Severity, code, format string, a ...any) {
+func (r *Record) Note(sev hydro.Severity, code hydro.Code, format string, a ...any) {
 	r.Add(hydro.Issue{Severity: sev, Code: code, Message: fmt.Sprintf(format, a...)})
 }
 
@@ -174,12 +155,29 @@ func (r *Record) Add(is hydro.Issue) {
 	r.Issues = append(r.Issues, is)
 }
 
-func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt Options) {
+func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water, opt Options) {
 	r.Status = r.Row.Status
 	r.Issues = append(r.Issues[:0], r.Row.Issues...)
 	s := &r.Row.Sample
 	checkPosition(r)
+	if r.Status == hydro.StatusRejected {
+		return
+	}
+	w, issues := s.Water()
+	r.Water = w
+	for _, is := range issues {
+		r.Add(is)
+	}
+	checkPlausible(r, &w)
+	if r.Status == hydro.StatusRejected {
+		return
+	}
 	r.Balance = hydro.ChargeBalance(s)
+	if !finite(r.Balance.ErrorPct) || !finite(r.Balance.CationsMeqL) || !finite(r.Balance.AnionsMeqL) {
+		r.Balance = hydro.Balance{}
+		r.Note(hydro.Error, CodeNotFinite, "charge balance cannot be computed: a value is too large")
+		return
+	}
 	switch {
 	case !r.Balance.Complete && math.Abs(r.Balance.ErrorPct) > IncompleteBalanceLimitPct:
 		r.Note(hydro.Warning, CodeBalanceIncomplete, "charge balance %.1f %% with ions missing (%v): the analysis is incomplete or wrong", r.Balance.ErrorPct, r.Balance.Missing)
@@ -192,18 +190,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.Note(hydro.Warning, CodeBalanceWarn, "charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	}
 	if r.Balance.HasTDSRatio && !r.Balance.TDSRatioOK {
-		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.2f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
-	}
-	if r.Status == hydro.StatusRejected {
-		return
-	}
-	w, issues := s.Water()
-	r.Water = w
-	for _, is := range issues {
-		r.Add(is)
-	}
-	if r.Status == hydro.StatusRejected {
-		return
+		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.3f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
 	}
 	if !w.HasPH {
 		r.Note(hydro.Warning, CodeNoPH, "no pH: speciation skipped")
@@ -221,7 +208,19 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	if opt.BalanceOn != "" {
 		sw.ChargeBalanceIon = opt.BalanceOn
 	}
-	res, err := solver.Solve(sw)
+	res, err := solveWithRedox(r, solver, sw, tempC, opt)
+	if err == nil && brine != nil && res.IonicStrength > AutoModelSwitch {
+		// A brine: solve again with Pitzer's equations. The choice depends on
+		// this row alone, so it never changes between two runs.
+		if res.HasPE {
+			sw.SetPE(res.PE) // the same pe, whatever reading gave it
+		}
+		if bres, berr := brine.Solve(sw); berr == nil {
+			res = bres
+		} else {
+			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw is a brine, but the Pitzer solve failed (%v): the Truesdell-Jones result is kept, beyond its range", res.IonicStrength, berr)
+		}
+	}
 	if err != nil {
 		var se *speciation.SolveError
 		reason := err.Error()
@@ -242,13 +241,29 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	}
 	for _, wmsg := range res.Warnings {
 		if wmsg == speciation.WarnIonicStrength {
-			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, solver.Model().Name(), solver.Model().MaxIonicStrength())
+			m := solver.Model()
+			if brine != nil && res.Model == brine.Model().Name() {
+				m = brine.Model()
+			}
+			r.Note(hydro.Warning, CodeIonicStrength, "ionic strength %.3g mol/kgw above the %s model's limit %.2g", res.IonicStrength, m.Name(), m.MaxIonicStrength())
 			continue
 		}
 		if wmsg == speciation.WarnNoEnthalpy {
 			continue // a property of the data set, stated in the README, not of the sample
 		}
 		r.Note(hydro.Info, CodeSolverNote, "%s", wmsg)
+	}
+	var outside []string
+	for _, m := range res.Minerals {
+		if m.OutsideTempRange {
+			outside = append(outside, m.Name)
+		}
+	}
+	if len(outside) > 0 {
+		r.Note(hydro.Info, CodeTempRange, "at %.1f C, outside the temperature range of their data: %s (those SIs are extrapolated)", res.TempC, strings.Join(outside, ", "))
+	}
+	if res.RedoxSkipped {
+		r.Note(hydro.Info, CodeNoRedox, "%s", speciation.NoteNoRedox)
 	}
 	_, hasTIC := w.Molal[speciation.NameCarbonate]
 	switch {
@@ -257,6 +272,7 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 	case !hasTIC && w.AlkalinityEqKgw <= 0:
 		r.Note(hydro.Info, CodeNoCarbonate, "alkalinity not above 0 (an acid water): carbonate minerals and log pCO2 not computed")
 	}
+	checkPCO2(r, res)
 	if math.Abs(res.ChargeBalance) > SpeciatedBalanceLimitPct {
 		r.Note(hydro.Warning, CodeSpeciatedBalance, "charge balance after speciation %.1f %%: saturation indices are doubtful", res.ChargeBalance)
 	}
@@ -264,6 +280,8 @@ func assessOne(r *Record, solver *speciation.Solver, sw *speciation.Water, opt O
 		r.Note(hydro.Info, CodeIndicesRange, "Langelier and Ryznar indices outside their range (pH 6.5-9.5, ionic strength up to 0.5 mol/kgw)")
 	}
 }
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // SpeciationWater fills dst from a converted lab sample: its temperature
 // (tempC, since a missing one is the caller's choice), pH, component

@@ -12,7 +12,7 @@ import (
 
 func read(t *testing.T, csv string) *hydro.Batch {
 	t.Helper()
-	b, err := hydro.Read(strings.NewReader(csv), "t.csv", hydro.Options{})
+	b, err := hydro.Read(strings.NewReader(csv), "t.csv", hydro.Options{ConfirmUnits: true})
 	if err != nil {
 		t.Fatal(err)
 	}

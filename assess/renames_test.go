@@ -20,6 +20,12 @@ import (
 // one computed before the renames (testdata/demo_si_before_renames.csv, see
 // testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
 // the database accepts on input.
+// newTemperatureData are the minerals whose log K(T) was replaced after the
+// baseline was written (heat-capacity data that hold to 100 C; see their entries
+// in speciation/thermo.txt and the brine tests): their SIs moved by design, by up
+// to 0.013 on the demo, and are checked against published solubilities instead.
+var newTemperatureData = map[string]bool{"gypsum": true, "anhydrite": true, "celestine": true, "halite": true}
+
 func TestDemoSIUnchangedByRenames(t *testing.T) {
 	f, err := os.Open("../testdata/demo_si_before_renames.csv")
 	if err != nil {
@@ -46,22 +52,29 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	byLine := map[int]*assess.Record{}
+	// By sample id: the demo's lines moved down by one when it gained a
+	// units row.
+	byID := map[string]*assess.Record{}
 	for i := range recs {
-		byLine[recs[i].Row.Line] = &recs[i]
+		byID[recs[i].Row.Sample.ID] = &recs[i]
 	}
 	checked := 0
 	for _, r := range rows[1:] {
-		line, _ := strconv.Atoi(r[0])
-		want, _ := strconv.ParseFloat(r[3], 64)
-		rec := byLine[line]
+		want, err := strconv.ParseFloat(r[3], 64)
+		if err != nil {
+			t.Fatalf("baseline %v: %v", r, err)
+		}
+		rec := byID[r[1]]
 		if rec == nil || rec.Result == nil || rec.Row.Sample.ID != r[1] {
-			t.Errorf("line %d (%s): no speciated row", line, r[1])
+			t.Errorf("%s: no speciated row", r[1])
 			continue
 		}
 		m := db.Mineral(r[2])
 		if m == nil {
 			t.Errorf("old mineral name %q is not accepted", r[2])
+			continue
+		}
+		if newTemperatureData[m.Name] {
 			continue
 		}
 		got, ok := rec.Result.SI(m.Name)
@@ -70,7 +83,7 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 		}
 		checked++
 	}
-	if checked < 1500 {
+	if checked < 1100 {
 		t.Errorf("only %d values compared", checked)
 	}
 }

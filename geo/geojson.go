@@ -33,51 +33,81 @@ type PointFeature struct {
 // Float property values that are NaN or infinite are written as null.
 // Duplicate property keys are an error.
 func WriteSamples(w io.Writer, pts []PointFeature) error {
+	sw := NewSampleWriter(w)
+	for i := range pts {
+		if err := sw.Write(pts[i]); err != nil {
+			return err
+		}
+	}
+	return sw.Close()
+}
+
+// SampleWriter writes a GeoJSON FeatureCollection of point features one at a
+// time, in the form of WriteSamples, so that a file of any length streams
+// through bounded memory. Close ends the collection.
+type SampleWriter struct {
+	bw *bufio.Writer
+	n  int
+}
+
+// NewSampleWriter starts a FeatureCollection on w.
+func NewSampleWriter(w io.Writer) *SampleWriter {
 	bw := bufio.NewWriter(w)
 	bw.WriteString(`{"type":"FeatureCollection","features":[`)
-	for i, f := range pts {
-		if i > 0 {
-			bw.WriteByte(',')
-		}
-		bw.WriteString("\n{\"type\":\"Feature\"")
-		if f.ID != "" {
-			id, _ := json.Marshal(f.ID) // a string always marshals
-			bw.WriteString(`,"id":`)
-			bw.Write(id)
-		}
-		if ValidLonLat(f.Point) != nil {
-			bw.WriteString(`,"geometry":null`)
-		} else {
-			p := Round(f.Point)
-			bw.WriteString(`,"geometry":{"type":"Point","coordinates":[`)
-			bw.WriteString(formatCoord(p[0]))
-			bw.WriteByte(',')
-			bw.WriteString(formatCoord(p[1]))
-			bw.WriteString(`]}`)
-		}
-		bw.WriteString(`,"properties":{`)
-		seen := make(map[string]bool, len(f.Props))
-		for k, pr := range f.Props {
-			if seen[pr.Key] {
+	return &SampleWriter{bw: bw}
+}
+
+// Write adds one feature.
+func (sw *SampleWriter) Write(f PointFeature) error {
+	bw := sw.bw
+	i := sw.n
+	if i > 0 {
+		bw.WriteByte(',')
+	}
+	sw.n++
+	bw.WriteString("\n{\"type\":\"Feature\"")
+	if f.ID != "" {
+		id, _ := json.Marshal(f.ID) // a string always marshals
+		bw.WriteString(`,"id":`)
+		bw.Write(id)
+	}
+	if ValidLonLat(f.Point) != nil {
+		bw.WriteString(`,"geometry":null`)
+	} else {
+		p := Round(f.Point)
+		bw.WriteString(`,"geometry":{"type":"Point","coordinates":[`)
+		bw.WriteString(formatCoord(p[0]))
+		bw.WriteByte(',')
+		bw.WriteString(formatCoord(p[1]))
+		bw.WriteString(`]}`)
+	}
+	bw.WriteString(`,"properties":{`)
+	for k, pr := range f.Props {
+		for _, q := range f.Props[:k] {
+			if q.Key == pr.Key {
 				return fmt.Errorf("geo: feature %d: duplicate property %q", i, pr.Key)
 			}
-			seen[pr.Key] = true
-			if k > 0 {
-				bw.WriteByte(',')
-			}
-			key, _ := json.Marshal(pr.Key) // a string always marshals
-			val, err := json.Marshal(cleanValue(pr.Value))
-			if err != nil {
-				return fmt.Errorf("geo: feature %d: property %q: %w", i, pr.Key, err)
-			}
-			bw.Write(key)
-			bw.WriteByte(':')
-			bw.Write(val)
 		}
-		bw.WriteString("}}")
+		if k > 0 {
+			bw.WriteByte(',')
+		}
+		key, _ := json.Marshal(pr.Key) // a string always marshals
+		val, err := json.Marshal(cleanValue(pr.Value))
+		if err != nil {
+			return fmt.Errorf("geo: feature %d: property %q: %w", i, pr.Key, err)
+		}
+		bw.Write(key)
+		bw.WriteByte(':')
+		bw.Write(val)
 	}
-	bw.WriteString("\n]}\n")
-	return bw.Flush()
+	bw.WriteString("}}")
+	return nil
+}
+
+// Close ends the collection and flushes it.
+func (sw *SampleWriter) Close() error {
+	sw.bw.WriteString("\n]}\n")
+	return sw.bw.Flush()
 }
 
 func cleanValue(v any) any {

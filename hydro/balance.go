@@ -72,7 +72,7 @@ func ChargeBalance(s *Sample) Balance {
 	var b Balance
 	sol, _, _, _ := s.solution()
 	if !(sol.KgWaterPerL > 0) {
-		sol = Dilute
+		sol = Dilute()
 	}
 	keys := make([]string, 0, len(s.Analytes))
 	for k := range s.Analytes {
@@ -101,6 +101,9 @@ func ChargeBalance(s *Sample) Balance {
 	}
 	b.Complete = true
 	for _, k := range requiredIons {
+		if k == "K" && s.Analytes["Na"].SodiumPlusPotassium {
+			continue // K is inside the Na value
+		}
 		if _, ok := s.Analytes[k]; !ok {
 			b.Complete = false
 			b.Missing = append(b.Missing, k)
@@ -155,9 +158,10 @@ func judge(b *Balance) {
 
 // tdsCheck computes the measured/calculated TDS ratio of 1030 E:
 // calculated TDS = 0.6 (alkalinity as CaCO3) + Na + K + Ca + Mg + Cl + SO4 +
-// SiO2 + NO3 (as NO3) + F, in mg/L; acceptable when 1.0 <= ratio <= 1.2.
-// The 0.6 factor and the ratio band are as quoted by a course handout
-// following 1030 E ([V]).
+// SiO2 + NO3 (as NO3) + F, in mg/L; acceptable when 1.0 <= ratio <= 1.2
+// (Standard Methods 1030 E, 23rd ed., 2017, `from memory`). An analyte whose
+// unit cannot be converted (only possible in a Sample built by hand; Read
+// refuses such units) leaves the ratio out rather than using a partial sum.
 func tdsCheck(s *Sample, b *Balance) {
 	if !s.TDSMgL.OK {
 		return
@@ -165,28 +169,37 @@ func tdsCheck(s *Sample, b *Balance) {
 	sum := 0.0
 	for _, k := range []string{"Na", "K", "Ca", "Mg", "Cl", "SO4", "SiO2", "NO3", "F"} {
 		if m, ok := s.Analytes[k]; ok {
-			if v, err := m.MgL(Dilute); err == nil {
-				sum += v
+			v, err := m.MgL(Dilute())
+			if err != nil {
+				return
 			}
+			sum += v
 		}
 	}
+	alkKeys := []string{"HCO3", "CO3"}
+	if _, ok := s.Analytes["Alk"]; ok {
+		alkKeys = []string{"Alk"}
+	}
 	alkMeq := 0.0
-	if m, ok := s.Analytes["Alk"]; ok {
-		alkMeq, _ = m.MeqL(Dilute)
-	} else {
-		for _, k := range []string{"HCO3", "CO3"} {
-			if m, ok := s.Analytes[k]; ok {
-				v, _ := m.MeqL(Dilute)
-				alkMeq += v
+	for _, k := range alkKeys {
+		if m, ok := s.Analytes[k]; ok {
+			v, err := m.MeqL(Dilute())
+			if err != nil {
+				return
 			}
+			alkMeq += v
 		}
 	}
 	sum += 0.6 * alkMeq * mmCaCO3 / 2
-	if sum <= 0 {
+	if !(sum > 0) || math.IsInf(sum, 0) {
 		return
 	}
 	b.TDSCalcMgL = sum
 	b.TDSRatio = s.TDSMgL.V / sum
+	if math.IsNaN(b.TDSRatio) || math.IsInf(b.TDSRatio, 0) {
+		b.TDSCalcMgL, b.TDSRatio = 0, 0
+		return
+	}
 	b.HasTDSRatio = true
 	b.TDSRatioOK = b.TDSRatio >= 1.0 && b.TDSRatio <= 1.2
 }

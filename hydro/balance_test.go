@@ -69,8 +69,8 @@ func TestChargeBalanceBandEdges(t *testing.T) {
 	}
 }
 
-// Worked example, course handout following Standard Methods 1030 E
-// ([V]): Ca 92.0, Mg 34.0, Na 8.2, K 1.4, Fe(III) 0.1,
+// Worked example of a 1030 E balance, summed by hand (meq/L = mg/L x
+// |charge| / molar mass, IUPAC 2013 atomic weights): Ca 92.0, Mg 34.0, Na 8.2, K 1.4, Fe(III) 0.1,
 // HCO3 325.0, SO4 84.0, Cl 9.6, NO3 13.0 mg/L give 7.79 meq/L cations,
 // 7.56 meq/L anions and a balance of 1.5 % (accepted).
 func TestChargeBalanceWorkedExample(t *testing.T) {
@@ -91,8 +91,7 @@ func TestChargeBalanceWorkedExample(t *testing.T) {
 	}
 }
 
-// The 1030 E TDS check, computed by hand from its formula (REFERENCES.md
-// 8.1 [V-calc]): for the worked example with measured TDS 603.5 mg/L,
+// The 1030 E TDS check, computed by hand from its formula: for the worked example with measured TDS 603.5 mg/L,
 // alkalinity = 325 x 50.04/61.02 = 266.5 mg/L as CaCO3, calculated TDS =
 // 0.6 x 266.5 + 8.2 + 1.4 + 92 + 34 + 9.6 + 84 + 13 = 402.1 mg/L and the
 // ratio 1.50 is outside 1.0-1.2.

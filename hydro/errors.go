@@ -13,6 +13,8 @@ var (
 	ErrNoAnalyte  = errors.New("hydro: no analyte column")
 	ErrRead       = errors.New("hydro: cannot read file")
 	ErrColumnMap  = errors.New("hydro: bad column map")
+	ErrOption     = errors.New("hydro: bad option")
+	ErrSheet      = errors.New("hydro: no such sheet")
 )
 
 // ReadError is a file-level error with its position, modelled on

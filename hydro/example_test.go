@@ -46,8 +46,8 @@ func ExampleRead() {
 	// ok 2 warning 0 rejected 1
 }
 
-// The worked example of a course handout following Standard Methods
-// 1030 E: 7.79 meq/L cations, 7.56 meq/L anions, 1.5 %.
+// A worked example of the Standard Methods 1030 E balance, summed by
+// hand: 7.79 meq/L cations, 7.56 meq/L anions, 1.5 %.
 func ExampleChargeBalance() {
 	lab := "Sample,Ca,Mg,Na,K,Fe(III),HCO3,SO4,Cl,NO3\n" +
 		"ex,92.0,34.0,8.2,1.4,0.1,325.0,84.0,9.6,13.0\n"

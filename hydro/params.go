@@ -22,6 +22,8 @@ const (
 	clInt                  // EPSG code
 	clDate
 	clScreen // free-text interval
+	clDO     // dissolved oxygen, mg/L
+	clMV     // redox potential, mV
 	// long-shape structure columns
 	clLongParam
 	clLongValue
@@ -56,6 +58,9 @@ const (
 	pSpecCond     = "SpecCond"
 	pTDS          = "TDS"
 	pDensity      = "Density"
+	pDO           = "DissolvedOxygen"
+	pEh           = "Eh"
+	pORP          = "ORP"
 	pParameter    = "Parameter"
 	pValue        = "Value"
 	pUnit         = "Unit"
@@ -74,7 +79,7 @@ var fieldDefs = map[string]fieldDef{
 	pID:           {clText, "id"},
 	pWellID:       {clText, "well wellid wellname wellno wellcode borehole boreholeid bore boreid station stationid stationname site siteid sitecode sitename locationid locid monitoringwell mw pointid point"},
 	pRound:        {clText, "round event campaign samplinground samplingevent samplingcampaign survey trip"},
-	pDate:         {clDate, "date sampledate samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp collectiondatetime sampledatetime samplingdatetime datetimecollected"},
+	pDate:         {clDate, "date sampledate datesample samplingdate datesampled collectiondate sampled datetime sampledat datetimesampled dateandtime timestamp sampletimestamp collectiondatetime sampledatetime samplingdatetime datetimecollected"},
 	pTime:         {clText, "time sampletime samplingtime timesampled"},
 	pLat:          {clDegrees, "lat latitude latdd latdeg ylat"},
 	pLon:          {clDegrees, "lon long lng longitude londd londeg xlon"},
@@ -92,12 +97,15 @@ var fieldDefs = map[string]fieldDef{
 	pPHLab:        {clPH, "phlab labph phl phlaboratory laboratoryph"},
 	pSpecCond:     {clEC, "ec spc specificconductance spcond conductivity cond sc ec25 electricalconductivity specificconductivity spcondmeasured fieldec labec"},
 	pTDS:          {clTDS, "tds totaldissolvedsolids dissolvedsolids tdsmeasured tds180 residueonevaporation"},
-	pDensity:      {clDensity, "density rho specificgravity sg"},
+	pDensity:      {clDensity, "density rho specificgravity sg spgrav spgr"},
+	pDO:           {clDO, "do dissolvedoxygen oxygen o2 do2 dissolvedo2 fielddo"},
+	pEh:           {clMV, "eh redox redoxpotential ehshe ehmv"},
+	pORP:          {clMV, "orp oxidationreductionpotential orpmv"},
 	pParameter:    {clLongParam, "parameter analyte determinand constituent characteristic characteristicname component param variable compound test analysis parametername analytename"},
 	pValue:        {clLongValue, "value result concentration conc resultvalue measuredvalue reading resultnumeric"},
 	pUnit:         {clLongUnit, "unit units uom resultunit unitofmeasure unitcode"},
 	pQualifier:    {clLongQual, "qualifier qual flag remark remarkcode resultqualifier qualifiercode lessthan detectionflag"},
-	pDL:           {clLongDL, "detectionlimit dl mdl rl reportinglimit lod mrl pql methoddetectionlimit"},
+	pDL:           {clLongDL, "detectionlimit dl mdl rl reportinglimit lod loq lor mrl pql methoddetectionlimit limitofreporting"},
 }
 
 // analyteAliases: normalised spelling -> analyte key and implied basis.
@@ -113,6 +121,7 @@ func init() {
 	add("Mg", "", "mg magnesium")
 	add("Na", "", "na sodium")
 	add("K", "", "k potassium")
+	add(keyNaK, "", "nak kna naplusk nakasna sodiumpluspotassium sodiumandpotassium sodiumpotassium alkalis")
 	add("Sr", "", "sr strontium")
 	add("Ba", "", "ba barium")
 	add("Fe", "", "fe iron fe2 feii ferrous")
@@ -160,6 +169,7 @@ type colSpec struct {
 	FUnit   fieldUnit
 	UnitRaw string // unit text found, "" if none
 	UnitErr string // unit text that could not be understood
+	UnitSrc string // where the unit came from when not the header
 	Note    string
 }
 
@@ -179,7 +189,7 @@ var (
 	reCharge    = regexp.MustCompile(`^(.*?)(\d?[+-]+|[+-]+\d?)$`)
 	fillerWords = map[string]bool{"dissolved": true, "diss": true, "dis": true, "filtered": true, "filt": true, "total": true, "tot": true, "conc": true, "concentration": true, "measured": true}
 	subWords    = map[string]string{"qualifier": "qualifier", "qual": "qualifier", "flag": "qualifier", "q": "qualifier", "remark": "qualifier",
-		"dl": "dl", "mdl": "dl", "rl": "dl", "lod": "dl", "detectionlimit": "dl", "reportinglimit": "dl"}
+		"dl": "dl", "mdl": "dl", "rl": "dl", "lod": "dl", "lor": "dl", "loq": "dl", "detectionlimit": "dl", "reportinglimit": "dl"}
 )
 
 // lookupName finds the parameter for a list of name tokens.
@@ -232,7 +242,7 @@ func isAnyUnit(s string) bool {
 	if _, ok := parseConcUnit(s); ok {
 		return true
 	}
-	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees} {
+	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees, clMV} {
 		if _, ok := parseFieldUnit(c, s); ok {
 			return true
 		}
@@ -249,10 +259,24 @@ func bareKey(h string) string {
 	return ""
 }
 
+// A column name longer than maxHeaderLen bytes or with more than
+// maxHeaderWords separators is not read as a parameter (the longest names
+// met, such as "Alkalinity, total as CaCO3 (mg/L at 25 C)", are well
+// within: common practice).
+const (
+	maxHeaderLen   = 120
+	maxHeaderWords = 12
+)
+
 // parseHeader works out what a column header (or a long-shape parameter
 // name) means.
 func parseHeader(h string) colSpec {
 	h = strings.TrimSpace(strings.Trim(strings.TrimSpace(h), `"'`))
+	if len(h) > maxHeaderLen || strings.Count(h, " ")+strings.Count(h, "_") > maxHeaderWords {
+		// A sentence, not a column name; also keeps the search below
+		// (which tries every split of the words) small.
+		return colSpec{}
+	}
 	var units []string
 	var extraName []string
 	for _, m := range reBracket.FindAllStringSubmatch(h, -1) {
@@ -389,85 +413,4 @@ func buildSpec(key, impliedAs string, units []string, strict bool) (colSpec, boo
 		s.FUnit, _ = parseFieldUnit(s.Class, "")
 	}
 	return s, true
-}
-
-// fieldUnit converts a field parameter to the reader's unit.
-type fieldUnit struct {
-	name string
-	conv func(float64) float64
-}
-
-func scale(f float64) func(float64) float64 { return func(v float64) float64 { return v * f } }
-
-var identity = func(v float64) float64 { return v }
-
-// parseFieldUnit parses the unit of a non-analyte numeric parameter; "" is
-// the default unit of the class.
-func parseFieldUnit(c class, s string) (fieldUnit, bool) {
-	k := unitKey(s)
-	switch c {
-	case clTemp:
-		switch k {
-		case "", "c", "degc", "celsius", "oc", "degreesc", "degc25":
-			return fieldUnit{"C", identity}, true
-		case "f", "degf", "fahrenheit", "of":
-			return fieldUnit{"F", func(v float64) float64 { return (v - 32) * 5 / 9 }}, true
-		case "k", "kelvin":
-			return fieldUnit{"K", func(v float64) float64 { return v - 273.15 }}, true
-		}
-	case clLength, clCoord:
-		switch k {
-		case "", "m", "meter", "meters", "metre", "metres", "mbgl", "mbgs", "mamsl", "masl", "mbtoc", "mbelowgl", "mmsl":
-			return fieldUnit{"m", identity}, true
-		case "ft", "feet", "ftbgs", "ftbgl", "ftamsl", "ftasl", "ftmsl":
-			if c == clLength {
-				return fieldUnit{"ft", scale(0.3048)}, true // international foot, exact
-			}
-		}
-	case clEC:
-		switch k {
-		case "", "uscm", "umhocm", "umhoscm", "uscm25c", "uscmat25c", "uscm25":
-			return fieldUnit{"uS/cm", identity}, true
-		case "mscm":
-			return fieldUnit{"mS/cm", scale(1000)}, true
-		case "msm":
-			return fieldUnit{"mS/m", scale(10)}, true
-		case "dsm":
-			return fieldUnit{"dS/m", scale(1000)}, true
-		}
-	case clTDS:
-		switch k {
-		case "", "mgl", "ppm", "mgkg", "mgl180c":
-			return fieldUnit{"mg/L", identity}, true
-		case "gl":
-			return fieldUnit{"g/L", scale(1000)}, true
-		}
-	case clDensity:
-		switch k {
-		case "", "kgl", "gml", "gcm3", "gcc", "kgdm3":
-			return fieldUnit{"kg/L", identity}, true
-		case "kgm3":
-			return fieldUnit{"kg/m3", scale(0.001)}, true
-		}
-	case clPH:
-		switch k {
-		case "", "su", "units", "stdunits", "phunits", "standardunits":
-			return fieldUnit{"", identity}, true
-		}
-	case clDegrees:
-		switch k {
-		case "", "deg", "degrees", "dd", "decimaldegrees", "decdeg":
-			return fieldUnit{"deg", identity}, true
-		}
-	case clText, clDate, clInt, clScreen, clLongParam, clLongValue, clLongUnit, clLongQual, clLongDL:
-		if k == "" {
-			return fieldUnit{"", identity}, true
-		}
-		if c == clScreen || c == clLongValue || c == clLongDL {
-			if k == "m" || k == "mbgl" || k == "mbgs" {
-				return fieldUnit{"m", identity}, true
-			}
-		}
-	}
-	return fieldUnit{}, false
 }

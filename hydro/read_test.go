@@ -167,7 +167,7 @@ func TestBadRows(t *testing.T) {
 		"unit,10,3,20,7,15\n" + // line 8: Mg in an unknown unit
 		"phtext,10,,20,seven,15\n" + // line 9: non-numeric pH
 		"good2,11,,21,7.5,16\n" // line 10
-	b := mustRead(t, in, Options{})
+	b := mustRead(t, in, Options{ConfirmUnits: true})
 	if len(b.Rows) != 9 {
 		t.Fatalf("%d rows, want 9", len(b.Rows))
 	}
@@ -212,7 +212,7 @@ func TestBadRows(t *testing.T) {
 
 func TestDuplicateSampleIDs(t *testing.T) {
 	in := "Sample,Ca,Cl\nW1,10,20\nW2,11,21\nW1,12,22\n"
-	b := mustRead(t, in, Options{})
+	b := mustRead(t, in, Options{ConfirmUnits: true})
 	if len(b.Rows) != 3 {
 		t.Fatalf("%d rows", len(b.Rows))
 	}
@@ -466,7 +466,7 @@ func TestScreens(t *testing.T) {
 			t.Errorf("parseScreen(%q) = %v %v %v %v", tt.in, top, bot, n, err)
 		}
 	}
-	b := mustRead(t, "Sample,Ca,Screen\nA,1,see log\nB,1,10-12\n", Options{})
+	b := mustRead(t, "Sample,Ca,Screen\nA,1,see log\nB,1,10-12\n", Options{ConfirmUnits: true})
 	if r := b.Rows[0]; r.Status != StatusWarning || !hasIssue(r, Warning, "Screen", "cannot read") || r.Sample.ScreenTopM.OK {
 		t.Errorf("unreadable screen: %s %v", r.Status, r.Issues)
 	}
@@ -505,7 +505,7 @@ func TestQualifierAndLimitColumns(t *testing.T) {
 	in := "Sample,Ca,Ca_DL,Mn (ug/L),Mn flag,Cl\n" +
 		"A,<DL,0.4,>500,,10\n" + // Ca non-detect, limit from the DL column; Mn a lower bound
 		"B,2.5,0.4,3,J,10\n"
-	b := mustRead(t, in, Options{NonDetect: DL})
+	b := mustRead(t, in, Options{NonDetect: DL, ConfirmUnits: true})
 	a := b.Rows[0]
 	if m := a.Sample.Analytes["Ca"]; !m.NonDetect || m.DetectionLimit != 0.4 || m.Value != 0.4 || !m.Substituted {
 		t.Errorf("Ca <DL with DL column: %+v", m)
@@ -530,7 +530,7 @@ func TestQualifierAndLimitColumns(t *testing.T) {
 // row where it opens, naming its column and the lines it swallowed.
 func TestRowsAccountedFor(t *testing.T) {
 	in := "Sample,Ca,Cl\nA,1,2\n,,\nB,3,4\nC,\"5,6\nD,7,8\n"
-	b := mustRead(t, in, Options{})
+	b := mustRead(t, in, Options{ConfirmUnits: true})
 	if len(b.Rows) != 3 {
 		t.Fatalf("%d rows, want 3", len(b.Rows))
 	}
@@ -674,7 +674,7 @@ func TestEmptyIDAndWellPlaces(t *testing.T) {
 	// Same well 0.01 degrees of longitude apart at 6.95 S: 6371 km x
 	// 0.01 x pi/180 x cos(6.95 deg) = 1.10 km (sphere, mean radius).
 	in := "Sample,Well,Lat,Lon,Ca\n,W1,-6.95,110.40,1\nB,W1,-6.95,110.41,1\nC,W1,-6.95,110.4001,1\n"
-	b := mustRead(t, in, Options{})
+	b := mustRead(t, in, Options{ConfirmUnits: true})
 	if r := b.Rows[0]; r.Status != StatusWarning || !hasIssue(r, Warning, "Sample", "empty sample id") || !hasIssue(r, Warning, "", "1.1 km away") {
 		t.Errorf("line 2: %v", r.Issues)
 	}
@@ -703,7 +703,7 @@ func TestTrailingDelimiters(t *testing.T) {
 		"Sample,Ca,Cl,\nA,1,2\nB,3,4,\n",
 		"Sample,Ca,Cl\nA,1,2,\nB,3,4\n",
 	} {
-		b := mustRead(t, in, Options{})
+		b := mustRead(t, in, Options{ConfirmUnits: true})
 		if c := b.Counts(); c[StatusOK] != 2 {
 			t.Errorf("%q: %v %v", in, c, b.Rows)
 		}

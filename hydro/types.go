@@ -50,9 +50,9 @@ const (
 // row's own line (a later line of a long-shape sample), else 0.
 type Issue struct {
 	Severity Severity
-	// Code is a stable, machine-readable name of the kind of finding (e.g.
-	// "balance-fail"); empty where the reader has none.
-	Code    string
+	// Code says what kind of issue it is, for programs (see the CodeXxx
+	// constants); Message says it for people.
+	Code    Code
 	Column  string
 	Message string
 	Line    int
@@ -96,20 +96,73 @@ func (s Shape) String() string {
 // default, see Note). For a long file the mapping covers the parameter names
 // found in its parameter column too. Column is 1-based (for a long-shape
 // parameter name, the parameter column).
+//
+// UnitSource says where the unit came from: UnitFromHeader, UnitFromUnitsRow,
+// UnitFromColumnMap, UnitPerRow (a unit column gives it row by row),
+// UnitAssumed (nothing gave one; rows using it get a warning unless
+// Options.ConfirmUnits) or "" for columns without a unit.
 type HeaderMapping struct {
-	Column int
-	Header string
-	Param  string
-	Unit   string
-	Note   string
+	Column     int
+	Header     string
+	Param      string
+	Unit       string
+	UnitSource string
+	Note       string
+}
+
+// Unit sources reported in HeaderMapping.UnitSource and
+// Measurement.UnitSource.
+const (
+	UnitFromHeader    = "header"
+	UnitFromUnitsRow  = "units row"
+	UnitFromColumnMap = "column map"
+	UnitFromCell      = "unit column"
+	UnitPerRow        = "unit column, per row"
+	UnitAssumed       = "assumed"
+	UnitConfirmed     = "assumed, confirmed by the user"
+)
+
+// SkipKind says why a line above or under the header is not a sample.
+type SkipKind string
+
+const (
+	// SkipPreamble: a line above the header (title, client, lab number).
+	SkipPreamble SkipKind = "preamble"
+	// SkipHeaderRow: a row under the header that only repeats it (cells
+	// merged down over two rows).
+	SkipHeaderRow SkipKind = "header continued"
+	// SkipUnitsRow: the row under the header that gives the units.
+	SkipUnitsRow SkipKind = "units row"
+	// SkipLimitsRow: a row of detection or reporting limits under the
+	// header (or under the units row).
+	SkipLimitsRow SkipKind = "detection-limit row"
+)
+
+// SkippedLine is a non-empty line of the file that is not a sample: a
+// preamble line, the units row or a detection-limit row.
+type SkippedLine struct {
+	Line  int
+	Kind  SkipKind
+	Cells []string
 }
 
 // Batch is the content of one lab file.
+//
+// HeaderLine is the line (CSV) or sheet row (workbook) of the header;
+// Skipped lists the lines above it and the units and detection-limit rows
+// under it, none of which is a sample; UnitsLine is the units row's line,
+// 0 when there is none. DateOrder is the order the date column was read
+// in ("day first", "month first", "" when no slash dates needed one).
 type Batch struct {
 	File         string
+	Sheet        string
 	Shape        Shape
 	Delimiter    rune
 	DecimalComma bool
+	HeaderLine   int
+	UnitsLine    int
+	DateOrder    string
+	Skipped      []SkippedLine
 	Mapping      []HeaderMapping
 	Rows         []Row
 }
@@ -132,11 +185,11 @@ type Row struct {
 	Issues []Issue
 }
 
-func (r *Row) add(sev Severity, line int, col, format string, args ...any) {
+func (r *Row) add(sev Severity, code Code, line int, col, format string, args ...any) {
 	if line == r.Line {
 		line = 0
 	}
-	r.Issues = append(r.Issues, Issue{Severity: sev, Column: col, Line: line, Message: fmt.Sprintf(format, args...)})
+	r.Issues = append(r.Issues, Issue{Severity: sev, Code: code, Column: col, Line: line, Message: fmt.Sprintf(format, args...)})
 }
 
 // settle sets Status from the worst issue.
@@ -185,6 +238,10 @@ type Sample struct {
 	WellID string
 	// Round is the sampling round, event or campaign.
 	Round string
+	// Event is the sampling event: Round when the file gives one, else
+	// the sampling date (YYYY-MM-DD), else "". One well id on two events
+	// is one well sampled twice, not a duplicate.
+	Event string
 	// SampledAt is the sampling date-time (zero when absent or unparsed);
 	// SampledAtRaw keeps the cell as written.
 	SampledAt    time.Time
@@ -205,9 +262,41 @@ type Sample struct {
 	SpecCondUScm      Value // specific conductance, uS/cm
 	TDSMgL            Value
 	Density           Value // kg/L
-	Analytes          map[string]Measurement
-	Extra             map[string]string
+	// DissolvedOxygenMgL, EhMV (against the standard hydrogen electrode)
+	// and ORPMV (as read on the meter's own reference electrode) come
+	// from field measurements.
+	DissolvedOxygenMgL Value
+	EhMV               Value
+	ORPMV              Value
+	// TempSource says where TempC came from: TempFromLab, TempFromField
+	// (a field sheet), TempFromSite (Options.SiteTempC) or "".
+	TempSource string
+	// FieldLine is the line of the field sheet joined to this sample, 0
+	// when none.
+	FieldLine int
+	Analytes  map[string]Measurement
+	// Extra holds the columns gwsat did not recognise, by header, with a
+	// value; ExtraColumns holds all of them, blank ones too, in file
+	// order, so that tables can print them as the user gave them.
+	Extra        map[string]string
+	ExtraColumns []ExtraColumn
 }
+
+// ExtraColumn is one cell of a column gwsat did not recognise.
+type ExtraColumn struct {
+	Header string
+	Value  string
+}
+
+// Sources of Sample.TempSource and Sample.PHSource.
+const (
+	TempFromLab   = "lab file"
+	TempFromField = "field sheet"
+	TempFromSite  = "site temperature"
+	PHFromField   = "field"
+	PHFromLab     = "lab"
+	PHFromSheet   = "field sheet"
+)
 
 // Measurement is one analyte result as reported.
 type Measurement struct {
@@ -226,4 +315,15 @@ type Measurement struct {
 	// (wide) or parameter name (long) it came from.
 	Param  string
 	Column string
+	// ReportedUnit is the unit text as the lab wrote it ("" when none);
+	// UnitSource says where Unit came from (see HeaderMapping).
+	ReportedUnit string
+	UnitSource   string
+	// MgPerL is the value in mg/L of the analyte's own formula (for
+	// alkalinity, as CaCO3), converted with the sample's density; not OK
+	// when it cannot be converted.
+	MgPerL Value
+	// SodiumPlusPotassium marks a sodium value that is Na and K reported
+	// together (see the package documentation for the convention).
+	SodiumPlusPotassium bool
 }

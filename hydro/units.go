@@ -223,7 +223,14 @@ var analytes = map[string]*analyte{
 	"NO2":  {Key: "NO2", M: mmNO2, Z: -1, Balance: true, Bases: map[string]basis{"N": {awN, 1}}},
 	"Br":   {Key: "Br", Component: "Br-", M: awBr, Z: -1, Balance: true},
 	"PO4":  {Key: "PO4", M: mmPO4, Z: -3, Bases: map[string]basis{"P": {awP, 1}}},
+	// Na and K reported as one value: by the convention of reports that
+	// compute "Na+K" as the cation deficit of the balance, the value is
+	// sodium (mass as Na, charge 1); Read stores it as "Na", marked.
+	keyNaK: {Key: keyNaK, Component: "Na+", M: awNa, Z: 1, Balance: true},
 }
+
+// keyNaK is the column key of sodium and potassium reported together.
+const keyNaK = "Na+K"
 
 // AnalyteKeys lists the analyte parameter keys the reader knows.
 func AnalyteKeys() []string {
@@ -234,7 +241,7 @@ func AnalyteKeys() []string {
 // FieldKeys lists the non-analyte parameter keys a column map may use.
 func FieldKeys() []string {
 	return []string{pSampleID, pWellID, pRound, pDate, pTime, pLat, pLon, pEasting, pNorthing, pEPSG,
-		pElev, pDepth, pScreen, pScreenTop, pScreenBottom, pTemp, pPH, pPHField, pPHLab, pSpecCond, pTDS, pDensity,
+		pElev, pDepth, pScreen, pScreenTop, pScreenBottom, pTemp, pPH, pPHField, pPHLab, pSpecCond, pTDS, pDensity, pDO, pEh, pORP,
 		pParameter, pValue, pUnit, pQualifier, pDL}
 }
 
@@ -275,8 +282,9 @@ type Solution struct {
 	KgWaterPerL float64
 }
 
-// Dilute is a solution of density 1 kg/L holding 1 kg water per litre.
-var Dilute = Solution{DensityKgL: 1, KgWaterPerL: 1}
+// Dilute returns a solution of density 1 kg/L holding 1 kg water per
+// litre. It is a function so that no caller can change it for the others.
+func Dilute() Solution { return Solution{DensityKgL: 1, KgWaterPerL: 1} }
 
 // MmolL returns the measurement in millimoles of the analyte per litre of
 // solution (for alkalinity, milliequivalents per litre: alkalinity given in
@@ -310,6 +318,10 @@ func (m Measurement) MgL(sol Solution) (float64, error) {
 	a, ok := analytes[m.Param]
 	if !ok {
 		return 0, fmt.Errorf("hydro: unknown analyte %q", m.Param)
+	}
+	if (m.Unit.Conc == MgL || m.Unit.Conc == "") && (m.Unit.As == "" || m.Unit.As == a.DefaultAs) {
+		// Already in mg/L of the reporting formula: no round trip.
+		return m.Value, nil
 	}
 	v, err := a.mmolL(m.Value, m.Unit, sol)
 	if m.Param == "Alk" {

@@ -21,49 +21,49 @@ func TestConversions(t *testing.T) {
 		tolerance float64 // relative
 	}{
 		// 40.078 mg/L Ca = 1 mmol/L = 2 meq/L.
-		{"Ca mg/L", Measurement{Param: "Ca", Value: 40.078, Unit: mgL}, Dilute, 1, 2, 1e-12},
+		{"Ca mg/L", Measurement{Param: "Ca", Value: 40.078, Unit: mgL}, Dilute(), 1, 2, 1e-12},
 		// 2 meq/L Ca = 1 mmol/L.
-		{"Ca meq/L", Measurement{Param: "Ca", Value: 2, Unit: Unit{Conc: MeqL}}, Dilute, 1, 2, 1e-12},
+		{"Ca meq/L", Measurement{Param: "Ca", Value: 2, Unit: Unit{Conc: MeqL}}, Dilute(), 1, 2, 1e-12},
 		// CaCO3 = 40.078 + 12.011 + 3 x 15.999 = 100.086 g/mol; 1 mol = 2 eq.
-		{"Alk as CaCO3", Measurement{Param: "Alk", Value: 100.086, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute, 2, 2, 1e-12},
+		{"Alk as CaCO3", Measurement{Param: "Alk", Value: 100.086, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute(), 2, 2, 1e-12},
 		// The brief's 100.0869 uses the older O 15.9994 and C 12.0107:
 		// agreement within 1e-5 relative.
-		{"Alk as CaCO3, older masses", Measurement{Param: "Alk", Value: 100.0869, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute, 2, 2, 1e-5},
+		{"Alk as CaCO3, older masses", Measurement{Param: "Alk", Value: 100.0869, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute(), 2, 2, 1e-5},
 		// Alkalinity in a mass unit with no basis is taken as CaCO3.
-		{"Alk default basis", Measurement{Param: "Alk", Value: 50.043, Unit: mgL}, Dilute, 1, 1, 1e-12},
+		{"Alk default basis", Measurement{Param: "Alk", Value: 50.043, Unit: mgL}, Dilute(), 1, 1, 1e-12},
 		// Alkalinity (acid capacity) in mmol/L is mmol H+ per litre = meq/L.
-		{"Alk mmol/L", Measurement{Param: "Alk", Value: 2.5, Unit: Unit{Conc: MmolL}}, Dilute, 2.5, 2.5, 1e-12},
+		{"Alk mmol/L", Measurement{Param: "Alk", Value: 2.5, Unit: Unit{Conc: MmolL}}, Dilute(), 2.5, 2.5, 1e-12},
 		// HCO3 = 1.008 + 12.011 + 47.997 = 61.016 g/mol.
-		{"Alk as HCO3", Measurement{Param: "Alk", Value: 61.016, Unit: Unit{Conc: MgL, As: "HCO3"}}, Dilute, 1, 1, 1e-12},
-		{"HCO3 ion", Measurement{Param: "HCO3", Value: 61.016, Unit: mgL}, Dilute, 1, 1, 1e-12},
+		{"Alk as HCO3", Measurement{Param: "Alk", Value: 61.016, Unit: Unit{Conc: MgL, As: "HCO3"}}, Dilute(), 1, 1, 1e-12},
+		{"HCO3 ion", Measurement{Param: "HCO3", Value: 61.016, Unit: mgL}, Dilute(), 1, 1, 1e-12},
 		// CO3 = 12.011 + 47.997 = 60.008 g/mol, 2 eq/mol.
-		{"CO3 ion", Measurement{Param: "CO3", Value: 60.008, Unit: mgL}, Dilute, 1, 2, 1e-12},
+		{"CO3 ion", Measurement{Param: "CO3", Value: 60.008, Unit: mgL}, Dilute(), 1, 2, 1e-12},
 		// 14.007 mg/L NO3-N = 1 mmol/L (brief's 14.0067: older N).
-		{"NO3 as N", Measurement{Param: "NO3", Value: 14.007, Unit: Unit{Conc: MgL, As: "N"}}, Dilute, 1, 1, 1e-12},
-		{"NO3 as N, older mass", Measurement{Param: "NO3", Value: 14.0067, Unit: Unit{Conc: MgL, As: "N"}}, Dilute, 1, 1, 3e-5},
+		{"NO3 as N", Measurement{Param: "NO3", Value: 14.007, Unit: Unit{Conc: MgL, As: "N"}}, Dilute(), 1, 1, 1e-12},
+		{"NO3 as N, older mass", Measurement{Param: "NO3", Value: 14.0067, Unit: Unit{Conc: MgL, As: "N"}}, Dilute(), 1, 1, 3e-5},
 		// NO3 = 14.007 + 47.997 = 62.004 g/mol.
-		{"NO3 as NO3", Measurement{Param: "NO3", Value: 62.004, Unit: mgL}, Dilute, 1, 1, 1e-12},
+		{"NO3 as NO3", Measurement{Param: "NO3", Value: 62.004, Unit: mgL}, Dilute(), 1, 1, 1e-12},
 		// SiO2 = 28.085 + 31.998 = 60.083 g/mol (brief's 60.084: older Si).
-		{"SiO2", Measurement{Param: "SiO2", Value: 60.083, Unit: mgL}, Dilute, 1, 0, 1e-12},
-		{"SiO2, older mass", Measurement{Param: "SiO2", Value: 60.084, Unit: mgL}, Dilute, 1, 0, 3e-5},
-		{"SiO2 as Si", Measurement{Param: "SiO2", Value: 28.085, Unit: Unit{Conc: MgL, As: "Si"}}, Dilute, 1, 0, 1e-12},
+		{"SiO2", Measurement{Param: "SiO2", Value: 60.083, Unit: mgL}, Dilute(), 1, 0, 1e-12},
+		{"SiO2, older mass", Measurement{Param: "SiO2", Value: 60.084, Unit: mgL}, Dilute(), 1, 0, 3e-5},
+		{"SiO2 as Si", Measurement{Param: "SiO2", Value: 28.085, Unit: Unit{Conc: MgL, As: "Si"}}, Dilute(), 1, 0, 1e-12},
 		// SO4 = 32.06 + 63.996 = 96.056 g/mol; as S: 32.06.
-		{"SO4", Measurement{Param: "SO4", Value: 96.056, Unit: mgL}, Dilute, 1, 2, 1e-12},
-		{"SO4 as S", Measurement{Param: "SO4", Value: 32.06, Unit: Unit{Conc: MgL, As: "S"}}, Dilute, 1, 2, 1e-12},
+		{"SO4", Measurement{Param: "SO4", Value: 96.056, Unit: mgL}, Dilute(), 1, 2, 1e-12},
+		{"SO4 as S", Measurement{Param: "SO4", Value: 32.06, Unit: Unit{Conc: MgL, As: "S"}}, Dilute(), 1, 2, 1e-12},
 		// 137327 ug/L Ba = 137.327 mg/L = 1 mmol/L; micro sign handled by the header parser.
-		{"Ba ug/L", Measurement{Param: "Ba", Value: 137327, Unit: Unit{Conc: UgL}}, Dilute, 1, 2, 1e-12},
-		{"Ba ppb", Measurement{Param: "Ba", Value: 137327, Unit: Unit{Conc: PPB}}, Dilute, 1, 2, 1e-12},
+		{"Ba ug/L", Measurement{Param: "Ba", Value: 137327, Unit: Unit{Conc: UgL}}, Dilute(), 1, 2, 1e-12},
+		{"Ba ppb", Measurement{Param: "Ba", Value: 137327, Unit: Unit{Conc: PPB}}, Dilute(), 1, 2, 1e-12},
 		// mmol/L, mol/L and umol/L.
-		{"Cl mmol/L", Measurement{Param: "Cl", Value: 3, Unit: Unit{Conc: MmolL}}, Dilute, 3, 3, 1e-12},
-		{"Cl mol/L", Measurement{Param: "Cl", Value: 0.003, Unit: Unit{Conc: MolL}}, Dilute, 3, 3, 1e-12},
+		{"Cl mmol/L", Measurement{Param: "Cl", Value: 3, Unit: Unit{Conc: MmolL}}, Dilute(), 3, 3, 1e-12},
+		{"Cl mol/L", Measurement{Param: "Cl", Value: 0.003, Unit: Unit{Conc: MolL}}, Dilute(), 3, 3, 1e-12},
 		// Per kg of solution: mg/L = mg/kg x density.
 		{"Cl mg/kg", Measurement{Param: "Cl", Value: 35.45, Unit: Unit{Conc: MgKg}}, Solution{DensityKgL: 1.02, KgWaterPerL: 0.99}, 1.02, 1.02, 1e-12},
 		// Per kg of water: mmol/L = mmol/kgw x kg water per L.
 		{"Cl mol/kgw", Measurement{Param: "Cl", Value: 0.5, Unit: Unit{Conc: MolKgw}}, Solution{DensityKgL: 1.02, KgWaterPerL: 0.99}, 495, 495, 1e-12},
 		// Hardness-style Ca as CaCO3: 100.086 mg/L as CaCO3 = 1 mmol/L Ca.
-		{"Ca as CaCO3", Measurement{Param: "Ca", Value: 100.086, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute, 1, 2, 1e-12},
+		{"Ca as CaCO3", Measurement{Param: "Ca", Value: 100.086, Unit: Unit{Conc: MgL, As: "CaCO3"}}, Dilute(), 1, 2, 1e-12},
 		// TIC as C: 12.011 mg/L = 1 mmol/L.
-		{"TIC as C", Measurement{Param: "TIC", Value: 12.011, Unit: mgL}, Dilute, 1, 0, 1e-12},
+		{"TIC as C", Measurement{Param: "TIC", Value: 12.011, Unit: mgL}, Dilute(), 1, 0, 1e-12},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
@@ -95,12 +95,12 @@ func TestConversions(t *testing.T) {
 // 02-4045: bicarbonate (mg/L) = alkalinity (mg/L as CaCO3) / 0.8202.
 func TestAlkalinityToBicarbonateHem(t *testing.T) {
 	alk := Measurement{Param: "Alk", Value: 100, Unit: Unit{Conc: MgL, As: "CaCO3"}}
-	meq, err := alk.MeqL(Dilute)
+	meq, err := alk.MeqL(Dilute())
 	if err != nil {
 		t.Fatal(err)
 	}
 	hco3 := Measurement{Param: "HCO3", Value: 1, Unit: Unit{Conc: MeqL}}
-	perMeq, _ := hco3.MgL(Dilute)
+	perMeq, _ := hco3.MgL(Dilute())
 	got := meq * perMeq
 	if want := 100 / 0.8202; !scalar.EqualWithinRel(got, want, 2e-4) { // 4-digit factor
 		t.Errorf("HCO3 = %.3f mg/L, want %.3f", got, want)
@@ -116,7 +116,7 @@ func TestUnitErrors(t *testing.T) {
 		{Param: "Cl", Value: 1, Unit: Unit{Conc: MolKgw}, Raw: "x"}, // bad solution below
 	}
 	for i, m := range tests {
-		sol := Dilute
+		sol := Dilute()
 		if i == len(tests)-1 {
 			sol = Solution{}
 		}

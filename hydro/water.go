@@ -54,7 +54,16 @@ type Water struct {
 func (s *Sample) solution() (sol Solution, source string, tds float64, tdsCalc bool) {
 	tds, tdsCalc = s.TDSMgL.V, false
 	if !s.TDSMgL.OK {
-		tds, tdsCalc = s.constituentSumMgL(), true
+		// Per-kilogram units need the density: the measured one, else
+		// the estimate from a first sum at 1 kg/L (one step of a fixed
+		// point that moves the sum by parts per million).
+		rho := 1.0
+		if s.Density.OK {
+			rho = s.Density.V
+		} else if first := s.constituentSumMgL(Dilute()); first > 0 {
+			rho = 1 + densityPerTDS*first
+		}
+		tds, tdsCalc = s.constituentSumMgL(Solution{DensityKgL: rho, KgWaterPerL: rho}), true
 	}
 	switch {
 	case s.Density.OK:
@@ -70,8 +79,8 @@ func (s *Sample) solution() (sol Solution, source string, tds float64, tdsCalc b
 
 // constituentSumMgL sums the reported analytes in mg/L (alkalinity as
 // HCO3, 1.2192 = 61.016/50.043 mg HCO3 per mg CaCO3, when HCO3 itself is
-// not reported), with a density of 1 kg/L for per-kg units.
-func (s *Sample) constituentSumMgL() float64 {
+// not reported), per-kilogram units converted with sol.
+func (s *Sample) constituentSumMgL(sol Solution) float64 {
 	sum := 0.0
 	for k, m := range s.Analytes {
 		a := analytes[k]
@@ -82,12 +91,12 @@ func (s *Sample) constituentSumMgL() float64 {
 			if _, ok := s.Analytes["HCO3"]; ok {
 				continue
 			}
-			if mm, err := m.MmolL(Dilute); err == nil {
+			if mm, err := m.MmolL(sol); err == nil {
 				sum += mm * mmHCO3
 			}
 			continue
 		}
-		if v, err := m.MgL(Dilute); err == nil {
+		if v, err := m.MgL(sol); err == nil {
 			sum += v
 		}
 	}
@@ -103,12 +112,12 @@ func (s *Sample) Water() (Water, []Issue) {
 	w := Water{Molal: map[string]float64{}, DensityKgL: sol.DensityKgL, DensitySource: src, TDSMgL: tds, TDSCalculated: tdsCalc,
 		TempC: s.TempC.V, HasTemp: s.TempC.OK, PH: s.PH.V, HasPH: s.PH.OK, PHSource: s.PHSource}
 	if !(sol.KgWaterPerL > 0.1) {
-		issues = append(issues, Issue{Severity: Error, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
+		issues = append(issues, Issue{Severity: Error, Code: CodeNoWater, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
 		return w, issues
 	}
 	w.KgWaterPerL = sol.KgWaterPerL
 	if tdsCalc && tds > 0 && src == DensityFromTDS {
-		issues = append(issues, Issue{Severity: Info, Message: fmt.Sprintf("TDS not reported: density estimated from the sum of the reported constituents, %.0f mg/L", tds)})
+		issues = append(issues, Issue{Severity: Info, Code: CodeDensityEstimate, Message: fmt.Sprintf("TDS not reported: density estimated from the sum of the reported constituents, %.0f mg/L", tds)})
 	}
 	for _, k := range AnalyteKeys() {
 		m, ok := s.Analytes[k]
@@ -121,12 +130,12 @@ func (s *Sample) Water() (Water, []Issue) {
 			comp = "CO3 2-"
 		}
 		if comp == "" && k != "Alk" && k != "HCO3" && k != "CO3" {
-			issues = append(issues, Issue{Severity: Info, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})
+			issues = append(issues, Issue{Severity: Info, Code: CodeNotComponent, Column: m.Column, Message: k + " is not a speciation component; used in the charge balance only"})
 			continue
 		}
 		mm, err := m.MmolL(sol)
 		if err != nil {
-			issues = append(issues, Issue{Severity: Error, Column: m.Column, Message: err.Error()})
+			issues = append(issues, Issue{Severity: Error, Code: CodeConversion, Column: m.Column, Message: err.Error()})
 			continue
 		}
 		molal := mm / 1000 / sol.KgWaterPerL

@@ -68,8 +68,11 @@ type DepositOptions struct {
 // to reach SI = 0, alone and together, with what the command shows of it.
 type DepositResult struct {
 	Precipitation *reaction.Precipitation
-	Name          string // the water, in words
-	Model         string
+	// Oxidation is the oxidation step of a blend, nil when there is none; its
+	// oxides come on top of the minerals of Precipitation.
+	Oxidation *Oxidation
+	Name      string // the water, in words
+	Model     string
 }
 
 // Deposit computes how much of each supersaturated candidate mineral would
@@ -83,7 +86,11 @@ func (p *Planner) Deposit(opt DepositOptions) (*DepositResult, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &DepositResult{Precipitation: pr, Name: name, Model: p.reactor.Model().Name()}, nil
+	ox, err := p.Oxidize(opt.Water)
+	if err != nil {
+		return nil, err
+	}
+	return &DepositResult{Precipitation: pr, Oxidation: ox, Name: name, Model: p.reactor.Model().Name()}, nil
 }
 
 // Table lists each candidate deposited alone and all together.
@@ -117,6 +124,11 @@ func (d *DepositResult) Summary() []string {
 	}
 	if pr.HasCCPP {
 		out = append(out, fmt.Sprintf("  calcium carbonate precipitation potential (Standard Methods 2330): %.1f mg/L as CaCO3", pr.CCPP))
+	}
+	if d.Oxidation != nil {
+		for _, s := range d.Oxidation.Sentences() {
+			out = append(out, "  "+s)
+		}
 	}
 	return append(out, "  "+report.CautionLine)
 }

@@ -131,3 +131,53 @@ func TestPoreFillFullyClogged(t *testing.T) {
 		t.Errorf("%+v: %s", r.Clogging, s)
 	}
 }
+
+// An oxygenated injectate (8 mg/L O2) blended half and half with an iron-bearing
+// anoxic water (2 mg/L Fe(II), no O2): the blend holds 4 mg/L O2 and 1 mg/L
+// Fe(II), far more O2 than the 0.143 mg per mg Fe that 4 Fe2+ + O2 + 10 H2O =
+// 4 Fe(OH)3 + 8 H+ needs, so all the iron is oxidised: 1 mg/L Fe gives
+// 1.91 mg/L Fe(OH)3 (106.87/55.845, IUPAC 2013 atomic weights), about 1.9 g per
+// m3, which the pore-filling screen counts as ferrihydrite.
+func TestOxidationFeedsThePoreFill(t *testing.T) {
+	csv := "Sample ID,Sample type,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),Fe (mg/L),DO (mg/L)\n" +
+		"INJ,injectate,7.8,15,40,8,15,2,20,30,120,0.001,8\n" +
+		"NAT,native,7.0,15,80,15,40,3,50,60,250,2,\n"
+	b, err := hydro.Read(strings.NewReader(csv), "ox.csv", hydro.Options{ConfirmUnits: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := assess.Run(context.Background(), db, []*hydro.Batch{b}, assess.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := NewPlanner(db, nil, recs)
+	r, err := p.PoreFill(PoreFillOptions{Deposit: DepositOptions{Water: WaterChoice{Native: "NAT", Injectate: "INJ", Share: 0.5}}, Well: DefaultWell()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Oxidation == nil {
+		t.Fatal("no oxidation step")
+	}
+	var fh float64
+	for _, s := range r.Oxidation.Result.Solids {
+		if s.Mineral == "ferrihydrite" {
+			fh = s.GPerM3
+		}
+	}
+	// Fe(II) of the blend: (2 + 0.001)/2 mg/L; each mg of Fe gives 106.87/55.845 mg Fe(OH)3.
+	want := (2.0 + 0.001) / 2 * 106.87 / 55.845
+	if math.Abs(fh-want) > 0.03*want {
+		t.Errorf("ferrihydrite %.4g g/m3, want %.4g", fh, want)
+	}
+	found := false
+	for _, s := range r.Clogging.Solids {
+		found = found || s.Mineral == "ferrihydrite"
+	}
+	if !found {
+		t.Error("the pore-filling screen does not count the ferrihydrite")
+	}
+}

@@ -24,8 +24,12 @@ type Planner struct {
 	recs    []assess.Record
 }
 
-// NewPlanner returns a planner for the records, solving with model.
+// NewPlanner returns a planner for the records, solving with model (nil:
+// Truesdell-Jones; a brine needs Pitzer, named explicitly).
 func NewPlanner(db *speciation.Database, model speciation.ActivityModel, recs []assess.Record) *Planner {
+	if model == nil {
+		model = speciation.TruesdellJones{}
+	}
 	return &Planner{db: db, reactor: reaction.New(db, model), recs: recs}
 }
 

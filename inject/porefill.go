@@ -55,9 +55,12 @@ type PoreFillOptions struct {
 // PoreFillResult is an upper-bound screen of how fast the deposit of the chosen
 // water fills the pores around the well.
 type PoreFillResult struct {
-	Deposit  *DepositResult
-	Clogging *reaction.CloggingResult
-	Well     Well
+	Deposit *DepositResult
+	// Oxidation is the oxidation step of a blend (iron and manganese oxides),
+	// nil when the blend has no oxidant meeting a reductant.
+	Oxidation *Oxidation
+	Clogging  *reaction.CloggingResult
+	Well      Well
 }
 
 // PoreFill computes the deposit of the chosen water and the pore space its
@@ -70,15 +73,20 @@ func (p *Planner) PoreFill(opt PoreFillOptions) (*PoreFillResult, error) {
 	if err != nil {
 		return nil, err
 	}
+	ox := d.Oxidation
 	w := opt.Well
 	pr := d.Precipitation
-	c, err := reaction.Clogging(p.db, reaction.CloggingInput{Solids: reaction.SolidsPerM3(pr.Together.Amounts, pr.KgwPerL),
+	solids := reaction.SolidsPerM3(pr.Together.Amounts, pr.KgwPerL)
+	if ox != nil {
+		solids = append(solids, ox.Result.CloggingSolids()...)
+	}
+	c, err := reaction.Clogging(p.db, reaction.CloggingInput{Solids: solids,
 		RateM3PerDay: w.RateM3PerDay, Days: w.Days, ScreenLengthM: w.ScreenLengthM, Porosity: w.Porosity,
 		RadiusM: w.RadiusM, WellRadiusM: w.WellRadiusM, FillFraction: w.FillShare})
 	if err != nil {
 		return nil, err
 	}
-	return &PoreFillResult{Deposit: d, Clogging: c, Well: w}, nil
+	return &PoreFillResult{Deposit: d, Oxidation: ox, Clogging: c, Well: w}, nil
 }
 
 // Table lists the solids per mineral and in total.
@@ -104,6 +112,11 @@ func (r *PoreFillResult) Sentences() []string {
 // Summary is what the command prints.
 func (r *PoreFillResult) Summary() []string {
 	out := []string{"gwsat inject porefill: " + r.Deposit.Name}
+	if r.Oxidation != nil {
+		for _, s := range r.Oxidation.Sentences() {
+			out = append(out, "  "+s)
+		}
+	}
 	for _, s := range r.Sentences() {
 		out = append(out, "  "+s)
 	}

@@ -3,111 +3,84 @@ package report
 import (
 	"strings"
 
-	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/hydro"
 )
 
-// columnTitles are the headings index.html shows for the columns of gwsat's
-// tables: words, with the unit in brackets. The CSV files keep the short
-// machine names (stable for programs); the page shows these.
-var columnTitles = map[string]string{
-	// Sample table (SampleColumns).
-	"file":                         "File",
-	"line":                         "Line",
-	"sample_id":                    "Sample",
-	"well_id":                      "Well",
-	"round":                        "Round",
-	"status":                       "Status",
-	"reasons":                      "Reasons",
-	"latitude":                     "Latitude (°, WGS84)",
-	"longitude":                    "Longitude (°, WGS84)",
-	"easting_m":                    "Easting (m)",
-	"northing_m":                   "Northing (m)",
-	"epsg":                         "EPSG code",
-	"depth_m":                      "Depth (m below ground)",
-	"screen_top_m":                 "Screen top (m below ground)",
-	"screen_bottom_m":              "Screen bottom (m below ground)",
-	"ground_elev_m":                "Ground elevation (m)",
-	"temp_c":                       "Temperature (°C)",
-	"ph":                           "pH",
-	"ph_source":                    "pH source",
-	"tds_mg_l":                     "TDS (mg/L)",
-	"density_kg_l":                 "Density (kg/L)",
-	"density_source":               "Density source",
-	"nondetects_substituted":       "Non-detects substituted",
-	"cations_meq_l":                "Cations (meq/L)",
-	"anions_meq_l":                 "Anions (meq/L)",
-	"charge_balance_pct":           "Charge balance (%)",
-	"balance_status":               "Balance check",
-	"model":                        "Activity model",
-	"ionic_strength_mol_kgw":       "Ionic strength (mol/kg water)",
-	"log_pco2_atm":                 "log pCO₂ (atm)",
-	"charge_balance_speciated_pct": "Charge balance after speciation (%)",
-	"langelier_si":                 "Langelier index",
-	"ryznar_si":                    "Ryznar index",
-	"larson_skold":                 "Larson-Skold index",
-	// Surfaces table.
-	"mineral":        "Mineral",
-	"depth_zone":     "Depth zone",
-	"method":         "Interpolation",
-	"wells":          "Wells",
-	"loo_cv_rmse_si": "Leave-one-out error (RMSE, SI units)",
-	"note":           "Note",
-	// Injection planning.
-	"injectate_share":        "Injectate share (by mass of water)",
-	"injectate_share_at_max": "Injectate share at the peak",
-	"temp_c_at_max":          "Temperature at the peak (°C)",
-	"max_si":                 "Peak SI",
-	"state_at_max":           "State at the peak",
-	"alkalinity_meq_kgw":     "Alkalinity (meq/kg water)",
-	"si_before":              "SI before",
-	"alone_mmol_kgw":         "Alone (mmol/kg water)",
-	"alone_mg_l":             "Alone (mg/L)",
-	"together_mmol_kgw":      "Together (mmol/kg water)",
-	"together_mg_l":          "Together (mg/L)",
-	"blend":                  "Blend",
-	"native_water":           "Native water",
-	"zone":                   "Zone",
-	"worst_share":            "Worst share of water (1)",
-	"worst_mineral":          "Most supersaturated mineral",
-	"worst_si":               "Its SI",
-	"deposit_mg_l":           "Deposit to equilibrium (mg/L)",
-	// Column report.
-	"column":    "Column",
-	"header":    "Header as read",
-	"parameter": "Understood as",
-	"unit":      "Unit",
+// Columns choose the variable columns of the sample table: a saturation index
+// per mineral, then each analyte of the input as reported (the cell as written,
+// its unit) and in mg/L, then every input column gwsat did not recognise, under
+// its own header.
+type Columns struct {
+	Minerals []string
+	Analytes []string // analyte keys ("Ca", "Alk", ...)
+	Extra    []string // input headers kept as they are
 }
 
-// ColumnTitle returns the heading index.html shows for a table column: a
-// title in words with its unit, "<mineral> SI" for a saturation-index column
-// (ColumnName) of a mineral of the embedded data, or the name itself when
-// gwsat has no title for it.
-func ColumnTitle(col string) string {
-	if t, ok := columnTitles[col]; ok {
-		return t
-	}
-	if IsSIColumn(col) {
-		return mineralOfColumn(col) + " SI"
-	}
-	return col
-}
-
-// mineralOfColumn names the mineral of a saturation-index column, from the
-// embedded data when it holds it, else from the column name.
-func mineralOfColumn(col string) string {
-	if db, err := speciation.Default(); err == nil {
-		for _, m := range db.Minerals() {
-			if ColumnName(m.Name) == col {
-				return m.Name
+// ColumnsFor gives the columns for the analytes and unrecognised columns of
+// the files read, in file order.
+func ColumnsFor(batches []*hydro.Batch, minerals []string) Columns {
+	c := Columns{Minerals: minerals}
+	seenA, seenX := map[string]bool{}, map[string]bool{}
+	for _, b := range batches {
+		for _, r := range b.Rows {
+			for k := range r.Sample.Analytes {
+				if !seenA[k] {
+					seenA[k] = true
+					c.Analytes = append(c.Analytes, k)
+				}
+			}
+			for _, x := range r.Sample.ExtraColumns {
+				if !seenX[x.Header] {
+					seenX[x.Header] = true
+					c.Extra = append(c.Extra, x.Header)
+				}
 			}
 		}
 	}
-	return strings.ReplaceAll(strings.TrimSuffix(col, "_si"), "_", " ")
+	sortAnalytes(c.Analytes)
+	return c
 }
 
-// IsSIValueColumn reports whether the cells of a column are saturation
-// indices, shown on the page with their state (SICell): a mineral's SI
-// column, or the SI columns of the injection tables.
-func IsSIValueColumn(col string) bool {
-	return IsSIColumn(col) || col == "max_si" || col == "si_before" || col == "worst_si"
+// analyteOrder is the order of the analyte columns: cations, anions, then the
+// rest in name order.
+var analyteOrder = []string{"Ca", "Mg", "Na", "K", "Sr", "Ba", "Fe", "Mn", "Li", "NH4", "Cl", "SO4", "Alk", "HCO3", "CO3", "TIC", "F", "Br", "NO3", "NO2", "PO4", "SiO2"}
+
+func sortAnalytes(a []string) {
+	rank := func(k string) int {
+		for i, x := range analyteOrder {
+			if x == k {
+				return i
+			}
+		}
+		return len(analyteOrder)
+	}
+	for i := 1; i < len(a); i++ {
+		for j := i; j > 0 && (rank(a[j]) < rank(a[j-1]) || rank(a[j]) == rank(a[j-1]) && a[j] < a[j-1]); j-- {
+			a[j], a[j-1] = a[j-1], a[j]
+		}
+	}
+}
+
+// Header is the table header for these columns.
+func (c Columns) Header() []string {
+	h := SampleColumns()
+	for _, m := range c.Minerals {
+		h = append(h, ColumnName(m))
+	}
+	for _, a := range c.Analytes {
+		k := strings.ToLower(a)
+		h = append(h, k+"_reported", k+"_unit", k+"_mg_l")
+	}
+	taken := map[string]bool{}
+	for _, x := range h {
+		taken[x] = true
+	}
+	for _, x := range c.Extra {
+		if taken[x] {
+			x = "input " + x // an input column named like one of ours keeps apart
+		}
+		taken[x] = true
+		h = append(h, Text(x))
+	}
+	return h
 }

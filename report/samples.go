@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"io"
 	"math"
 	"sort"
@@ -67,10 +66,11 @@ func SubstitutedAnalytes(s *hydro.Sample) []string {
 func SampleColumns() []string { return append([]string(nil), sampleColumns...) }
 
 var sampleColumns = []string{
-	"file", "line", "sample_id", "well_id", "round", "status", "reasons",
+	"file", "line", "sample_id", "well_id", "round", "event", "sampled_at", "status", "reasons",
 	"latitude", "longitude", "easting_m", "northing_m", "epsg",
 	"depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m",
-	"temp_c", "ph", "ph_source", "tds_mg_l", "density_kg_l", "density_source", "nondetects_substituted",
+	"temp_c", "temp_source", "ph", "ph_source", "field_sheet_line", "dissolved_oxygen_mg_l", "eh_mv", "orp_mv", "pe", "pe_source",
+	"tds_mg_l", "density_kg_l", "density_source", "nondetects_substituted",
 	"cations_meq_l", "anions_meq_l", "charge_balance_pct", "balance_status",
 	"model", "ionic_strength_mol_kgw", "log_pco2_atm", "charge_balance_speciated_pct",
 	"langelier_si", "ryznar_si", "larson_skold",
@@ -83,55 +83,104 @@ func opt(v hydro.Value, prec int) string {
 	return Num(v.V, prec)
 }
 
-// SampleTable builds the main table: one row per record, in order, with a
-// saturation-index column per mineral.
-func SampleTable(recs []assess.Record, minerals []string) *Table {
-	t := &Table{Header: SampleColumns()}
-	for _, m := range minerals {
-		t.Header = append(t.Header, ColumnName(m))
-	}
+// SampleTable builds the main table: one row per record, in order, with the
+// columns of cols (see Columns).
+func SampleTable(recs []assess.Record, cols Columns) *Table {
+	t := &Table{Header: cols.Header()}
 	for i := range recs {
-		r := &recs[i]
-		s := r.Sample()
-		row := []string{
-			Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round),
-			string(r.Status), Text(strings.Join(r.Reasons(), "; ")),
-			opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
-		}
-		d, ok := assess.DepthM(s)
-		row = append(row, Cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
-			opt(s.TempC, 1), opt(s.PH, 2), s.PHSource)
-		if r.Water.KgWaterPerL > 0 {
-			row = append(row, Num(r.Water.TDSMgL, 0), Num(r.Water.DensityKgL, 4), r.Water.DensitySource)
-		} else {
-			row = append(row, "", "", "")
-		}
-		row = append(row, strings.Join(SubstitutedAnalytes(s), " "))
-		b := r.Balance
-		if b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
-			row = append(row, Num(b.CationsMeqL, 3), Num(b.AnionsMeqL, 3), Num(b.ErrorPct, 2), string(b.Status))
-		} else {
-			row = append(row, "", "", "", "")
-		}
-		res := r.Result
-		if res == nil {
-			row = append(row, "", "", "", "", "", "", "")
-			for range minerals {
-				row = append(row, "")
-			}
-			t.Rows = append(t.Rows, row)
-			continue
-		}
-		row = append(row, res.Model, Sig(res.IonicStrength, 4), Cond(res.HasLogPCO2, Num(res.LogPCO2, 3)), Num(res.ChargeBalance, 2),
-			Cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 2)), Cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 2)),
-			Cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
-		for _, m := range minerals {
-			si, ok := res.SI(m)
-			row = append(row, Cond(ok, Full(si))) // every digit: the page rounds
-		}
-		t.Rows = append(t.Rows, row)
+		t.Rows = append(t.Rows, cols.Row(&recs[i]))
 	}
 	return t
+}
+
+// Row is the table row of one record.
+func (c Columns) Row(r *assess.Record) []string {
+	s := r.Sample()
+	row := []string{
+		Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round), Text(s.Event), sampledAt(s),
+		string(r.Status), Text(strings.Join(r.Reasons(), "; ")),
+		opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
+	}
+	d, ok := assess.DepthM(s)
+	row = append(row, Cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
+		opt(s.TempC, 1), s.TempSource, opt(s.PH, 2), s.PHSource, Cond(s.FieldLine > 0, strconv.Itoa(s.FieldLine)),
+		opt(s.DissolvedOxygenMgL, 2), opt(s.EhMV, 0), opt(s.ORPMV, 0))
+	if res := r.Result; res != nil && res.HasPE {
+		row = append(row, Num(res.PE, 3), r.PESource)
+	} else {
+		row = append(row, "", "")
+	}
+	if r.Water.KgWaterPerL > 0 {
+		row = append(row, Num(r.Water.TDSMgL, 0), Num(r.Water.DensityKgL, 4), r.Water.DensitySource)
+	} else {
+		row = append(row, "", "", "")
+	}
+	row = append(row, strings.Join(SubstitutedAnalytes(s), " "))
+	b := r.Balance
+	if b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+		row = append(row, Num(b.CationsMeqL, 3), Num(b.AnionsMeqL, 3), Num(b.ErrorPct, 2), string(b.Status))
+	} else {
+		row = append(row, "", "", "", "")
+	}
+	if res := r.Result; res == nil {
+		row = append(row, "", "", "", "", "", "", "")
+		for range c.Minerals {
+			row = append(row, "")
+		}
+	} else {
+		row = append(row, res.Model, Sig(res.IonicStrength, 6), Cond(res.HasLogPCO2, Num(res.LogPCO2, 4)), Num(res.ChargeBalance, 2),
+			Cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 3)), Cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 3)),
+			Cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
+		for _, m := range c.Minerals {
+			si, ok := res.SI(m)
+			row = append(row, Cond(ok, Full(si)))
+		}
+	}
+	for _, a := range c.Analytes {
+		m, ok := s.Analytes[a]
+		if !ok {
+			row = append(row, "", "", "")
+			continue
+		}
+		unit := m.ReportedUnit
+		if unit == "" {
+			unit = m.Unit.String()
+		}
+		row = append(row, Text(m.Raw), Text(unit), Cond(m.MgPerL.OK, Full(m.MgPerL.V)))
+	}
+	for _, h := range c.Extra {
+		row = append(row, Text(extraValue(s, h)))
+	}
+	return row
+}
+
+// sortedAnalytes lists a sample's analyte keys in the table's order.
+func sortedAnalytes(s *hydro.Sample) []string {
+	out := make([]string, 0, len(s.Analytes))
+	for k := range s.Analytes {
+		out = append(out, k)
+	}
+	sortAnalytes(out)
+	return out
+}
+
+func sampledAt(s *hydro.Sample) string {
+	if s.SampledAt.IsZero() {
+		return ""
+	}
+	if s.SampledAt.Hour() == 0 && s.SampledAt.Minute() == 0 && s.SampledAt.Second() == 0 {
+		return s.SampledAt.Format("2006-01-02")
+	}
+	return s.SampledAt.Format("2006-01-02T15:04:05")
+}
+
+func extraValue(s *hydro.Sample, header string) string {
+	for _, x := range s.ExtraColumns {
+		if x.Header == header {
+			return x.Value
+		}
+	}
+	return ""
 }
 
 func epsg(c int) string {
@@ -178,18 +227,39 @@ type jsonShare struct {
 }
 
 type jsonRecord struct {
-	File    string             `json:"file"`
-	Line    int                `json:"line"`
-	Sample  string             `json:"sample_id"`
-	Well    string             `json:"well_id,omitempty"`
-	Round   string             `json:"round,omitempty"`
-	Status  string             `json:"status"`
-	Issues  []jsonIssue        `json:"issues"`
-	Balance *jsonBalance       `json:"charge_balance,omitempty"`
-	Water   map[string]jsonNum `json:"totals_mol_kgw,omitempty"`
-	Alk     *jsonNum           `json:"alkalinity_eq_kgw,omitempty"`
-	Result  *jsonResult        `json:"speciation,omitempty"`
-	Error   string             `json:"speciation_error,omitempty"`
+	File     string             `json:"file"`
+	Line     int                `json:"line"`
+	Sample   string             `json:"sample_id"`
+	Well     string             `json:"well_id,omitempty"`
+	Round    string             `json:"round,omitempty"`
+	Status   string             `json:"status"`
+	Event    string             `json:"event,omitempty"`
+	Sampled  string             `json:"sampled_at,omitempty"`
+	Issues   []jsonIssue        `json:"issues"`
+	Reported []jsonReported     `json:"reported,omitempty"`
+	Extra    []jsonExtra        `json:"extra_columns,omitempty"`
+	Balance  *jsonBalance       `json:"charge_balance,omitempty"`
+	Water    map[string]jsonNum `json:"totals_mol_kgw,omitempty"`
+	Alk      *jsonNum           `json:"alkalinity_eq_kgw,omitempty"`
+	Result   *jsonResult        `json:"speciation,omitempty"`
+	Error    string             `json:"speciation_error,omitempty"`
+}
+
+// jsonReported is an analyte as the lab reported it, and in mg/L.
+type jsonReported struct {
+	Analyte        string   `json:"analyte"`
+	Column         string   `json:"column"`
+	Value          string   `json:"value"`
+	Unit           string   `json:"unit"`
+	Qualifier      string   `json:"qualifier,omitempty"`
+	DetectionLimit *jsonNum `json:"detection_limit,omitempty"`
+	MgL            *jsonNum `json:"mg_l,omitempty"`
+}
+
+// jsonExtra is an input column gwsat did not recognise.
+type jsonExtra struct {
+	Header string `json:"header"`
+	Value  string `json:"value"`
 }
 
 // jsonIssue is a typed finding about a row (hydro.Issue).
@@ -237,45 +307,61 @@ func ptr(ok bool, v float64) *jsonNum {
 
 // WriteJSON writes every record with its full speciation as a JSON array.
 func WriteJSON(w io.Writer, recs []assess.Record) error {
-	out := make([]jsonRecord, 0, len(recs))
+	jw := NewJSONWriter(w)
 	for i := range recs {
-		r := &recs[i]
-		s := r.Sample()
-		issues := make([]jsonIssue, len(r.Issues))
-		for k, is := range r.Issues {
-			issues[k] = jsonIssue{Severity: is.Severity.String(), Code: is.Code, Column: is.Column, Line: is.Line, Message: is.Message}
+		if err := jw.Write(&recs[i]); err != nil {
+			return err
 		}
-		jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round,
-			Status: string(r.Status), Issues: issues, Error: r.SolveError}
-		if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
-			jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
-		}
-		if len(r.Water.Molal) > 0 {
-			jr.Water = map[string]jsonNum{}
-			for k, v := range r.Water.Molal {
-				jr.Water[k] = jsonNum(v)
-			}
-			jr.Alk = ptr(r.Water.HasAlkalinity, r.Water.AlkalinityEqKgw)
-		}
-		if res := r.Result; res != nil {
-			x := &jsonResult{Model: res.Model, TempC: jsonNum(res.TempC), PH: jsonNum(res.PH), IonicStrength: jsonNum(res.IonicStrength),
-				LogPCO2: ptr(res.HasLogPCO2, res.LogPCO2), ChargeBalance: jsonNum(res.ChargeBalance), SI: map[string]jsonNum{},
-				Langelier: ptr(res.Indices.HasLangelier, res.Indices.Langelier), Ryznar: ptr(res.Indices.HasLangelier, res.Indices.Ryznar),
-				LarsonSkold: ptr(res.Indices.HasLarsonSkold, res.Indices.LarsonSkold), Warnings: res.Warnings, Iterations: res.Iterations}
-			for _, m := range res.Minerals {
-				x.SI[m.Name] = jsonNum(m.SI)
-			}
-			for _, sp := range res.Species {
-				x.Species = append(x.Species, jsonSpecies{sp.Name, jsonNum(sp.Molality), jsonNum(sp.Gamma), jsonNum(sp.Activity)})
-			}
-			for _, sh := range res.Distribution {
-				x.Distribution = append(x.Distribution, jsonShare{sh.Component, sh.Species, jsonNum(sh.Percent)})
-			}
-			jr.Result = x
-		}
-		out = append(out, jr)
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(out)
+	return jw.Close()
+}
+
+// jsonRecordOf is the JSON form of one record.
+func jsonRecordOf(r *assess.Record) jsonRecord {
+	s := r.Sample()
+	issues := make([]jsonIssue, len(r.Issues))
+	for k, is := range r.Issues {
+		issues[k] = jsonIssue{Severity: is.Severity.String(), Code: string(is.Code), Column: is.Column, Line: is.Line, Message: is.Message}
+	}
+	jr := jsonRecord{File: r.File, Line: r.Row.Line, Sample: s.ID, Well: s.WellID, Round: s.Round, Event: s.Event, Sampled: sampledAt(s),
+		Status: string(r.Status), Issues: issues, Error: r.SolveError}
+	for _, k := range sortedAnalytes(s) {
+		m := s.Analytes[k]
+		unit := m.ReportedUnit
+		if unit == "" {
+			unit = m.Unit.String()
+		}
+		jr.Reported = append(jr.Reported, jsonReported{Analyte: k, Column: m.Column, Value: m.Raw, Unit: unit, Qualifier: m.Qualifier,
+			DetectionLimit: ptr(m.DetectionLimit > 0, m.DetectionLimit), MgL: ptr(m.MgPerL.OK, m.MgPerL.V)})
+	}
+	for _, x := range s.ExtraColumns {
+		jr.Extra = append(jr.Extra, jsonExtra{x.Header, x.Value})
+	}
+	if b := r.Balance; b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
+		jr.Balance = &jsonBalance{jsonNum(b.CationsMeqL), jsonNum(b.AnionsMeqL), jsonNum(b.ErrorPct), string(b.Status), b.Criterion, b.Complete}
+	}
+	if len(r.Water.Molal) > 0 {
+		jr.Water = map[string]jsonNum{}
+		for k, v := range r.Water.Molal {
+			jr.Water[k] = jsonNum(v)
+		}
+		jr.Alk = ptr(r.Water.HasAlkalinity, r.Water.AlkalinityEqKgw)
+	}
+	if res := r.Result; res != nil {
+		x := &jsonResult{Model: res.Model, TempC: jsonNum(res.TempC), PH: jsonNum(res.PH), IonicStrength: jsonNum(res.IonicStrength),
+			LogPCO2: ptr(res.HasLogPCO2, res.LogPCO2), ChargeBalance: jsonNum(res.ChargeBalance), SI: map[string]jsonNum{},
+			Langelier: ptr(res.Indices.HasLangelier, res.Indices.Langelier), Ryznar: ptr(res.Indices.HasLangelier, res.Indices.Ryznar),
+			LarsonSkold: ptr(res.Indices.HasLarsonSkold, res.Indices.LarsonSkold), Warnings: res.Warnings, Iterations: res.Iterations}
+		for _, m := range res.Minerals {
+			x.SI[m.Name] = jsonNum(m.SI)
+		}
+		for _, sp := range res.Species {
+			x.Species = append(x.Species, jsonSpecies{sp.Name, jsonNum(sp.Molality), jsonNum(sp.Gamma), jsonNum(sp.Activity)})
+		}
+		for _, sh := range res.Distribution {
+			x.Distribution = append(x.Distribution, jsonShare{sh.Component, sh.Species, jsonNum(sh.Percent)})
+		}
+		jr.Result = x
+	}
+	return jr
 }

@@ -82,10 +82,8 @@ func Sig(v float64, sig int) string {
 	return strconv.FormatFloat(v, 'e', sig-1, 64)
 }
 
-// Full formats v with every digit needed to read it back exactly (the
-// shortest representation that round-trips to the same float64), for
-// machine-readable outputs; a zero is "0", never "-0", and NaN and Inf
-// become an empty cell.
+// Full formats v at full precision (the shortest text that reads back to the
+// same float64), for machine-readable tables; "" for NaN and Inf.
 func Full(v float64) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return ""

@@ -177,7 +177,8 @@ func TestNoHorizontalOverflow(t *testing.T) {
 }
 
 // Every column heading of the demo page is in words (ColumnTitle), none is a
-// bare CSV name.
+// bare CSV name of gwsat's (input columns gwsat did not recognise keep their
+// own header, as read).
 func TestEveryHeadingHasATitle(t *testing.T) {
 	dir, _ := demoReport(t)
 	page, err := os.ReadFile(filepath.Join(dir, "index.html"))
@@ -189,7 +190,11 @@ func TestEveryHeadingHasATitle(t *testing.T) {
 		t.Fatalf("%d headings", len(heads))
 	}
 	for _, h := range heads {
-		if string(h[1]) == string(h[2]) {
+		name := string(h[1])
+		if name != strings.ToLower(name) || strings.Contains(name, " ") {
+			continue // an input header, shown as the file has it
+		}
+		if name == string(h[2]) {
 			t.Errorf("column %s has no title", h[1])
 		}
 	}

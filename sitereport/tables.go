@@ -79,6 +79,10 @@ func keyTable(t *report.Table, minerals []string) *report.PageTable {
 	return report.NewPageTable(t, "", cols)
 }
 
+// analytesPerTable is the number of analytes (three columns each) per printed
+// table.
+const analytesPerTable = 4
+
 // siGroupSize is the number of SI columns per printed table (with the
 // sample id, it fits a landscape page at 6.5 pt).
 const siGroupSize = 9
@@ -87,12 +91,28 @@ const siGroupSize = 9
 // sample id, and adds the surfaces table and the column report.
 func fullTables(t, surf, cols *report.Table, minerals []string) []*report.PageTable {
 	groups := []report.ColumnGroup{
-		{Caption: "Samples: where and when", Columns: []string{"file", "line", "well_id", "round", "latitude", "longitude", "easting_m", "northing_m", "epsg",
-			"depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m"}},
+		{Caption: "Samples: where and when", Columns: []string{"file", "line", "well_id", "round", "event", "sampled_at", "latitude", "longitude",
+			"easting_m", "northing_m", "epsg", "depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m"}},
 		{Caption: "Samples: checks", Columns: []string{"status", "reasons", "temp_c", "ph", "ph_source", "tds_mg_l", "density_kg_l", "density_source",
 			"nondetects_substituted", "cations_meq_l", "anions_meq_l", "charge_balance_pct", "balance_status"}},
+		{Caption: "Samples: field readings and redox", Columns: []string{"temp_source", "field_sheet_line", "dissolved_oxygen_mg_l", "eh_mv", "orp_mv", "pe", "pe_source"}},
 		{Caption: "Samples: speciation", Columns: []string{"model", "ionic_strength_mol_kgw", "log_pco2_atm", "charge_balance_speciated_pct",
 			"langelier_si", "ryznar_si", "larson_skold"}},
+	}
+	// Analytes as reported, with their unit and in mg/L, a few to a table.
+	var analytes [][]string
+	for _, h := range t.Header {
+		if k, ok := strings.CutSuffix(h, "_reported"); ok {
+			analytes = append(analytes, []string{h, k + "_unit", k + "_mg_l"})
+		}
+	}
+	for i := 0; i < len(analytes); i += analytesPerTable {
+		j := min(i+analytesPerTable, len(analytes))
+		var cols []string
+		for _, a := range analytes[i:j] {
+			cols = append(cols, a...)
+		}
+		groups = append(groups, report.ColumnGroup{Caption: fmt.Sprintf("Samples: analytes as reported and in mg/L (%d of %d)", i/analytesPerTable+1, (len(analytes)+analytesPerTable-1)/analytesPerTable), Columns: cols})
 	}
 	var si []string
 	for _, m := range minerals {
@@ -102,7 +122,7 @@ func fullTables(t, surf, cols *report.Table, minerals []string) []*report.PageTa
 		j := min(i+siGroupSize, len(si))
 		groups = append(groups, report.ColumnGroup{Caption: fmt.Sprintf("Samples: saturation indices (%d of %d)", i/siGroupSize+1, (len(si)+siGroupSize-1)/siGroupSize), Columns: si[i:j]})
 	}
-	out := report.SplitColumns(t, []string{"sample_id"}, groups, "Samples: other columns")
+	out := report.SplitColumns(t, []string{"sample_id"}, groups, "Samples: other input columns, as read")
 	if len(surf.Rows) > 0 {
 		pt := report.NewPageTable(surf, "Interpolated surfaces of the maps (surfaces.csv)", nil)
 		pt.Wide = true

@@ -115,6 +115,11 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	if pf, ok := site.PiperFigure(recs, so.ClusterColumn); ok {
 		st.Figures = append(st.Figures, pf)
 	}
+	if ef, ok, err := site.IronPEPHFigure(opt.DB, recs); err != nil {
+		out.Notes = append(out.Notes, fmt.Sprintf("iron pe-pH diagram: %v", err))
+	} else if ok {
+		st.Figures = append(st.Figures, ef)
+	}
 	figs := append([]report.Fig(nil), st.Figures...)
 	var sections []report.Section
 	inj := opt.Inject
@@ -159,7 +164,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		}
 	}
 	uniqueStems(figs)
-	tbl := report.SampleTable(recs, all)
+	tbl := report.SampleTable(recs, report.ColumnsFor(opt.Batches, all))
 	surf := surfacesTable(st)
 	cols := MappingTable(opt.Batches)
 	now := opt.Now()
@@ -173,7 +178,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		write("samples.json", func(w io.Writer) error { return report.WriteJSON(w, recs) }),
 		write("columns.csv", cols.WriteCSV),
 		write("surfaces.csv", surf.WriteCSV),
-		write("samples.geojson", func(w io.Writer) error { return WriteGeoJSON(w, recs, all) }),
+		write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }),
 		write("methods.json", func(w io.Writer) error { return report.WriteMethodsJSON(w, methods) }),
 	); err != nil {
 		return nil, err

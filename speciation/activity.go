@@ -180,7 +180,7 @@ func (Ideal) LogGammas(logG, dLogG []float64, st *ActivityState) float64 {
 }
 
 // ModelByName returns the activity model with the given name ("davies",
-// "truesdell-jones" or "tj", "ideal"), case-insensitive, or false.
+// "truesdell-jones" or "tj", "ideal", "pitzer"), case-insensitive, or false.
 func ModelByName(name string) (ActivityModel, bool) {
 	switch strings.ToLower(strings.TrimSpace(name)) {
 	case "davies":
@@ -189,9 +189,11 @@ func ModelByName(name string) (ActivityModel, bool) {
 		return TruesdellJones{}, true
 	case "ideal":
 		return Ideal{}, true
+	case "pitzer":
+		return NewPitzer(), true
 	}
 	return nil, false
 }
 
 // ModelNames lists the names ModelByName accepts (canonical forms).
-func ModelNames() []string { return []string{"davies", "truesdell-jones", "ideal"} }
+func ModelNames() []string { return []string{"davies", "truesdell-jones", "ideal", "pitzer"} }

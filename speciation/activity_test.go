@@ -102,9 +102,6 @@ func TestModelByName(t *testing.T) {
 			t.Errorf("model %q: %v %v", n, m, ok)
 		}
 	}
-	if _, ok := ModelByName("pitzer"); ok {
-		t.Error("pitzer is not implemented yet")
-	}
 }
 
 // pow10 against math.Pow over the range the solver uses (property: relative error

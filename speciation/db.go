@@ -103,8 +103,16 @@ type Species struct {
 	Source     string
 	Confidence string
 	Master     int // index of the component this is the free ion of, or -1
+	// Alkalinity is the equivalents of total alkalinity per mole: the sum over the
+	// reaction's terms (components and earlier species), or the entry's own
+	// "alkalinity" key where its reference level differs (HS-, NH4+, O2(aq)).
+	Alkalinity float64
+	// redox attributes the electrons of the formation reaction to the component whose
+	// oxidation state they change (e.g. -1 on Fe2+ for Fe3+ and its complexes).
+	redox      []Term
 	Reaction   string
-	TempNote   string // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	TempNote   string     // "analytic", "van 't Hoff" or "constant (no enthalpy)"
+	ValidTempC [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
 	Line       int
 }
 
@@ -123,6 +131,7 @@ type Mineral struct {
 	Confidence    string
 	Reaction      string
 	TempNote      string
+	ValidTempC    [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
 	Line          int
 }
 
@@ -151,6 +160,8 @@ type Database struct {
 	calcite      int
 	hco3         int // species index of HCO3- or -1
 	co3          int
+	electron     int // index of the electron component e- or -1
+	o2gas        int // index of O2(g) in Minerals or -1
 }
 
 // ComponentIndex returns the index of the named component, or -1. Names are matched
@@ -247,6 +258,13 @@ const (
 	NameCarbonate = "CO3 2-"
 	NameCO2Gas    = "CO2(g)"
 	NameCalcite   = "calcite"
+	// NameElectron is the electron component: its activity is fixed by the pe of the
+	// water (Water.SetPE), and species and minerals that contain it exist only when
+	// a pe is given.
+	NameElectron = "e-"
+	// NameO2Gas is oxygen gas, whose partial pressure marks the upper stability limit
+	// of water.
+	NameO2Gas = "O2(g)"
 )
 
 var (
@@ -284,6 +302,7 @@ func ParseDatabase(text string) (*Database, error) {
 		speciesIndex: map[string]int{},
 		mineralIndex: map[string]int{},
 		water:        -1, hplus: -1, carbonate: -1, co2gas: -1, calcite: -1, hco3: -1, co3: -1,
+		electron: -1, o2gas: -1,
 	}
 	seen := map[string]int{}
 	// Components first (they may appear anywhere in the file, but usually lead it).
@@ -324,15 +343,20 @@ func ParseDatabase(text string) (*Database, error) {
 	if i, ok := db.compIndex[NameCarbonate]; ok {
 		db.carbonate = i
 	}
-	// Free-ion species for every non-solvent component.
+	if i, ok := db.compIndex[NameElectron]; ok {
+		db.electron = i
+	}
+	// Free-ion species for every non-solvent component (the electron has none: it is
+	// a bookkeeping component, not a dissolved species).
 	for _, e := range entries {
-		if e.kind != "component" || e.name == NameH2O {
+		if e.kind != "component" || e.name == NameH2O || e.name == NameElectron {
 			continue
 		}
 		ci := db.compIndex[e.name]
 		s := Species{Name: e.name, Charge: db.components[ci].Charge, Master: ci,
 			Terms: []Term{{Component: e.name, Index: ci, Nu: 1}}, Reaction: e.name,
-			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition"}
+			TempNote: "free ion", Line: e.line, Confidence: "", Source: "definition",
+			Alkalinity: db.components[ci].Alkalinity}
 		if err := e.ionParams(&s); err != nil {
 			return nil, err
 		}
@@ -358,8 +382,14 @@ func ParseDatabase(text string) (*Database, error) {
 				return nil, err
 			}
 			s.Terms, s.LogK, s.LogK25, s.TempNote = terms, fn, logk25, note
+			if s.Alkalinity, s.redox, err = db.speciesAlkalinityRedox(e); err != nil {
+				return nil, err
+			}
 			s.Reaction = e.fields["reaction"]
 			s.Source, s.Confidence = e.fields["source"], e.fields["confidence"]
+			if s.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			if err := db.checkCharge(e, terms, s.Charge); err != nil {
 				return nil, err
 			}
@@ -375,6 +405,9 @@ func ParseDatabase(text string) (*Database, error) {
 			m.Reaction = e.fields["reaction"]
 			m.Formula = e.fields["formula"]
 			m.Source, m.Confidence = e.fields["source"], e.fields["confidence"]
+			if m.ValidTempC, err = e.tempRange(); err != nil {
+				return nil, err
+			}
 			m.DensitySource = e.fields["density_source"]
 			if m.MolarMass, err = e.number("mass", false); err != nil {
 				return nil, err
@@ -398,6 +431,9 @@ func ParseDatabase(text string) (*Database, error) {
 	}
 	if i, ok := db.mineralIndex[NameCO2Gas]; ok && db.minerals[i].Gas {
 		db.co2gas = i
+	}
+	if i, ok := db.mineralIndex[NameO2Gas]; ok && db.minerals[i].Gas {
+		db.o2gas = i
 	}
 	db.calcite = db.MineralIndex(NameCalcite)
 	for alias, name := range mineralAliases {
@@ -434,6 +470,30 @@ func (e *rawEntry) number(key string, required bool) (float64, error) {
 		return 0, e.errf(key, "%w: %s = %q is not a number", ErrSyntax, key, v)
 	}
 	return x, nil
+}
+
+// tempRange reads the optional valid_temp_c = "low high" (C, low < high).
+func (e *rawEntry) tempRange() ([2]float64, error) {
+	var r [2]float64
+	v, ok := e.fields["valid_temp_c"]
+	if !ok {
+		return r, nil
+	}
+	f := strings.Fields(v)
+	if len(f) != 2 {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c needs two numbers, low and high", ErrSyntax)
+	}
+	for i, p := range f {
+		x, err := strconv.ParseFloat(p, 64)
+		if err != nil || !finite(x) {
+			return r, e.errf("valid_temp_c", "%w: %q is not a number", ErrSyntax, p)
+		}
+		r[i] = x
+	}
+	if r[0] >= r[1] {
+		return r, e.errf("valid_temp_c", "%w: valid_temp_c low %g is not below high %g", ErrInvalidParameter, r[0], r[1])
+	}
+	return r, nil
 }
 
 func (e *rawEntry) ionParams(s *Species) error {

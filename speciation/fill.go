@@ -9,7 +9,14 @@ import (
 const (
 	WarnIonicStrength = "ionic strength above the activity model's stated limit"
 	WarnNoEnthalpy    = "temperature away from 25 C and some log K values have no enthalpy in the data: held at their 25 C value"
+	// WarnAboveWater: the pe is above the upper stability limit of water at this pH
+	// (O2 above 1 atm); WarnBelowWater: below the lower limit (H2 above 1 atm).
+	WarnAboveWater = "pe above the stability limit of water (O2 above 1 atm): the pe is not that of a natural water"
+	WarnBelowWater = "pe below the stability limit of water (H2 above 1 atm): the pe is not that of a natural water"
 )
+
+// NoteNoRedox states what a water without a pe lacks (see Result.RedoxSkipped).
+const NoteNoRedox = "no redox information: oxide and sulfide SIs not computed"
 
 // fill writes the converged state into res.
 func (s *Solver) fill(res *Result, w *Water) {
@@ -57,7 +64,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 	// totals and distribution (appended to local slices, stored back once)
 	totals, dist := res.Totals, res.Distribution
 	for ci := range db.components {
-		if ci == db.water || ci == db.hplus || !s.active[ci] {
+		if ci == db.water || ci == db.hplus || ci == db.electron || !s.active[ci] {
 			continue
 		}
 		tot := 0.0
@@ -97,31 +104,46 @@ func (s *Solver) fill(res *Result, w *Water) {
 	minerals := res.Minerals
 	for pi := range db.minerals {
 		mn := &db.minerals[pi]
-		ok := true
+		ok, onlyE := true, true
 		for _, t := range mn.Terms {
 			if t.Index != db.water && t.Index != db.hplus && !s.active[t.Index] {
 				ok = false
-				break
+				onlyE = onlyE && t.Index == db.electron
 			}
 		}
 		if !ok {
+			if onlyE && !mn.Gas {
+				res.RedoxSkipped = true
+			}
 			continue
 		}
 		iap := s.phaseLogIAP(pi, u)
 		lk := s.phLogK[pi]
 		if mn.Gas {
-			if pi == db.co2gas {
+			switch pi {
+			case db.co2gas:
 				res.LogPCO2, res.HasLogPCO2 = iap-lk, true
+			case db.o2gas:
+				res.LogPO2, res.HasLogPO2 = iap-lk, true
 			}
 			continue
 		}
-		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk})
+		vr := mn.ValidTempC
+		outside := vr != [2]float64{} && (w.TempC < vr[0] || w.TempC > vr[1])
+		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk, OutsideTempRange: outside})
 	}
 	res.Minerals = minerals
 	for k, pi := range s.eqPhase {
 		res.Phases = append(res.Phases, PhaseAmount{Name: db.minerals[pi].Name, Dissolved: u[s.iCol+1+k], SI: s.eqTarget[k]})
 	}
 	s.indices(res, w)
+	if db.electron >= 0 && s.role[db.electron] != roleAbsent {
+		res.PE, res.HasPE = -s.la[db.electron], true
+		if c := s.col[db.electron]; c >= 0 {
+			res.PE = -u[c]
+		}
+		s.redoxWarnings(res)
+	}
 	if I > s.model.MaxIonicStrength() {
 		res.Warnings = append(res.Warnings, WarnIonicStrength)
 	}
@@ -134,7 +156,7 @@ func (s *Solver) fill(res *Result, w *Water) {
 			}
 		}
 		for i := range res.Minerals {
-			if db.Mineral(res.Minerals[i].Name).TempNote == tempConstant {
+			if pi := db.MineralIndex(res.Minerals[i].Name); pi >= 0 && db.minerals[pi].TempNote == tempConstant {
 				constK = true
 				break
 			}

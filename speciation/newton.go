@@ -191,6 +191,9 @@ func (s *Solver) newton(maxStep float64) error {
 				s.warmAlk = s.alk
 				s.warmT = s.lastT
 				s.warmLaH = s.la[s.db.hplus]
+				if e := s.db.electron; e >= 0 {
+					s.warmLaE = s.la[e]
+				}
 				s.warmValid = true
 				return nil
 			}

@@ -1,6 +1,9 @@
 package speciation
 
-import "errors"
+import (
+	"errors"
+	"math"
+)
 
 // Errors of a solve. A *SolveError wraps one of these.
 var (
@@ -47,6 +50,9 @@ type MineralSI struct {
 	SI     float64
 	LogIAP float64
 	LogK   float64
+	// OutsideTempRange is set when the temperature lies outside the range over
+	// which the mineral's log K function holds (Mineral.ValidTempC).
+	OutsideTempRange bool
 }
 
 // PhaseAmount is the amount of a mineral dissolved (> 0) or precipitated (< 0) to
@@ -109,6 +115,19 @@ type Result struct {
 
 	Indices  Indices
 	Warnings []string
+
+	// PE is the pe of the solve (-log10 a(e-)); valid when HasPE (a pe was given or
+	// the electron was fixed by a phase). Without it, species and minerals whose
+	// reactions contain the electron are absent.
+	PE    float64
+	HasPE bool
+	// LogPO2 is log10 of the O2 partial pressure (atm) in equilibrium with the water;
+	// valid when HasLogPO2 (a pe was given).
+	LogPO2    float64
+	HasLogPO2 bool
+	// RedoxSkipped is true when a mineral was left out only because the water has
+	// no pe: its other components were present (NoteNoRedox).
+	RedoxSkipped bool
 }
 
 // SI returns the saturation index of the named mineral, and false if it was not
@@ -204,4 +223,24 @@ func (r *Result) PhaseAmountOf(name string) (float64, bool) {
 		}
 	}
 	return 0, false
+}
+
+// finite reports whether every number of the result is finite.
+func (r *Result) finite() bool {
+	ok := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+	if !ok(r.IonicStrength) || !ok(r.PH) || !ok(r.ChargeBalance) || !ok(r.WaterActivity) || r.HasLogPCO2 && !ok(r.LogPCO2) {
+		return false
+	}
+	for i := range r.Species {
+		sp := &r.Species[i]
+		if !ok(sp.Molality) || !ok(sp.Gamma) || !ok(sp.LogGamma) || !ok(sp.LogActivity) {
+			return false
+		}
+	}
+	for i := range r.Minerals {
+		if !ok(r.Minerals[i].SI) || !ok(r.Minerals[i].LogIAP) {
+			return false
+		}
+	}
+	return true
 }

@@ -36,7 +36,7 @@ func (s *Solver) setup(w *Water) error {
 		if ci < 0 {
 			return inputErr("unknown component %q", t.Component)
 		}
-		if ci == db.water || ci == db.hplus {
+		if ci == db.water || ci == db.hplus || ci == db.electron {
 			return inputErr("%s cannot be given a total", t.Component)
 		}
 		if !finite(t.MolKgw) || t.MolKgw < 0 {
@@ -69,9 +69,22 @@ func (s *Solver) setup(w *Water) error {
 		s.role[db.hplus] = roleFixed
 		s.la[db.hplus] = -w.PH
 	}
+	// e-: fixed by the pe, or absent (no redox information: every species and mineral
+	// with an electron in its reaction drops out, and the water is speciated as
+	// without those entries).
+	if w.hasPE {
+		if db.electron < 0 {
+			return inputErr("pe given but the database has no %s component", NameElectron)
+		}
+		if !finite(w.pe) || w.pe < -MaxAbsPE || w.pe > MaxAbsPE {
+			return inputErr("pe %g outside -%g to %g", w.pe, MaxAbsPE, MaxAbsPE)
+		}
+		s.role[db.electron] = roleFixed
+		s.la[db.electron] = -w.pe
+	}
 	if w.ChargeBalanceIon != "" {
 		ci := db.ComponentIndex(w.ChargeBalanceIon)
-		if ci < 0 {
+		if ci < 0 || ci == db.electron {
 			return inputErr("unknown charge-balance ion %q", w.ChargeBalanceIon)
 		}
 		if ci == db.hplus {
@@ -96,6 +109,9 @@ func (s *Solver) setup(w *Water) error {
 		ci := db.ComponentIndex(f.Component)
 		if ci < 0 || ci == db.water {
 			return inputErr("unknown component %q fixed by %s", f.Component, f.Phase)
+		}
+		if ci == db.electron && w.hasPE {
+			return inputErr("pe given and %s fixed by %s", NameElectron, f.Phase)
 		}
 		pi := db.MineralIndex(f.Phase)
 		if pi < 0 {

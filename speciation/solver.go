@@ -12,7 +12,7 @@ const (
 	roleAlk
 	roleCharge
 	rolePhase
-	roleFixed // activity fixed (H+ from pH)
+	roleFixed // activity fixed (H+ from pH, e- from pe)
 )
 
 // Tolerance is the relative tolerance every balance meets at convergence.
@@ -107,6 +107,7 @@ type Solver struct {
 	warmTotal              []float64
 	warmAlk                float64
 	warmT, warmLaH         float64
+	warmLaE                float64
 
 	// WarmStart starts a solve from the previous solution when the water has the same
 	// kind of constraints and is close to the previous one (temperature within 0.5 C,
@@ -164,9 +165,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	s.lastT = math.NaN()
 	s.alkSp = make([]float64, ns)
 	for i := range db.species {
-		for _, t := range db.species[i].Terms {
-			s.alkSp[i] += t.Nu * s.alkComp[t.Index]
-		}
+		s.alkSp[i] = db.species[i].Alkalinity
 	}
 	s.act = make([]int, 0, ns)
 	s.st = ActivityState{
@@ -247,6 +246,13 @@ func (s *Solver) SolveInto(res *Result, w *Water) error {
 		return err
 	}
 	s.fill(res, w)
+	if !res.finite() {
+		// A water far beyond any activity model (hundreds of mol/kg) can
+		// converge with coefficients that overflow: refuse it rather than
+		// hand on an infinity.
+		clearResult(res)
+		return &SolveError{Err: ErrNoConvergence, Reason: "activity coefficients overflow: the water is far beyond the activity model's range"}
+	}
 	return nil
 }
 

@@ -13,6 +13,9 @@ func (s *Solver) warmStart() bool {
 	if len(s.warmU) != s.n || math.Abs(s.lastT-s.warmT) > 0.5 || math.Abs(s.la[s.db.hplus]-s.warmLaH) > 0.1 {
 		return false
 	}
+	if e := s.db.electron; e >= 0 && s.role[e] == roleFixed && math.Abs(s.la[e]-s.warmLaE) > 0.1 {
+		return false
+	}
 	for ci := range s.role {
 		if s.role[ci] == roleTotal && s.warmTotal[ci] > 0 {
 			if r := s.total[ci] / s.warmTotal[ci]; r < 0.8 || r > 1.25 {

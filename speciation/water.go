@@ -17,6 +17,9 @@ type Water struct {
 	// Its total, if set, is only the starting guess.
 	ChargeBalanceIon string
 
+	pe    float64
+	hasPE bool
+
 	totals     []ComponentTotal
 	alk        float64
 	hasAlk     bool
@@ -123,3 +126,18 @@ func (w *Water) Clone() Water {
 	c.equilibria = append([]PhaseTarget(nil), w.equilibria...)
 	return c
 }
+
+// SetPE sets the pe of the water, -log10 of the electron activity (pe = F Eh /
+// (ln10 R T); see PEFromEh and the couples of PEFromCouple). Species and minerals
+// whose reactions contain the electron (Fe(III) species, O2(aq), HS-, NH4+, the
+// Fe(III) and Mn(III/IV) oxides, the sulfides) exist only in a water with a pe; the
+// total of Fe2+ is then total iron, of SO4 2- total sulfur, of NO3- total nitrogen.
+// Instead of a pe, the electron may be fixed by a phase: FixByPhase("e-", "O2(g)",
+// log10 pO2) or FixByPhase("e-", "ferrihydrite", 0).
+func (w *Water) SetPE(pe float64) { w.pe, w.hasPE = pe, true }
+
+// PE returns the pe set by SetPE.
+func (w *Water) PE() (float64, bool) { return w.pe, w.hasPE }
+
+// ClearPE removes the pe: the water is speciated without redox information.
+func (w *Water) ClearPE() { w.pe, w.hasPE = 0, false }

@@ -8,6 +8,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/internal/progress"
 	"gwsat.dev/gwsat/report"
@@ -35,44 +36,48 @@ func (o *outcomeFlags) verdict(s *assess.Summary) error {
 func checkCmd(e *env) *cobra.Command {
 	var in inputFlags
 	var oc outcomeFlags
-	var out, jsonOut string
+	var out, jsonOut, geoOut, shardSpec string
 	var showColumns bool
 	c := &cobra.Command{
 		Use:   "check [flags] FILE.csv ... | --demo",
 		Short: "check lab files and compute saturation indices: one table row per input row",
 		Long: "Reads the lab files, checks every row, converts it to molality, speciates it and writes one\n" +
 			"table row per input row, in input order, with a status and its reasons. A summary goes to\n" +
-			"standard error. Rejected rows are reported, and the command still exits 0 (see --fail-on-rejected).",
+			"standard error. Rejected rows are reported, and the command still exits 0 (see --fail-on-rejected).\n" +
+			"Rows stream through: memory does not grow with the number of rows.",
 		RunE: func(c *cobra.Command, args []string) error {
 			var g guard
 			if err := g.inputs(args); err != nil {
 				return err
 			}
-			if err := g.outputs(out, jsonOut); err != nil {
+			if err := g.outputs(out, jsonOut, geoOut); err != nil {
 				return err
 			}
-			if jsonOut != "" {
-				return checkInMemory(e, &in, &oc, args, out, jsonOut, showColumns)
+			sh, err := parseShard(shardSpec)
+			if err != nil {
+				return usagef("--shard: %w", err)
 			}
-			return checkStreaming(e, &in, &oc, args, out, showColumns)
+			return runCheck(e, &in, &oc, args, checkOutputs{table: out, json: jsonOut, geojson: geoOut}, sh, showColumns)
 		},
 	}
 	interspersed(c.Flags())
 	in.register(c.Flags())
 	oc.register(c)
 	c.Flags().StringVarP(&out, "out", "o", "-", "table output file (CSV), '-' for standard output")
-	c.Flags().StringVar(&jsonOut, "json", "", "also write every result in full (species, activities, distribution) as JSON to this file")
+	c.Flags().StringVar(&jsonOut, "json", "", "also write every result in full (issues, species, activities, distribution) as a JSON array to this file")
+	c.Flags().StringVar(&geoOut, "geojson", "", "also write every row as a GeoJSON point (RFC 7946) to this file")
+	c.Flags().StringVar(&shardSpec, "shard", "", "process only shard K of N (K/N): rows K, K+N, K+2N, ... in input order, for batch systems; join the tables with 'gwsat join'")
 	c.Flags().BoolVar(&showColumns, "columns", false, "print how each input header was understood")
 	return c
 }
 
-// checkChunk is how many rows are speciated and written at a time: the
-// results of a chunk are dropped once its rows are written, so memory does
-// not grow with the results of a large file.
-const checkChunk = 2048
+// checkOutputs are the files check writes ("" for none, "-" for standard output).
+type checkOutputs struct{ table, json, geojson string }
 
-// checkStreaming speciates and writes the table chunk by chunk.
-func checkStreaming(e *env, in *inputFlags, oc *outcomeFlags, args []string, out string, showColumns bool) error {
+// runCheck streams every row through the assessment and into the outputs, in
+// input order: read, speciate on every core, write; only a bounded number of
+// rows is in flight.
+func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs checkOutputs, sh shard, showColumns bool) error {
 	batches, err := in.readInputs(e, args)
 	if err != nil {
 		return usageErr(err)
@@ -82,60 +87,71 @@ func checkStreaming(e *env, in *inputFlags, oc *outcomeFlags, args []string, out
 		return usageErr(err)
 	}
 	minerals := ch.db.MineralNames()
+	cols := report.ColumnsFor(batches, minerals)
 	sum := assess.NewSummary(files(batches)...)
 	total := 0
 	for _, b := range batches {
 		total += len(b.Rows)
 	}
-	bar := progress.New(stderrFile(e), "speciating", total)
-	err = e.writeFile(out, func(w io.Writer) error {
-		cw := csv.NewWriter(w)
-		if err := cw.Write(report.SampleTable(nil, minerals).Header); err != nil {
-			return err
-		}
-		for _, b := range batches {
-			for lo := 0; lo < len(b.Rows); lo += checkChunk {
-				part := *b
-				part.Rows = b.Rows[lo:min(lo+checkChunk, len(b.Rows))]
-				recs, err := assess.Run(e.ctx, ch.db, []*hydro.Batch{&part}, ch.options(bar, false))
+	bar := progress.New(stderrFile(e), "speciating", sh.count(total))
+	opt := ch.options(bar, outs.json != "")
+	opt.Progress = nil
+	err = e.writeFile(outs.table, func(tw io.Writer) error {
+		return withOptional(e, outs.json, func(jw io.Writer) error {
+			return withOptional(e, outs.geojson, func(gw io.Writer) error {
+				cw := csv.NewWriter(tw)
+				if err := cw.Write(cols.Header()); err != nil {
+					return err
+				}
+				var js *report.JSONWriter
+				if jw != nil {
+					js = report.NewJSONWriter(jw)
+				}
+				var gs *geo.SampleWriter
+				if gw != nil {
+					gs = geo.NewSampleWriter(gw)
+				}
+				err := assess.Stream(e.ctx, ch.db, sh.filter(assess.BatchItems(batches)), opt, func(r *assess.Record) error {
+					bar.Add(1)
+					sum.Add(r)
+					if err := cw.Write(cols.Row(r)); err != nil {
+						return err
+					}
+					if js != nil {
+						if err := js.Write(r); err != nil {
+							return err
+						}
+					}
+					if gs != nil {
+						if err := gs.Write(report.SampleFeature(r, minerals)); err != nil {
+							return err
+						}
+					}
+					return nil
+				})
 				if err != nil {
 					return err
 				}
-				if err := cw.WriteAll(report.SampleTable(recs, minerals).Rows); err != nil {
+				cw.Flush()
+				if err := cw.Error(); err != nil {
 					return err
 				}
-				for i := range recs {
-					sum.Add(&recs[i])
+				if js != nil {
+					if err := js.Close(); err != nil {
+						return err
+					}
 				}
-			}
-		}
-		cw.Flush()
-		return cw.Error()
+				if gs != nil {
+					return gs.Close()
+				}
+				return nil
+			})
+		})
 	})
 	bar.Done()
 	if err != nil {
-		return failed(fmt.Errorf("writing %s: %w", out, err))
+		return failed(fmt.Errorf("writing the outputs: %w", err))
 	}
-	return finishCheck(e, oc, batches, sum, showColumns)
-}
-
-// checkInMemory keeps every result for the full JSON output.
-func checkInMemory(e *env, in *inputFlags, oc *outcomeFlags, args []string, out, jsonOut string, showColumns bool) error {
-	batches, recs, ch, err := in.assessAll(e, args, true)
-	if err != nil {
-		return usageErr(err)
-	}
-	tbl := report.SampleTable(recs, ch.db.MineralNames())
-	if err := e.writeFile(out, tbl.WriteCSV); err != nil {
-		return failed(fmt.Errorf("writing %s: %w", out, err))
-	}
-	if err := e.writeFile(jsonOut, func(w io.Writer) error { return report.WriteJSON(w, recs) }); err != nil {
-		return failed(fmt.Errorf("writing %s: %w", jsonOut, err))
-	}
-	return finishCheck(e, oc, batches, assess.Summarise(files(batches), recs), showColumns)
-}
-
-func finishCheck(e *env, oc *outcomeFlags, batches []*hydro.Batch, sum *assess.Summary, showColumns bool) error {
 	if showColumns {
 		printColumns(e.stderr, batches)
 	}
@@ -145,6 +161,14 @@ func finishCheck(e *env, oc *outcomeFlags, batches []*hydro.Batch, sum *assess.S
 		}
 	}
 	return oc.verdict(sum)
+}
+
+// withOptional runs fill with a writer for path, or with nil when path is "".
+func withOptional(e *env, path string, fill func(w io.Writer) error) error {
+	if path == "" {
+		return fill(nil)
+	}
+	return e.writeFile(path, fill)
 }
 
 func printColumns(w io.Writer, batches []*hydro.Batch) {

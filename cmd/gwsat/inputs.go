@@ -3,7 +3,10 @@ package main
 import (
 	"bytes"
 	"fmt"
+	"math"
+	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/spf13/pflag"
 
@@ -14,17 +17,30 @@ import (
 	"gwsat.dev/gwsat/speciation"
 )
 
-// DemoFile is the name the embedded demo samples carry in outputs.
-const DemoFile = "demo/samples.csv"
+// DemoFile is the name the embedded demo samples carry in outputs, and
+// DemoFieldSheet that of its field sheet.
+const (
+	DemoFile       = "demo/samples.csv"
+	DemoFieldSheet = "demo/field.csv"
+)
 
 // inputFlags are the flags shared by every command that reads lab files.
 type inputFlags struct {
-	demo      bool
-	nondetect string
-	columnMap string
-	epsg      int
-	model     string
-	closeWith string
+	demo       bool
+	nondetect  string
+	columnMap  string
+	epsg       int
+	model      string
+	closeWith  string
+	unitsOK    bool
+	dateOrder  string
+	siteTemp   float64
+	sheet      string
+	limits     []string
+	fieldSheet string
+	delimiter  string
+	decimal    string
+	orpRef     string
 }
 
 func (f *inputFlags) register(fs *pflag.FlagSet) {
@@ -32,24 +48,80 @@ func (f *inputFlags) register(fs *pflag.FlagSet) {
 	fs.StringVar(&f.nondetect, "nondetect", "half", "value used for a non-detect: half (half the detection limit), dl (the limit) or zero")
 	fs.StringVar(&f.columnMap, "column-map", "", "CSV file mapping headers to parameters (two columns: header,parameter)")
 	fs.IntVar(&f.epsg, "epsg", 0, "EPSG code of easting/northing columns when the file has none (e.g. 32633)")
-	fs.StringVar(&f.model, "model", "truesdell-jones", "activity model: "+strings.Join(speciation.ModelNames(), ", "))
+	fs.StringVar(&f.model, "model", "auto", "activity model: auto (Truesdell-Jones, Pitzer for brines above ionic strength 0.5 mol/kg), "+strings.Join(speciation.ModelNames(), ", "))
 	fs.StringVar(&f.closeWith, "close-balance-with", "", "adjust this ion (e.g. Cl or Na) so the speciated water is electrically neutral")
+	fs.BoolVar(&f.unitsOK, "units-confirmed", false, "analytes without a unit anywhere are in mg/L, and values outside their usual range are in the unit stated: no warning for either")
+	fs.StringVar(&f.dateOrder, "date-order", "auto", "order of day and month in slash dates: auto (decided per column from the values), day-first or month-first")
+	fs.Float64Var(&f.siteTemp, "site-temperature", math.NaN(), "temperature in C for samples reported without one (e.g. the site's mean annual air temperature)")
+	fs.Lookup("site-temperature").DefValue = "none"
+	fs.StringVar(&f.sheet, "sheet", "", "workbook sheet to read, by name or 1-based number (default: the first)")
+	fs.StringArrayVar(&f.limits, "detection-limit", nil, "detection limit for non-detects written without a number, as HEADER=VALUE in the column's unit (repeatable)")
+	fs.StringVar(&f.delimiter, "delimiter", "", "force the field delimiter: a single character, or 'tab' (default: detected)")
+	fs.StringVar(&f.decimal, "decimal", "", "force the decimal separator: '.' or ',' (default: detected)")
+	fs.StringVar(&f.orpRef, "orp-electrode", "", "reference electrode of ORP readings, to convert them to Eh: e.g. 'Ag/AgCl sat KCl', 'Ag/AgCl 3M KCl', 'calomel sat' (default: ORP not used)")
+	fs.StringVar(&f.fieldSheet, "field-sheet", "", "a file of field measurements (pH, temperature, conductance, dissolved oxygen, Eh/ORP) joined to the lab rows on sample id, or on well id and date")
+}
+
+// options builds the reader's options from the flags.
+func (f *inputFlags) options() (hydro.Options, error) {
+	nd, err := hydro.ParseNonDetectPolicy(f.nondetect)
+	if err != nil {
+		return hydro.Options{}, fmt.Errorf("--nondetect: %w", err)
+	}
+	order, err := hydro.ParseDateOrder(f.dateOrder)
+	if err != nil {
+		return hydro.Options{}, fmt.Errorf("--date-order: %w", err)
+	}
+	opt := hydro.Options{NonDetect: nd, EPSG: f.epsg, ConfirmUnits: f.unitsOK, DateOrder: order, Sheet: f.sheet}
+	switch d := f.delimiter; {
+	case d == "":
+	case strings.EqualFold(d, "tab") || d == "\\t":
+		opt.Delimiter = '\t'
+	case utf8.RuneCountInString(d) == 1 && d != "\"" && d != "\n" && d != "\r":
+		opt.Delimiter, _ = utf8.DecodeRuneInString(d)
+	default:
+		return hydro.Options{}, fmt.Errorf("--delimiter %q: give one character, or tab", d)
+	}
+	switch f.decimal {
+	case "":
+	case ".", ",":
+		opt.DecimalSep = rune(f.decimal[0])
+	default:
+		return hydro.Options{}, fmt.Errorf("--decimal %q: give . or ,", f.decimal)
+	}
+	if !math.IsNaN(f.siteTemp) {
+		if _, err := parseTemp(strconv.FormatFloat(f.siteTemp, 'g', -1, 64)); err != nil {
+			return hydro.Options{}, fmt.Errorf("--site-temperature: %w", err)
+		}
+		opt.SiteTempC = hydro.Some(f.siteTemp)
+	}
+	if f.columnMap != "" {
+		m, err := hydro.LoadColumnMap(f.columnMap)
+		if err != nil {
+			return hydro.Options{}, fmt.Errorf("--column-map: %w", err)
+		}
+		m.Apply(&opt)
+	}
+	for _, l := range f.limits {
+		h, v, ok := strings.Cut(l, "=")
+		x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
+		if !ok || err != nil || !(x > 0) || math.IsInf(x, 0) {
+			return hydro.Options{}, fmt.Errorf("--detection-limit %q: want HEADER=VALUE with a positive number", l)
+		}
+		if opt.DetectionLimits == nil {
+			opt.DetectionLimits = map[string]float64{}
+		}
+		opt.DetectionLimits[strings.TrimSpace(h)] = x
+	}
+	return opt, nil
 }
 
 // readInputs reads the files named in args ("-" for standard input), or the
 // demo. A file-level error (not CSV, no sample id column...) is fatal.
 func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
-	nd, err := hydro.ParseNonDetectPolicy(f.nondetect)
+	opt, err := f.options()
 	if err != nil {
-		return nil, fmt.Errorf("--nondetect: %w", err)
-	}
-	opt := hydro.Options{NonDetect: nd, EPSG: f.epsg}
-	if f.columnMap != "" {
-		m, err := hydro.ReadColumnMap(f.columnMap)
-		if err != nil {
-			return nil, fmt.Errorf("--column-map: %w", err)
-		}
-		opt.ColumnMap = m
+		return nil, err
 	}
 	if f.demo {
 		if len(args) > 0 {
@@ -63,7 +135,7 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 		if err != nil {
 			return nil, err
 		}
-		return []*hydro.Batch{b}, nil
+		return []*hydro.Batch{b}, f.joinField(e, []*hydro.Batch{b}, opt)
 	}
 	if len(args) == 0 {
 		return nil, fmt.Errorf("no input: name one or more CSV files, '-' for standard input, or --demo")
@@ -84,14 +156,68 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 		}
 		out = append(out, b)
 	}
-	return out, nil
+	return out, f.joinField(e, out, opt)
+}
+
+// joinField joins the field sheet to the lab rows and lists what matched
+// nothing, on either side.
+func (f *inputFlags) joinField(e *env, batches []*hydro.Batch, opt hydro.Options) error {
+	var field *hydro.Batch
+	var err error
+	name := f.fieldSheet
+	switch {
+	case name != "":
+		field, err = hydro.ReadFieldSheetFile(name, opt)
+	case f.demo:
+		// The demo comes with its field sheet (round 3, invented).
+		name = DemoFieldSheet
+		var raw []byte
+		if raw, err = data.Demo().ReadFile(name); err == nil {
+			field, err = hydro.ReadFieldSheet(bytes.NewReader(raw), name, opt)
+		}
+	default:
+		return nil
+	}
+	if err != nil {
+		return fmt.Errorf("field sheet: %w", err)
+	}
+	for _, b := range batches {
+		j := hydro.JoinFieldSheet(b, field)
+		lines := make([]string, 0, len(j.UnmatchedLab))
+		for _, i := range j.UnmatchedLab {
+			lines = append(lines, fmt.Sprintf("%s line %d (%s)", b.File, b.Rows[i].Line, b.Rows[i].Sample.ID))
+		}
+		e.printLines([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, j.Joined)})
+		if len(lines) > 0 {
+			e.printLines([]string{fmt.Sprintf("  %d lab rows without field values: %s", len(lines), strings.Join(limitList(lines, 5), "; "))})
+		}
+		if len(j.UnmatchedField) > 0 {
+			var fl []string
+			for _, r := range j.UnmatchedField {
+				fl = append(fl, fmt.Sprintf("line %d (%s)", r.Line, r.Sample.ID))
+			}
+			e.printLines([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
+		}
+	}
+	return nil
+}
+
+// limitList keeps the first n entries and says how many more there are.
+func limitList(l []string, n int) []string {
+	if len(l) <= n {
+		return l
+	}
+	return append(l[:n:n], fmt.Sprintf("and %d more", len(l)-n))
 }
 
 // activityModel returns the model named by --model.
 func (f *inputFlags) activityModel() (speciation.ActivityModel, error) {
+	if strings.EqualFold(strings.TrimSpace(f.model), "auto") {
+		return nil, nil // assess chooses per row
+	}
 	m, ok := speciation.ModelByName(f.model)
 	if !ok {
-		return nil, fmt.Errorf("--model: unknown activity model %q (choose from %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
+		return nil, fmt.Errorf("--model: unknown activity model %q (choose from auto, %s)", f.model, strings.Join(speciation.ModelNames(), ", "))
 	}
 	return m, nil
 }
@@ -101,6 +227,7 @@ type chemistry struct {
 	db    *speciation.Database
 	model speciation.ActivityModel
 	bal   string
+	orp   string
 }
 
 func (f *inputFlags) chemistry() (*chemistry, error) {
@@ -116,11 +243,16 @@ func (f *inputFlags) chemistry() (*chemistry, error) {
 	if err != nil {
 		return nil, fmt.Errorf("--close-balance-with: %w", err)
 	}
-	return &chemistry{db: db, model: model, bal: bal}, nil
+	if f.orpRef != "" {
+		if _, err := speciation.ParseReferenceElectrode(f.orpRef); err != nil {
+			return nil, fmt.Errorf("--orp-electrode: %w", err)
+		}
+	}
+	return &chemistry{db: db, model: model, bal: bal, orp: f.orpRef}, nil
 }
 
 func (c *chemistry) options(bar *progress.Bar, detail bool) assess.Options {
-	return assess.Options{Model: c.model, BalanceOn: c.bal, Progress: func() { bar.Add(1) }, Detail: detail}
+	return assess.Options{Model: c.model, BalanceOn: c.bal, ORPReference: c.orp, Progress: func() { bar.Add(1) }, Detail: detail}
 }
 
 // assessAll reads and assesses every row, showing progress on a terminal;

@@ -114,7 +114,7 @@ func run(ctx context.Context, args []string, stdin io.Reader, stdout, stderr io.
 // packagePrefix matches the package names that the library's error sentinels
 // start with ("speciation: ..."): a user is told what went wrong, not where in
 // the code.
-var packagePrefix = regexp.MustCompile(`\b(hydro|speciation|reaction|inject|assess|geo|figure|report|site|sitereport|atomicfile|outguard|lockfile): `)
+var packagePrefix = regexp.MustCompile(`\b(hydro|speciation|reaction|inject|assess|geo|figure|report|site|sitereport|atomicfile|outguard|lockfile|uncertainty|findings|trend|facies): `)
 
 // userText is an error message as a user reads it.
 func userText(msg string) string { return packagePrefix.ReplaceAllString(msg, "") }
@@ -141,7 +141,7 @@ func newRoot(e *env) *cobra.Command {
 		Args: cobra.ArbitraryArgs,
 	}
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return usageErr(err) })
-	root.AddCommand(checkCmd(e), inspectCmd(e), reportCmd(e), injectCmd(e), versionCmd(e))
+	root.AddCommand(checkCmd(e), inspectCmd(e), reportCmd(e), injectCmd(e), findingsCmd(e), joinCmd(e), versionCmd(e))
 	return root
 }
 

@@ -40,7 +40,7 @@ const wantHeader = "Sample ID,Well ID,Sample type,Cluster,Round,Sampled at,Latit
 	"EC (uS/cm),TDS (mg/L),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Sr (mg/L),Ba (ug/L),Fe (mg/L)," +
 	"Mn (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),F (mg/L),SiO2 (mg/L),NO3-N (mg/L),Br (mg/L)"
 
-// readRows parses samples.csv into maps keyed by header.
+// readRows parses samples.csv into maps keyed by column name and unit.
 func readRows(t *testing.T, b []byte) ([]string, []map[string]string) {
 	t.Helper()
 	r := csv.NewReader(bytes.NewReader(b))
@@ -48,15 +48,26 @@ func readRows(t *testing.T, b []byte) ([]string, []map[string]string) {
 	if err != nil {
 		t.Fatalf("samples.csv does not parse: %v", err)
 	}
+	if len(recs) < 2 {
+		t.Fatalf("samples.csv has %d lines", len(recs))
+	}
+	// The second line is the units row: key each column as "name (unit)".
+	cols := make([]string, len(recs[0]))
+	for i, h := range recs[0] {
+		cols[i] = h
+		if u := recs[1][i]; u != "" {
+			cols[i] = h + " (" + u + ")"
+		}
+	}
 	var rows []map[string]string
-	for _, rec := range recs[1:] {
+	for _, rec := range recs[2:] {
 		m := map[string]string{}
-		for i, h := range recs[0] {
+		for i, h := range cols {
 			m[h] = rec[i]
 		}
 		rows = append(rows, m)
 	}
-	return recs[0], rows
+	return cols, rows
 }
 
 func TestDeterministic(t *testing.T) {

@@ -555,10 +555,18 @@ func applyFlaws(g *generated) {
 }
 
 // csvBytes renders the samples as CSV (comma-separated, CRLF-free, quoted only
-// where needed; no cell here needs quoting).
+// where needed; no cell here needs quoting): the column names, then a units
+// row (as many lab exports have), then one row per sample.
 func (g *generated) csvBytes() []byte {
 	var b strings.Builder
-	b.WriteString(strings.Join(header, ","))
+	names := make([]string, len(header))
+	units := make([]string, len(header))
+	for i, h := range header {
+		names[i], units[i] = splitUnit(h)
+	}
+	b.WriteString(strings.Join(names, ","))
+	b.WriteByte('\n')
+	b.WriteString(strings.Join(units, ","))
 	b.WriteByte('\n')
 	for _, s := range g.Samples {
 		row := make([]string, len(header))

@@ -27,7 +27,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "demogen:", err)
 		return 1
 	}
-	for _, name := range []string{"samples.csv", "site.geojson", "README.md"} {
+	for _, name := range []string{"samples.csv", "field.csv", "site.geojson", "README.md"} {
 		if err := writeAtomic(filepath.Join(*out, name), files[name]); err != nil {
 			fmt.Fprintln(stderr, "demogen:", err)
 			return 1
@@ -44,6 +44,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 func (g *generated) files() map[string][]byte {
 	return map[string][]byte{
 		"samples.csv":  g.csvBytes(),
+		"field.csv":    g.fieldBytes(),
 		"site.geojson": siteGeoJSON(),
 		"README.md":    g.readme(),
 	}

@@ -50,7 +50,8 @@ func (g *generated) readme() []byte {
 
 	p("## Files\n\n")
 	p("| file | content |\n|---|---|\n")
-	p("| `samples.csv` | %d water analyses, one row per sample (wide format, comma-separated, UTF-8, no BOM) |\n", len(g.Samples))
+	p("| `samples.csv` | %d water analyses, one row per sample (wide format, comma-separated, UTF-8, no BOM); the column names on the first line, their units on the second (a units row) |\n", len(g.Samples))
+	p("| `field.csv` | the field sheet of round %d, and the injectate's readings at every round: well, date and time (day.month.year), field pH, water temperature, dissolved oxygen and ORP, one line per well visit, joined to `samples.csv` on well and date (the oxygenated injectate meeting the iron-bearing, oxygen-free native water is what the injection-planning section's oxidation step shows); its last line, well %s, was dry and matches no lab sample (it shows how unmatched field rows are listed) |\n", fieldRound, dryWell)
 	p("| `site.geojson` | RFC 7946 FeatureCollection (lon/lat, WGS84): site boundary (`kind: \"boundary\"`), river (`river`), injectate pipeline (`pipeline`, two lines), injection wells IW-1 and IW-2 (`injection_well`) |\n")
 	p("| `README.md` | this file (written by the generator) |\n\n")
 	p("Regenerate, from the repository root: `go run ./data/demogen -out data/demo` (seed %d, the\n", g.Seed)

@@ -128,7 +128,11 @@ func TestActiveSetProperties(t *testing.T) {
 			if a.MolKgw < 0 {
 				t.Errorf("trial %d: %s amount %.3g < 0", trial, a.Mineral, a.MolKgw)
 			}
-			if a.SIBefore <= 0 {
+			// A mineral just below saturation may join the others: their
+			// precipitation lowers the ionic strength and so raises its
+			// activity coefficients (with the Pitzer-era sulfate data a
+			// celestine at SI -0.001 does). Clearly undersaturated ones never.
+			if a.SIBefore <= -0.02 {
 				t.Errorf("trial %d: %s precipitated although SI before was %.3f", trial, a.Mineral, a.SIBefore)
 			}
 			if a.MolKgw > 0 {

@@ -1,0 +1,84 @@
+package uncertainty
+
+import (
+	"context"
+	"runtime"
+	"sync"
+
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/speciation"
+)
+
+// Sample is the estimate for one record: Result, or Err saying why there is
+// none (ErrNoResult for a record that was not speciated, ErrDraws for solves
+// that failed); never both.
+type Sample struct {
+	Result
+	Err error
+}
+
+// Run estimates the intervals of every record, in order, on Options.Workers
+// goroutines (each with its own Estimator), with the Monte Carlo draws of
+// record i seeded (Options.Seed, Options.FirstStream + i); with Options.Linear, the linear
+// estimate. The error is for bad options or a cancelled context only: a
+// record that cannot be estimated carries its own Err.
+func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt Options) ([]Sample, error) {
+	o, err := opt.resolved()
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Sample, len(recs))
+	workers := o.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	var mu sync.Mutex
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			est, _ := NewEstimator(db, o) // o is resolved: no error
+			for i := range jobs {
+				out[i] = est.record(&recs[i], o.FirstStream+uint64(i))
+				if o.Progress != nil {
+					mu.Lock()
+					o.Progress()
+					mu.Unlock()
+				}
+			}
+		}()
+	}
+	var cerr error
+feed:
+	for i := range recs {
+		select {
+		case jobs <- i:
+		case <-ctx.Done():
+			cerr = ctx.Err()
+			break feed
+		}
+	}
+	close(jobs)
+	wg.Wait()
+	return out, cerr
+}
+
+// record estimates one record.
+func (e *Estimator) record(r *assess.Record, stream uint64) Sample {
+	c, err := CaseOf(r, e.opt)
+	if err != nil {
+		return Sample{Err: err}
+	}
+	var res Result
+	if e.opt.Linear {
+		res, err = e.Linear(&c)
+	} else {
+		res, err = e.MonteCarlo(&c, stream)
+	}
+	if err != nil {
+		return Sample{Result: Result{Method: res.Method, Seed: res.Seed, Stream: res.Stream, Draws: res.Draws, Failed: res.Failed}, Err: err}
+	}
+	return Sample{Result: res}
+}
