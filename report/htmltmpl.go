@@ -125,7 +125,7 @@ var indexTmpl = template.Must(template.New("index").Funcs(template.FuncMap{
 <dt>Made</dt><dd>{{.Generated}}</dd>
 <dt>Inputs</dt><dd>{{range $i, $f := .Inputs}}{{if $i}}<br>{{end}}<code>{{$f.File}}</code>: {{$f.Rows}} rows{{if $f.SHA256}}, SHA-256 <code>{{$f.SHA256}}</code>{{end}}{{end}}</dd>
 <dt>Thermodynamic data</dt><dd>{{.Thermo.Name}}, format version {{.Thermo.Format}}, {{.Thermo.Minerals}} minerals, {{.Thermo.Bytes}} bytes, SHA-256 <code>{{.Thermo.SHA256}}</code></dd>
-<dt>Activity model</dt><dd>{{.Activity.Name}}, used up to an ionic strength of {{.Activity.MaxIonicStrength}} mol/kg water ({{.Activity.Source}})</dd>
+<dt>Activity model</dt><dd>{{.Activity.Name}}; used up to an ionic strength of {{.Activity.MaxIonicStrength}} mol/kg water ({{.Activity.Source}}){{if .Activity.RowsPerModel}}. Rows solved per model:{{range $k, $v := .Activity.RowsPerModel}} {{$k}} {{$v}};{{end}}{{end}}</dd>
 <dt>Non-detects</dt><dd>{{.NonDetect}}</dd>
 <dt>Units</dt><dd>{{range $i, $u := .Units}}{{if $i}}<br>{{end}}{{$u}}{{end}}</dd>
 <dt>Coordinates</dt><dd>{{range $i, $u := .Coordinates}}{{if $i}}<br>{{end}}{{$u}}{{end}}</dd>

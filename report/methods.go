@@ -58,11 +58,13 @@ type Thermo struct {
 	Minerals int    `json:"minerals"`
 }
 
-// Activity is the activity model and the ionic strength up to which it holds.
+// Activity is the activity model and the ionic strength up to which it holds,
+// and how many rows each model solved (the automatic choice picks per row).
 type Activity struct {
-	Name             string  `json:"name"`
-	MaxIonicStrength float64 `json:"max_ionic_strength_mol_kgw"`
-	Source           string  `json:"source"`
+	Name             string         `json:"name"`
+	MaxIonicStrength float64        `json:"max_ionic_strength_mol_kgw"`
+	Source           string         `json:"source"`
+	RowsPerModel     map[string]int `json:"rows_per_model"`
 }
 
 // Interpolation summarises the interpolated surfaces.

@@ -98,6 +98,7 @@ var modelSources = map[string]string{
 	"davies":          "Davies (1962), Ion Association",
 	"truesdell-jones": "Truesdell & Jones (1974), J. Res. U.S. Geol. Survey 2(2), 233-248",
 	"ideal":           "activity coefficients of one",
+	"pitzer":          "Harvie, Moller & Weare (1984), GCA 48, 723-751, after Pitzer (1973)",
 }
 
 // nonDetectWords says what each non-detect policy substitutes.
@@ -207,7 +208,9 @@ func methodFamily(m string) string {
 }
 
 // buildMethods gathers the methods and provenance of a report.
-func buildMethods(opt Options, st *site.Site, when time.Time) *report.Methods {
+// auto says the rows were solved with the automatic choice of model (see
+// assess.AutoModelSwitch); opt.Model is then the model of the blends.
+func buildMethods(opt Options, st *site.Site, when time.Time, auto bool) *report.Methods {
 	m := &report.Methods{
 		Tool:          toolInfo(),
 		CommandLine:   opt.CommandLine,
@@ -219,6 +222,22 @@ func buildMethods(opt Options, st *site.Site, when time.Time) *report.Methods {
 		Coordinates:   coordinateNotes,
 		Interpolation: interpolationInfo(opt.Site.Method, st),
 		Thresholds:    thresholds(opt.Model),
+	}
+	m.Activity.RowsPerModel = map[string]int{}
+	for i := range opt.Records {
+		if r := opt.Records[i].Result; r != nil {
+			m.Activity.RowsPerModel[r.Model]++
+		}
+	}
+	if auto {
+		p := speciation.NewPitzer()
+		m.Activity = report.Activity{
+			Name: fmt.Sprintf("automatic per row: %s, %s above an ionic strength of %g mol/kg water (each row's model is in samples.csv); blends in the injection section: %s",
+				opt.Model.Name(), p.Name(), assess.AutoModelSwitch, opt.Model.Name()),
+			MaxIonicStrength: p.MaxIonicStrength(), Source: modelSource(opt.Model) + "; " + modelSource(p), RowsPerModel: m.Activity.RowsPerModel}
+		m.Thresholds = append(m.Thresholds, report.Threshold{What: "Ionic strength above which a row is solved with " + p.Name(), Value: assess.AutoModelSwitch,
+			Unit: "mol/kg water", Source: "departure of the extended Debye-Hueckel forms from measured mean activity coefficients, Robinson & Stokes (1959) tables"},
+			report.Threshold{What: "Ionic strength up to which the " + p.Name() + " model is used", Value: p.MaxIonicStrength(), Unit: "mol/kg water", Source: modelSource(p)})
 	}
 	if len(m.CommandLine) == 0 {
 		m.CommandLine = []string{"(not recorded: the report was made by a Go program calling sitereport.Write)"}

@@ -26,8 +26,11 @@ type Options struct {
 	Batches []*hydro.Batch  // the files read, for the column report
 	Records []assess.Record // the assessed rows, in input order
 	DB      *speciation.Database
-	Model   speciation.ActivityModel
-	Site    site.Options
+	// Model is the activity model the rows were solved with; nil means assess
+	// chose per row (assess.Options.Model nil), and the injection section's
+	// blends then use Truesdell-Jones.
+	Model speciation.ActivityModel
+	Site  site.Options
 	// Inject chooses the injection-planning section (end-members by sample id or
 	// sample type); the section is left out when no end-members are found.
 	Inject inject.SectionOptions
@@ -89,6 +92,7 @@ var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "col
 // (ManifestName) lists what was written; files an earlier run listed and this
 // one did not write are removed, and no other file is touched.
 func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
+	auto := opt.Model == nil // rows solved with the automatic choice (assess.Options.Model)
 	if opt.Model == nil {
 		opt.Model = speciation.TruesdellJones{}
 	}
@@ -168,7 +172,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	surf := surfacesTable(st)
 	cols := MappingTable(opt.Batches)
 	now := opt.Now()
-	methods := buildMethods(opt, st, now)
+	methods := buildMethods(opt, st, now, auto)
 	write := func(name string, fill func(w io.Writer) error) error {
 		out.Written = append(out.Written, name)
 		return atomicfile.WriteWith(filepath.Join(opt.Dir, name), fill)
@@ -204,7 +208,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	key := keyMinerals(st, all)
 	ix := &report.Index{
 		Title:       "gwsat report: saturation screening",
-		Generated:   fmt.Sprintf("Made by gwsat on %s with the %s activity model.", now.UTC().Format("2006-01-02 15:04 UTC"), opt.Model.Name()),
+		Generated:   fmt.Sprintf("Made by gwsat on %s; activity model: %s.", now.UTC().Format("2006-01-02 15:04 UTC"), modelWords(methods)),
 		Findings:    opt.Findings,
 		KeyMinerals: key,
 		KeyTable:    keyTable(tbl, key),
@@ -236,6 +240,14 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		return nil, err
 	}
 	return out, nil
+}
+
+// modelWords names the activity model for the page's first lines.
+func modelWords(m *report.Methods) string {
+	if strings.HasPrefix(m.Activity.Name, "automatic") {
+		return "chosen per row (see methods)"
+	}
+	return m.Activity.Name
 }
 
 // qaLine words a row that is not ok: where it is, its status, and its first

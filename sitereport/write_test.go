@@ -170,8 +170,9 @@ func TestMethodsJSON(t *testing.T) {
 		} `json:"thermodynamic_data"`
 		Inputs   []struct{ File, SHA256 string }
 		Activity struct {
-			Name string  `json:"name"`
-			Max  float64 `json:"max_ionic_strength_mol_kgw"`
+			Name string         `json:"name"`
+			Max  float64        `json:"max_ionic_strength_mol_kgw"`
+			Rows map[string]int `json:"rows_per_model"`
 		} `json:"activity_model"`
 		Interp struct {
 			Surfaces int `json:"surfaces"`
@@ -190,7 +191,10 @@ func TestMethodsJSON(t *testing.T) {
 	if len(m.Inputs) != 1 || m.Inputs[0].SHA256 != BytesSHA256([]byte(smallLab)) {
 		t.Errorf("inputs %+v", m.Inputs)
 	}
-	if m.Activity.Name != "truesdell-jones" || m.Activity.Max != (speciation.TruesdellJones{}).MaxIonicStrength() {
+	// The rows were assessed with the automatic choice (assess.Options.Model
+	// nil): fresh water, so every row by Truesdell-Jones, Pitzer's limit stated.
+	if !strings.HasPrefix(m.Activity.Name, "automatic per row") || m.Activity.Max != speciation.NewPitzer().MaxIonicStrength() ||
+		m.Activity.Rows["truesdell-jones"] != 4 {
 		t.Errorf("activity %+v", m.Activity)
 	}
 	if m.Interp.Surfaces == 0 {
