@@ -40,3 +40,27 @@ func ExampleNewPageTable() {
 	// Output:
 	// baryte SI | ▲ +0.91 | 0.9134567
 }
+
+// A wide table split for print: each group repeats the key column, and the
+// columns named in no group come last.
+func ExampleSplitColumns() {
+	t := &report.Table{Header: []string{"sample_id", "ph", "temp_c", "calcite_si", "baryte_si"}}
+	t.Add("MW-1", "7.10", "14.2", "0.31", "-0.02")
+	groups := []report.ColumnGroup{{Caption: "Water", Columns: []string{"ph", "temp_c"}}}
+	for _, pt := range report.SplitColumns(t, []string{"sample_id"}, groups, "Saturation indices") {
+		var titles []string
+		for _, h := range pt.Header {
+			titles = append(titles, h.Title)
+		}
+		fmt.Println(pt.Caption+":", titles)
+	}
+	// Output:
+	// Water: [Sample pH Temperature (°C)]
+	// Saturation indices: [Sample calcite SI baryte SI]
+}
+
+// Signed numbers never read "-0.00".
+func ExampleSigned() {
+	fmt.Println(report.Signed(0.6234, 2), report.Signed(-0.004, 2), report.Signed(-1.2, 2))
+	// Output: +0.62 0.00 -1.20
+}
