@@ -4,6 +4,8 @@ import (
 	"encoding/base64"
 	"html/template"
 	"io"
+
+	"gwsat.dev/gwsat/assess"
 )
 
 // Caution is printed on every report and summary.
@@ -16,89 +18,58 @@ const Caution = "These are screening results, not a design. Saturation indices s
 // a terminal.
 const CautionLine = "Screening results, not a design: defer to local codes and licensed professionals."
 
-// IndexFigure is a figure shown in index.html: its PNG embedded, and links
-// to its other formats.
+// IndexFigure is a figure shown in index.html: a PNG at screen resolution
+// embedded, its size in pixels, and links to its full-resolution files.
 type IndexFigure struct {
 	Title, Caption string
 	PNG            []byte
+	Width, Height  int // pixels of PNG; 0 when unknown
 	Links          []Link
 }
 
 // Link is a relative link inside the report folder.
 type Link struct{ Label, Href string }
 
-// Index is the content of a report's index.html.
+// Index is the content of a report's index.html. The page reads top down:
+// findings, quality control, the key minerals, figures, the extra sections
+// (injection planning), methods and provenance, then the full tables.
 type Index struct {
 	Title     string
 	Generated string // when and how the report was made
 	Inputs    []string
-	Counts    []Link // label = "ok 92", href unused
-	QA        []string
-	Notes     []string
-	Table     *Table // shown as an HTML table
-	Figures   []IndexFigure
-	Files     []Link
-	Sections  []Section // extra sections (e.g. injection planning)
+	// Findings are the conclusions a reader should take away, written by a
+	// findings step; the section says so when there are none.
+	Findings []string
+	Counts   []Link // label = "ok 92", href unused
+	QA       []string
+	Notes    []string
+	// KeyMinerals names the minerals of KeyTable; KeyTable is the compact
+	// table of every sample with their saturation indices.
+	KeyMinerals []string
+	KeyTable    *PageTable
+	Figures     []IndexFigure
+	Sections    []Section // extra sections (e.g. injection planning)
+	Methods     *Methods
+	// Tables are the full tables, printed on landscape pages.
+	Tables []*PageTable
+	Files  []Link
 }
 
-// Section is a titled block of paragraphs, a table and figures.
+// Section is a titled block of paragraphs, tables and figures.
 type Section struct {
 	Title      string
 	Paragraphs []string
-	Table      *Table
+	Tables     []*PageTable
 	Figures    []IndexFigure
 }
 
-func dataURI(png []byte) template.URL {
-	return template.URL("data:image/png;base64," + base64.StdEncoding.EncodeToString(png))
+// imgSrc is the src attribute of an embedded PNG. It is built here, not by
+// the template's URL escaping, which would write every "+" of the base64 text
+// as "&#43;" (a fifth more bytes); base64 holds no quote, ampersand or angle
+// bracket, so the attribute needs no escaping.
+func imgSrc(png []byte) template.HTMLAttr {
+	return template.HTMLAttr(`src="data:image/png;base64,` + base64.StdEncoding.EncodeToString(png) + `"`)
 }
-
-// cellClass marks the status cells of a table so that warnings and
-// rejections stand out.
-func cellClass(cell string) string {
-	switch cell {
-	case "warning", "rejected", "fail", "warn":
-		return cell
-	}
-	return ""
-}
-
-var indexTmpl = template.Must(template.New("index").Funcs(template.FuncMap{"png": dataURI, "cls": cellClass}).Parse(`<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>{{.Title}}</title>
-<style>
-body{font-family:system-ui,-apple-system,"Segoe UI",sans-serif;margin:2em auto;max-width:1200px;padding:0 1em;color:#222;line-height:1.4}
-h1{font-size:1.6em}h2{font-size:1.25em;border-bottom:1px solid #ccc;padding-bottom:.2em;margin-top:2em}
-.caution{border:2px solid #b45309;background:#fff7ed;padding:.8em 1em;font-weight:600}
-table{border-collapse:collapse;font-size:.8em;display:block;overflow-x:auto;max-height:40em}
-th,td{border:1px solid #ddd;padding:.2em .4em;white-space:nowrap}th{background:#f3f4f6;position:sticky;top:0}
-td.warning,td.warn{background:#fef9c3}td.rejected,td.fail{background:#fee2e2}
-figure{margin:1.5em 0}figure img{max-width:100%;border:1px solid #eee}figcaption{font-size:.9em;color:#444}
-.small{font-size:.85em;color:#555}
-</style></head><body>
-<h1>{{.Title}}</h1>
-<p class="caution">{{.Caution}}</p>
-<p class="small">{{.Generated}}</p>
-{{if .Inputs}}<p>Input: {{range $i, $f := .Inputs}}{{if $i}}, {{end}}<code>{{$f}}</code>{{end}}</p>{{end}}
-<h2>Quality control</h2>
-<ul>{{range .Counts}}<li>{{.Label}}</li>{{end}}{{range .QA}}<li>{{.}}</li>{{end}}</ul>
-{{if .Notes}}<ul class="small">{{range .Notes}}<li>{{.}}</li>{{end}}</ul>{{end}}
-{{if .Table}}<h2>Saturation indices and checks per sample</h2>
-<p class="small">SI &gt; 0: supersaturated (the water may deposit the mineral); SI &lt; 0: undersaturated (it may dissolve it); within about &plusmn;0.5 of zero: near equilibrium. Every input row is listed, in input order.</p>
-<table><thead><tr>{{range .Table.Header}}<th>{{.}}</th>{{end}}</tr></thead><tbody>
-{{range .Table.Rows}}<tr>{{range .}}<td{{with cls .}} class="{{.}}"{{end}}>{{.}}</td>{{end}}</tr>
-{{end}}</tbody></table>{{end}}
-{{if .Figures}}<h2>Figures</h2>{{range .Figures}}{{template "fig" .}}{{end}}{{end}}
-{{range .Sections}}<h2>{{.Title}}</h2>{{range .Paragraphs}}<p>{{.}}</p>{{end}}
-{{if .Table}}<table><thead><tr>{{range .Table.Header}}<th>{{.}}</th>{{end}}</tr></thead><tbody>
-{{range .Table.Rows}}<tr>{{range .}}<td{{with cls .}} class="{{.}}"{{end}}>{{.}}</td>{{end}}</tr>
-{{end}}</tbody></table>{{end}}{{range .Figures}}{{template "fig" .}}{{end}}{{end}}
-{{if .Files}}<h2>Files in this folder</h2><ul>{{range .Files}}<li><a href="{{.Href}}">{{.Label}}</a></li>{{end}}</ul>{{end}}
-<p class="caution">{{.Caution}}</p>
-</body></html>
-{{define "fig"}}<figure><img alt="{{.Title}}" src="{{png .PNG}}"><figcaption><b>{{.Title}}.</b> {{.Caption}}{{range .Links}} <a href="{{.Href}}">{{.Label}}</a>{{end}}</figcaption></figure>
-{{end}}`))
 
 // WriteIndex writes the self-contained index.html: styles inline, figures
 // embedded as data URIs, every text from the input escaped by html/template.
@@ -106,5 +77,7 @@ func WriteIndex(w io.Writer, ix *Index) error {
 	return indexTmpl.Execute(w, struct {
 		*Index
 		Caution string
-	}{ix, Caution})
+		Band    float64
+		Marks   [3]string
+	}{ix, Caution, assess.NearEquilibriumBand, [3]string{MarkSupersaturated, MarkNearEquilibrium, MarkUndersaturated}})
 }

@@ -16,7 +16,7 @@ import (
 // IsSIColumn reports whether a sample-table header is a mineral's saturation
 // index (ColumnName), not one of the water-engineering indices.
 func IsSIColumn(h string) bool {
-	return strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si"
+	return strings.HasSuffix(h, "_si") && h != "langelier_si" && h != "ryznar_si" && h != "loo_cv_rmse_si"
 }
 
 // ColumnName returns the table column of a mineral's saturation index:
@@ -207,7 +207,10 @@ func (f jsonNum) MarshalJSON() ([]byte, error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return []byte("null"), nil
 	}
-	return strconv.AppendFloat(nil, v, 'g', 8, 64), nil
+	if v == 0 {
+		return []byte("0"), nil // never -0
+	}
+	return strconv.AppendFloat(nil, v, 'g', -1, 64), nil // every digit
 }
 
 type jsonSpecies struct {

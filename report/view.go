@@ -130,7 +130,7 @@ func writeEquilibrium(b *strings.Builder, res *speciation.Result) {
 	tw := tabwriter.NewWriter(b, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "  mineral\tSI\tIAP/K\ttendency")
 	for _, m := range res.Minerals {
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", m.Name, signed(m.SI, 2), Sig(math.Pow(10, m.SI), 2), tendency(m.SI))
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", m.Name, Signed(m.SI, 2), Sig(math.Pow(10, m.SI), 2), tendency(m.SI))
 	}
 	tw.Flush()
 }
@@ -158,15 +158,6 @@ func writeSpecies(b *strings.Builder, res *speciation.Result) {
 		}
 	}
 	tw.Flush()
-}
-
-// signed formats v with a sign and prec decimals, never as -0.00.
-func signed(v float64, prec int) string {
-	s := fmt.Sprintf("%+.*f", prec, v)
-	if strings.Trim(s, "+-0.") == "" {
-		return fmt.Sprintf("%.*f", prec, 0.0)
-	}
-	return s
 }
 
 func plural(n int, one, many string) string {

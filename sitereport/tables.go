@@ -45,28 +45,93 @@ func unplacedNote(st *site.Site) []string {
 	return []string{fmt.Sprintf("Left off the maps (kept in the tables): %s%s.", strings.Join(n, "; "), more)}
 }
 
-// summaryColumns are the columns of the sample table shown in index.html
-// besides the saturation indices.
-var summaryColumns = map[string]bool{"line": true, "sample_id": true, "well_id": true, "round": true, "status": true, "depth_m": true,
-	"temp_c": true, "ph": true, "charge_balance_pct": true, "balance_status": true, "ionic_strength_mol_kgw": true, "log_pco2_atm": true, "langelier_si": true}
+// keyColumns are the columns of the compact key table besides the
+// saturation indices of the key minerals.
+var keyColumns = []string{"sample_id", "well_id", "round", "status", "depth_m", "ph", "charge_balance_pct"}
 
-// summaryTable is the HTML view of the sample table: identification, status,
-// balance and the saturation indices, without the long metadata columns.
-func summaryTable(t *report.Table) *report.Table {
-	var idx []int
-	out := &report.Table{}
-	for i, h := range t.Header {
-		if summaryColumns[h] || report.IsSIColumn(h) {
-			idx = append(idx, i)
-			out.Header = append(out.Header, h)
+// maxKeyMinerals caps the minerals of the key table so that it fits a
+// portrait page.
+const maxKeyMinerals = 7
+
+// keyMinerals are the minerals of the key table: those the maps show (their
+// SI crosses zero on site), else the first of the data.
+func keyMinerals(st *site.Site, all []string) []string {
+	var key []string
+	if st != nil {
+		key = st.Minerals
+	}
+	if len(key) == 0 {
+		key = all
+	}
+	if len(key) > maxKeyMinerals {
+		key = key[:maxKeyMinerals]
+	}
+	return key
+}
+
+// keyTable is the compact table of every sample with the SI of the key
+// minerals.
+func keyTable(t *report.Table, minerals []string) *report.PageTable {
+	cols := append([]string(nil), keyColumns...)
+	for _, m := range minerals {
+		cols = append(cols, report.ColumnName(m))
+	}
+	return report.NewPageTable(t, "", cols)
+}
+
+// analytesPerTable is the number of analytes (three columns each) per printed
+// table.
+const analytesPerTable = 4
+
+// siGroupSize is the number of SI columns per printed table (with the
+// sample id, it fits a landscape page at 6.5 pt).
+const siGroupSize = 9
+
+// fullTables splits the sample table into groups of columns, each with the
+// sample id, and adds the surfaces table and the column report.
+func fullTables(t, surf, cols *report.Table, minerals []string) []*report.PageTable {
+	groups := []report.ColumnGroup{
+		{Caption: "Samples: where and when", Columns: []string{"file", "line", "well_id", "round", "event", "sampled_at", "latitude", "longitude",
+			"easting_m", "northing_m", "epsg", "depth_m", "screen_top_m", "screen_bottom_m", "ground_elev_m"}},
+		{Caption: "Samples: checks", Columns: []string{"status", "reasons", "temp_c", "ph", "ph_source", "tds_mg_l", "density_kg_l", "density_source",
+			"nondetects_substituted", "cations_meq_l", "anions_meq_l", "charge_balance_pct", "balance_status"}},
+		{Caption: "Samples: field readings and redox", Columns: []string{"temp_source", "field_sheet_line", "dissolved_oxygen_mg_l", "eh_mv", "orp_mv", "pe", "pe_source"}},
+		{Caption: "Samples: speciation", Columns: []string{"model", "ionic_strength_mol_kgw", "log_pco2_atm", "charge_balance_speciated_pct",
+			"langelier_si", "ryznar_si", "larson_skold"}},
+	}
+	// Analytes as reported, with their unit and in mg/L, a few to a table.
+	var analytes [][]string
+	for _, h := range t.Header {
+		if k, ok := strings.CutSuffix(h, "_reported"); ok {
+			analytes = append(analytes, []string{h, k + "_unit", k + "_mg_l"})
 		}
 	}
-	for _, r := range t.Rows {
-		row := make([]string, len(idx))
-		for k, i := range idx {
-			row[k] = r[i]
+	for i := 0; i < len(analytes); i += analytesPerTable {
+		j := min(i+analytesPerTable, len(analytes))
+		var cols []string
+		for _, a := range analytes[i:j] {
+			cols = append(cols, a...)
 		}
-		out.Rows = append(out.Rows, row)
+		groups = append(groups, report.ColumnGroup{Caption: fmt.Sprintf("Samples: analytes as reported and in mg/L (%d of %d)", i/analytesPerTable+1, (len(analytes)+analytesPerTable-1)/analytesPerTable), Columns: cols})
+	}
+	var si []string
+	for _, m := range minerals {
+		si = append(si, report.ColumnName(m))
+	}
+	for i := 0; i < len(si); i += siGroupSize {
+		j := min(i+siGroupSize, len(si))
+		groups = append(groups, report.ColumnGroup{Caption: fmt.Sprintf("Samples: saturation indices (%d of %d)", i/siGroupSize+1, (len(si)+siGroupSize-1)/siGroupSize), Columns: si[i:j]})
+	}
+	out := report.SplitColumns(t, []string{"sample_id"}, groups, "Samples: other input columns, as read")
+	if len(surf.Rows) > 0 {
+		pt := report.NewPageTable(surf, "Interpolated surfaces of the maps (surfaces.csv)", nil)
+		pt.Wide = true
+		out = append(out, pt)
+	}
+	if len(cols.Rows) > 0 {
+		pt := report.NewPageTable(cols, "How each input column was read (columns.csv)", nil)
+		pt.Wide = true
+		out = append(out, pt)
 	}
 	return out
 }

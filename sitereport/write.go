@@ -7,13 +7,10 @@ import (
 	"io"
 	"os"
 	"path/filepath"
-	"runtime"
 	"strings"
-	"sync"
 	"time"
 
 	"gwsat.dev/gwsat/assess"
-	"gwsat.dev/gwsat/figure"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/inject"
 	"gwsat.dev/gwsat/internal/atomicfile"
@@ -29,17 +26,39 @@ type Options struct {
 	Batches []*hydro.Batch  // the files read, for the column report
 	Records []assess.Record // the assessed rows, in input order
 	DB      *speciation.Database
-	Model   speciation.ActivityModel
-	Site    site.Options
+	// Model is the activity model the rows were solved with; nil means assess
+	// chose per row (assess.Options.Model nil), and the injection section's
+	// blends then use Truesdell-Jones.
+	Model speciation.ActivityModel
+	Site  site.Options
 	// Inject chooses the injection-planning section (end-members by sample id or
 	// sample type); the section is left out when no end-members are found.
 	Inject inject.SectionOptions
-	// Formats of the figures ("png", "svg", "pdf"); PNG is always written, the page
-	// embeds it.
+	// Formats of the figures ("png", "svg", "pdf"); PNG is always written (at
+	// figure.PNGDPI, with a ScreenDPI copy embedded in the page).
 	Formats []string
 	// Progress, when not nil, is called after each figure is drawn with the count
 	// done and the total.
 	Progress func(done, total int)
+
+	// CommandLine is the command that made the report, recorded in the methods
+	// section and methods.json so that a reader can run it again.
+	CommandLine []string
+	// InputSHA256 maps an input's name (Batch.File) to its SHA-256 checksum
+	// (FileSHA256); inputs without one are listed without.
+	InputSHA256 map[string]string
+	// NonDetect is the policy the inputs were read with (hydro.Options), for
+	// the methods section.
+	NonDetect hydro.NonDetectPolicy
+	// Findings are the conclusions shown first on the page (none: the page
+	// says so).
+	Findings []string
+	// AllowOtherFiles lets the report go into a folder that holds files gwsat
+	// did not write (they are left alone). Without it such a folder is refused
+	// with ErrOtherFiles.
+	AllowOtherFiles bool
+	// Now, when not nil, gives the time written into the report (tests fix it).
+	Now func() time.Time
 }
 
 // Outcome is what Write did.
@@ -52,6 +71,9 @@ type Outcome struct {
 	// Notes are non-fatal remarks to show the user (e.g. why no surface was drawn).
 	Notes   []string
 	Summary *assess.Summary
+	// Written lists the files written, relative to the folder (slash-separated),
+	// as the manifest records them.
+	Written []string
 }
 
 // staleAfter is the age beyond which a temporary file of ours in the report
@@ -60,17 +82,29 @@ type Outcome struct {
 const staleAfter = time.Hour
 
 // Files written by Write besides index.html and the figures.
-var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv"}
+var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv", "methods.json"}
 
 // Write computes the site figures and the injection-planning section, then
-// writes the folder. Nothing is written when an argument is wrong. A figure that
-// cannot be drawn is reported in Outcome.FigureErrors and left out of the page.
+// writes the folder. Nothing is written when an argument is wrong or when the
+// folder holds files gwsat did not write (ErrOtherFiles, unless
+// AllowOtherFiles). A figure that cannot be drawn is reported in
+// Outcome.FigureErrors and left out of the page. The folder's manifest
+// (ManifestName) lists what was written; files an earlier run listed and this
+// one did not write are removed, and no other file is touched.
 func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
+	auto := opt.Model == nil // rows solved with the automatic choice (assess.Options.Model)
 	if opt.Model == nil {
 		opt.Model = speciation.TruesdellJones{}
 	}
+	if opt.Now == nil {
+		opt.Now = time.Now
+	}
 	fmts, err := Formats(opt.Formats)
 	if err != nil {
+		return nil, err
+	}
+	// Refuse a folder of someone else's files before any work.
+	if _, err := checkFolder(opt.Dir, opt.AllowOtherFiles); err != nil {
 		return nil, err
 	}
 	recs := opt.Records
@@ -92,7 +126,11 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	}
 	figs := append([]report.Fig(nil), st.Figures...)
 	var sections []report.Section
-	sec, mfigs, err := inject.NewPlanner(opt.DB, opt.Model, recs).Section(opt.Inject)
+	inj := opt.Inject
+	if inj.Minerals == nil && st != nil {
+		inj.Minerals = st.Minerals // the blend figures show what the maps show
+	}
+	sec, mfigs, err := inject.NewPlanner(opt.DB, opt.Model, recs).Section(inj)
 	if err != nil {
 		return nil, fmt.Errorf("injection planning: %w", err)
 	}
@@ -117,6 +155,12 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 			err = rerr
 		}
 	}()
+	// Under the lock, the authoritative check: another run may have written in
+	// the meantime.
+	listed, err := checkFolder(opt.Dir, opt.AllowOtherFiles)
+	if err != nil {
+		return nil, err
+	}
 	for _, d := range []string{opt.Dir, filepath.Join(opt.Dir, "figures")} {
 		// Temporary files a killed run left behind (our own names only).
 		if _, err := atomicfile.CleanStale(d, staleAfter); err != nil {
@@ -125,44 +169,61 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	}
 	uniqueStems(figs)
 	tbl := report.SampleTable(recs, report.ColumnsFor(opt.Batches, all))
+	surf := surfacesTable(st)
+	cols := MappingTable(opt.Batches)
+	now := opt.Now()
+	methods := buildMethods(opt, st, now, auto)
 	write := func(name string, fill func(w io.Writer) error) error {
+		out.Written = append(out.Written, name)
 		return atomicfile.WriteWith(filepath.Join(opt.Dir, name), fill)
 	}
 	if err := errors.Join(
 		write("samples.csv", tbl.WriteCSV),
 		write("samples.json", func(w io.Writer) error { return report.WriteJSON(w, recs) }),
-		write("columns.csv", MappingTable(opt.Batches).WriteCSV),
-		write("surfaces.csv", surfacesTable(st).WriteCSV),
+		write("columns.csv", cols.WriteCSV),
+		write("surfaces.csv", surf.WriteCSV),
 		write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }),
+		write("methods.json", func(w io.Writer) error { return report.WriteMethodsJSON(w, methods) }),
 	); err != nil {
 		return nil, err
 	}
+	// HOOK (GIS layers): when package site provides site.WriteLayers(dir, st),
+	// call it here and add the files it names to out.Written, so that the
+	// manifest lists them and a later run replaces them.
 
 	rendered, ferrs := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
 	out.FigureErrors = ferrs
 	out.Figures = len(figs) - len(ferrs)
-	if err := removeOldFigures(filepath.Join(opt.Dir, "figures"), figs, fmts); err != nil {
-		out.Notes = append(out.Notes, err.Error())
+	for _, f := range figs {
+		// Listed even when drawing failed: a partly written figure is ours.
+		for _, format := range fmts {
+			out.Written = append(out.Written, "figures/"+f.Stem+"."+format)
+		}
 	}
 	out.Summary = assess.Summarise(batchFiles(opt.Batches), recs)
-	ix := &report.Index{
-		Title:     "gwsat report: saturation screening",
-		Generated: fmt.Sprintf("Made by gwsat on %s with the %s activity model.", time.Now().UTC().Format("2006-01-02 15:04 UTC"), opt.Model.Name()),
-		Table:     summaryTable(tbl),
-		Figures:   rendered[:len(st.Figures)],
-		Notes:     append(append([]string(nil), st.Notes...), unplacedNote(st)...),
-		Sections:  sections,
-		Inputs:    batchFiles(opt.Batches),
-	}
 	for i := range sections {
 		n := len(sections[i].Figures)
 		sections[i].Figures = rendered[len(st.Figures) : len(st.Figures)+n]
+	}
+	key := keyMinerals(st, all)
+	ix := &report.Index{
+		Title:       "gwsat report: saturation screening",
+		Generated:   fmt.Sprintf("Made by gwsat on %s; activity model: %s.", now.UTC().Format("2006-01-02 15:04 UTC"), modelWords(methods)),
+		Findings:    opt.Findings,
+		KeyMinerals: key,
+		KeyTable:    keyTable(tbl, key),
+		Figures:     rendered[:len(st.Figures)],
+		Notes:       append(append([]string(nil), st.Notes...), unplacedNote(st)...),
+		Sections:    sections,
+		Inputs:      batchFiles(opt.Batches),
+		Methods:     methods,
+		Tables:      fullTables(tbl, surf, cols, all),
 	}
 	ix.Counts = []report.Link{{Label: out.Summary.StatusLine()}, {Label: out.Summary.BalanceLine()}}
 	for i := range recs {
 		r := &recs[i]
 		if r.Status != hydro.StatusOK {
-			ix.QA = append(ix.QA, fmt.Sprintf("%s line %d, sample %s (%s): %s", r.File, r.Row.Line, r.Sample().ID, r.Status, r.FirstProblem()))
+			ix.QA = append(ix.QA, qaLine(r))
 		}
 	}
 	for _, f := range tableFiles {
@@ -172,7 +233,31 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		return nil, err
 	}
 	out.Index = filepath.Join(opt.Dir, "index.html")
+	if err := removeStale(opt.Dir, listed, out.Written); err != nil {
+		out.Notes = append(out.Notes, err.Error())
+	}
+	if err := writeManifest(opt.Dir, out.Written); err != nil {
+		return nil, err
+	}
 	return out, nil
+}
+
+// modelWords names the activity model for the page's first lines.
+func modelWords(m *report.Methods) string {
+	if strings.HasPrefix(m.Activity.Name, "automatic") {
+		return "chosen per row (see methods)"
+	}
+	return m.Activity.Name
+}
+
+// qaLine words a row that is not ok: where it is, its status, and its first
+// problem (without the severity word, which the status already gives).
+func qaLine(r *assess.Record) string {
+	p := r.FirstProblem()
+	for _, sev := range []string{"error: ", "warning: ", "info: "} {
+		p = strings.TrimPrefix(p, sev)
+	}
+	return fmt.Sprintf("%s line %d, sample %s, %s: %s", r.File, r.Row.Line, r.Sample().ID, r.Status, p)
 }
 
 func batchFiles(bs []*hydro.Batch) []string {
@@ -204,114 +289,4 @@ func Formats(list []string) ([]string, error) {
 		out = append(out, "png")
 	}
 	return out, nil
-}
-
-// renderFigures draws every figure in every format, in parallel, and returns
-// what index.html shows and the figures that failed.
-func renderFigures(ctx context.Context, dir string, figs []report.Fig, fmts []string, progress func(done, total int)) ([]report.IndexFigure, []error) {
-	out := make([]report.IndexFigure, len(figs))
-	errs := make([]error, len(figs))
-	var mu sync.Mutex
-	done := 0
-	jobs := make(chan int)
-	var wg sync.WaitGroup
-	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range jobs {
-				errs[i] = renderOne(dir, figs[i], fmts, &out[i])
-				mu.Lock()
-				done++
-				if progress != nil {
-					progress(done, len(figs))
-				}
-				mu.Unlock()
-			}
-		}()
-	}
-feed:
-	for i := range figs {
-		select {
-		case jobs <- i:
-		case <-ctx.Done():
-			errs[i] = ctx.Err()
-			break feed
-		}
-	}
-	close(jobs)
-	wg.Wait()
-	var failed []error
-	for i := range figs {
-		if errs[i] != nil {
-			failed = append(failed, errs[i])
-			out[i].Caption += " (This figure could not be drawn: " + errs[i].Error() + ")"
-		}
-	}
-	return out, failed
-}
-
-func renderOne(dir string, f report.Fig, fmts []string, out *report.IndexFigure) error {
-	*out = report.IndexFigure{Title: f.Title, Caption: f.Caption}
-	for _, format := range fmts {
-		b, err := figure.Render(f.Figure, format, f.W, f.H)
-		if err != nil {
-			return fmt.Errorf("figure %s: %w", f.Stem, err)
-		}
-		name := filepath.Join("figures", f.Stem+"."+format)
-		if err := atomicfile.WriteFile(filepath.Join(dir, name), b); err != nil {
-			return err
-		}
-		if format == "png" {
-			out.PNG = b
-		}
-		out.Links = append(out.Links, report.Link{Label: strings.ToUpper(format), Href: name})
-	}
-	return nil
-}
-
-// uniqueStems gives figures whose file names would clash (two clusters whose
-// names reduce to the same letters) a numbered suffix.
-func uniqueStems(figs []report.Fig) {
-	seen := map[string]int{}
-	for i := range figs {
-		stem := figs[i].Stem
-		seen[stem]++
-		if n := seen[stem]; n > 1 {
-			figs[i].Stem = fmt.Sprintf("%s_%d", stem, n)
-		}
-	}
-}
-
-// figurePrefixes are the file-name prefixes of the figures Write draws.
-var figurePrefixes = []string{"map_", "profile_", "blend_", "warm_", "deposit_", "piper", "redox_"}
-
-// removeOldFigures deletes the figures an earlier report left in dir, so that a
-// figure no longer drawn (another mineral, zone or cluster) does not linger
-// beside the new ones. Only gwsat's own file names are touched, and never those
-// just written.
-func removeOldFigures(dir string, figs []report.Fig, fmts []string) error {
-	keep := map[string]bool{}
-	for _, f := range figs {
-		for _, ext := range fmts {
-			keep[f.Stem+"."+ext] = true
-		}
-	}
-	var errs []error
-	for _, prefix := range figurePrefixes {
-		for _, ext := range []string{"png", "svg", "pdf"} {
-			old, err := filepath.Glob(filepath.Join(dir, prefix+"*."+ext))
-			if err != nil {
-				return err
-			}
-			for _, f := range old {
-				if !keep[filepath.Base(f)] {
-					if err := os.Remove(f); err != nil {
-						errs = append(errs, err)
-					}
-				}
-			}
-		}
-	}
-	return errors.Join(errs...)
 }

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"math"
 	"os"
@@ -9,9 +10,11 @@ import (
 	"strings"
 
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 
 	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/geo"
+	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/inject"
 	"gwsat.dev/gwsat/internal/progress"
 	"gwsat.dev/gwsat/site"
@@ -33,6 +36,7 @@ func reportCmd(e *env) *cobra.Command {
 	var in inputFlags
 	var oc outcomeFlags
 	var out, siteFile, minerals, method, zones, profileRound, cluster, formats string
+	var allowOther bool
 	var sec sectionFlags
 	c := &cobra.Command{
 		Use:   "report --out DIR [flags] FILE.csv ... | --demo",
@@ -68,7 +72,15 @@ func reportCmd(e *env) *cobra.Command {
 			if err := g.set.AddOutputDir(out); err != nil {
 				return usageErr(err)
 			}
+			nd, err := hydro.ParseNonDetectPolicy(in.nondetect)
+			if err != nil {
+				return usagef("--nondetect: %w", err)
+			}
 			batches, recs, ch, err := in.assessAll(e, args, true)
+			if err != nil {
+				return usageErr(err)
+			}
+			sums, err := inputChecksums(batches, in.demo)
 			if err != nil {
 				return usageErr(err)
 			}
@@ -77,19 +89,30 @@ func reportCmd(e *env) *cobra.Command {
 				return usagef("--minerals: %w", err)
 			}
 			bar := progress.New(stderrFile(e), "drawing figures", 0)
+			progressFn := func(done, total int) {
+				if done == 1 {
+					bar = progress.New(stderrFile(e), "drawing figures", total)
+				}
+				bar.Add(1)
+			}
+			if oc.quiet {
+				progressFn = nil
+			}
 			oc2, err := sitereport.Write(e.ctx, sitereport.Options{
 				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model,
-				Site:    site.Options{Minerals: chosen, Method: method, Features: feats, BandEdges: edges, ProfileRound: profileRound, ClusterColumn: cluster},
-				Inject:  so,
-				Formats: fmts,
-				Progress: func(done, total int) {
-					if done == 1 {
-						bar = progress.New(stderrFile(e), "drawing figures", total)
-					}
-					bar.Add(1)
-				},
+				Site:            site.Options{Minerals: chosen, Method: method, Features: feats, BandEdges: edges, ProfileRound: profileRound, ClusterColumn: cluster},
+				Inject:          so,
+				Formats:         fmts,
+				Progress:        progressFn,
+				CommandLine:     commandLine(c, args),
+				InputSHA256:     sums,
+				NonDetect:       nd,
+				AllowOtherFiles: allowOther,
 			})
 			bar.Done()
+			if errors.Is(err, sitereport.ErrOtherFiles) {
+				return usagef("%w, or add --allow-other-files to write beside them (they are left alone)", err)
+			}
 			if err != nil {
 				return failed(err)
 			}
@@ -106,7 +129,7 @@ func reportCmd(e *env) *cobra.Command {
 				fmt.Fprintf(e.stderr, "  report: %s (%d %s; open index.html)\n", oc2.Index, oc2.Figures, plural(oc2.Figures, "figure", "figures"))
 			}
 			if len(oc2.FigureErrors) > 0 {
-				return failed(fmt.Errorf("%d figure(s) could not be drawn or written (see above)", len(oc2.FigureErrors)))
+				return failed(fmt.Errorf("%d %s could not be drawn or written (see above)", len(oc2.FigureErrors), plural(len(oc2.FigureErrors), "figure", "figures")))
 			}
 			return oc.verdict(oc2.Summary)
 		},
@@ -115,14 +138,15 @@ func reportCmd(e *env) *cobra.Command {
 	interspersed(f)
 	in.register(f)
 	oc.register(c)
-	f.StringVarP(&out, "out", "o", "gwsat-report", "output folder (created if needed; its files are replaced)")
+	f.StringVarP(&out, "out", "o", "gwsat-report", "output folder (created if needed); a later report replaces only the files the earlier one listed in "+sitereport.ManifestName)
+	f.BoolVar(&allowOther, "allow-other-files", false, "write into an output folder that holds files gwsat did not write (they are left alone; without this flag such a folder is refused)")
 	f.StringVar(&siteFile, "site", "", "GeoJSON file of site features (boundary, river, injection wells) drawn on every map")
 	f.StringVar(&minerals, "minerals", "", "comma-separated minerals to map (default: those whose SI crosses zero on site)")
 	f.StringVar(&method, "method", "kriging", "interpolation: kriging (ordinary kriging, fitted variogram) or idw")
 	f.StringVar(&zones, "zones", "", "depth-zone edges in m below ground, e.g. 0,55,90,200 (default: found from gaps in the depths)")
 	f.StringVar(&profileRound, "profile-round", "", "sampling round shown in depth profiles (default: the last)")
 	f.StringVar(&cluster, "cluster", "Cluster", "input column grouping wells into clusters, one depth-profile figure each")
-	f.StringVar(&formats, "formats", "png,svg,pdf", "figure formats to write (PNG is always written: the page embeds it)")
+	f.StringVar(&formats, "formats", "png", "figure files to write: png (300 dpi), svg, pdf, comma-separated; PNG is always written, and index.html embeds a 96 dpi copy")
 	sec.register(c)
 	return c
 }
@@ -131,6 +155,7 @@ func reportCmd(e *env) *cobra.Command {
 type sectionFlags struct {
 	injectate, native string
 	aquiferTemp       float64
+	noCrossFlow       bool
 	well              inject.Well
 }
 
@@ -138,9 +163,10 @@ func (s *sectionFlags) register(c *cobra.Command) {
 	f := c.Flags()
 	w := inject.DefaultWell()
 	f.StringVar(&s.injectate, "injectate", "", "sample id of the injectate (default: the first row whose sample type is injectate; demo: "+demoInjectate+")")
-	f.StringVar(&s.native, "native", "", "sample id of the native groundwater (default: the first row whose sample type is native; demo: "+demoNative+")")
-	f.Float64Var(&s.aquiferTemp, "aquifer-temp", math.NaN(), "aquifer temperature for the blends, C (default: the native water's)")
-	f.Lookup("aquifer-temp").DefValue = "the native water's"
+	f.StringVar(&s.native, "native", "", "sample id of a native groundwater to evaluate besides every row whose sample type is native (one per zone; demo: "+demoNative+", "+demoDeep+" and the shallow zone's)")
+	f.Float64Var(&s.aquiferTemp, "aquifer-temp", math.NaN(), "temperature of the blends of the injectate with the native waters, C")
+	f.Lookup("aquifer-temp").DefValue = "each native water's own"
+	f.BoolVar(&s.noCrossFlow, "no-cross-flow", false, "leave out the blends of native waters of adjacent zones (cross-flow along a screen open to both)")
 	f.Float64Var(&s.well.RateM3PerDay, "rate", w.RateM3PerDay, "injection rate for the pore-filling screen, m3/day")
 	f.Float64Var(&s.well.ScreenLengthM, "screen", w.ScreenLengthM, "screen length for the pore-filling screen, m")
 	f.Float64Var(&s.well.Porosity, "porosity", w.Porosity, "aquifer porosity for the pore-filling screen")
@@ -156,7 +182,7 @@ func (s *sectionFlags) options() (inject.SectionOptions, error) {
 			return inject.SectionOptions{}, fmt.Errorf("--aquifer-temp: %w", err)
 		}
 	}
-	return inject.SectionOptions{Injectate: s.injectate, Native: s.native, AquiferTempC: s.aquiferTemp, Well: s.well}, nil
+	return inject.SectionOptions{Injectate: s.injectate, Native: s.native, AquiferTempC: s.aquiferTemp, Well: s.well, NoCrossFlow: s.noCrossFlow}, nil
 }
 
 // siteFeatures reads the site-feature file, or the demo's.
@@ -199,3 +225,57 @@ func plural(n int, one, many string) string {
 }
 
 func itoa(n int) string { return strconv.Itoa(n) }
+
+// commandLine is the command as parsed, for the report's methods section: the
+// command path, every flag that was set (in --name=value form, quoted for a
+// POSIX shell where needed) and the arguments. Flags left at their default
+// are omitted; running the line again gives the same report.
+func commandLine(c *cobra.Command, args []string) []string {
+	out := strings.Fields(c.CommandPath())
+	c.Flags().Visit(func(f *pflag.Flag) {
+		if f.Value.Type() == "bool" {
+			out = append(out, "--"+f.Name+"="+f.Value.String())
+			return
+		}
+		out = append(out, shellQuote("--"+f.Name+"="+f.Value.String()))
+	})
+	for _, a := range args {
+		out = append(out, shellQuote(a))
+	}
+	return out
+}
+
+// shellQuote quotes s for a POSIX shell when it holds anything but letters,
+// digits and a few safe characters.
+func shellQuote(s string) string {
+	if s != "" && strings.Trim(s, "abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ0123456789-_=.,/:+@%") == "" {
+		return s
+	}
+	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
+}
+
+// inputChecksums are the SHA-256 checksums of the inputs, keyed by the name
+// each batch carries: the files named on the command line, or the embedded
+// demo. Standard input has none.
+func inputChecksums(batches []*hydro.Batch, demo bool) (map[string]string, error) {
+	out := map[string]string{}
+	if demo {
+		raw, err := data.Demo().ReadFile(DemoFile)
+		if err != nil {
+			return nil, err
+		}
+		out[DemoFile] = sitereport.BytesSHA256(raw)
+		return out, nil
+	}
+	for _, b := range batches {
+		if b.File == "<stdin>" {
+			continue
+		}
+		sum, err := sitereport.FileSHA256(b.File)
+		if err != nil {
+			return nil, err
+		}
+		out[b.File] = sum
+	}
+	return out, nil
+}
