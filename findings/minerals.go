@@ -10,15 +10,24 @@ import (
 // systems (common practice): carbonate, sulfate and iron carbonate scales.
 var scaleMinerals = []string{"calcite", "gypsum", "baryte", "celestine", "siderite"}
 
-// oxideMinerals are iron and manganese (hydr)oxides that clog wells where
-// oxygenated water meets reduced groundwater (common practice); they are
-// mapped when the database has them.
-var oxideMinerals = []string{"ferrihydrite", "goethite", "lepidocrocite", "hematite", "birnessite", "pyrolusite", "manganite", "hausmannite"}
+// oxideMinerals are the iron and manganese (hydr)oxides that form first, and
+// clog wells, where oxygenated water meets reduced groundwater: ferrihydrite
+// and birnessite-type MnO2 (Cornell & Schwertmann 2003; from memory). The
+// more stable oxides (goethite, hematite, pyrolusite, manganite) form slowly;
+// their SIs stay in the tables, and they are mapped only when supersaturated
+// with confidence (see DefaultMinerals).
+var oxideMinerals = []string{"ferrihydrite", "birnessite"}
+
+// stableOxides are oxides that form too slowly at aquifer temperatures to
+// deposit in a well's life (common practice); like the slow silica and
+// carbonate phases, they are not mapped by default even when supersaturated.
+var stableOxides = []string{"goethite", "hematite", "pyrolusite", "manganite", "lepidocrocite", "hausmannite", "pyrite"}
 
 // DefaultMinerals returns the minerals to map and profile: the scale
-// minerals and the oxides the database has, then every mineral
-// supersaturated with confidence in f (f may be nil), without repeats, as
-// the database names them.
+// minerals and the first-forming oxides the database has, then every mineral
+// supersaturated with confidence in f (f may be nil) that is not slow to form
+// (quartz, dolomite, magnesite, the stable oxides), without repeats, as the
+// database names them.
 func DefaultMinerals(db *speciation.Database, f *Findings) []string {
 	var out []string
 	add := func(name string) {
@@ -36,6 +45,9 @@ func DefaultMinerals(db *speciation.Database, f *Findings) []string {
 	}
 	if f != nil {
 		for _, n := range f.Supersaturated {
+			if slices.Contains(slowMinerals, n) || slices.Contains(stableOxides, n) {
+				continue // supersaturated but slow to form: named in the findings, not mapped
+			}
 			add(n)
 		}
 	}

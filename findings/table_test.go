@@ -53,16 +53,18 @@ func TestFindingsTable(t *testing.T) {
 	}
 }
 
-// The default minerals are the scale minerals the database has, then the
-// minerals supersaturated with confidence, each once.
+// The default minerals are the scale minerals the database has, the
+// first-forming oxides, then the minerals supersaturated with confidence, each
+// once, except those slow to form.
 func TestDefaultMinerals(t *testing.T) {
 	db, err := speciation.Default()
 	if err != nil {
 		t.Fatal(err)
 	}
-	got := DefaultMinerals(db, &Findings{Supersaturated: []string{"baryte", "quartz"}})
-	if !slices.Equal(got[:5], scaleMinerals) || got[len(got)-1] != "quartz" || slices.Index(got, "baryte") != 2 {
-		t.Errorf("DefaultMinerals = %v", got)
+	got := DefaultMinerals(db, &Findings{Supersaturated: []string{"baryte", "quartz", "fluorite", "goethite"}})
+	want := []string{"calcite", "gypsum", "baryte", "celestine", "siderite", "ferrihydrite", "birnessite", "fluorite"}
+	if !slices.Equal(got, want) {
+		t.Errorf("DefaultMinerals = %v, want %v", got, want)
 	}
 	if plain := DefaultMinerals(db, nil); len(plain) < len(scaleMinerals) {
 		t.Errorf("without findings: %v", plain)

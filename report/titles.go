@@ -60,6 +60,7 @@ var columnTitles = map[string]string{
 	"method":         "Interpolation",
 	"wells":          "Wells",
 	"loo_cv_rmse_si": "Leave-one-out error (RMSE, SI units)",
+	"surface_drawn":  "Surface drawn",
 	"note":           "Note",
 	// Injection planning.
 	"injectate_share":        "Injectate share (by mass of water)",

@@ -22,12 +22,12 @@ func MappingTable(batches []*hydro.Batch) *report.Table {
 }
 
 func surfacesTable(st *site.Site) *report.Table {
-	t := &report.Table{Header: []string{"mineral", "depth_zone", "round", "method", "wells", "loo_cv_rmse_si", "note"}}
+	t := &report.Table{Header: []string{"mineral", "depth_zone", "round", "method", "wells", "loo_cv_rmse_si", "surface_drawn", "note"}}
 	if st == nil {
 		return t
 	}
 	for _, s := range st.Surfaces {
-		t.Add(s.Mineral, report.Text(s.Zone), report.Text(s.Round), s.Method, strconv.Itoa(s.Wells), report.Cond(s.HasCV, report.Num(s.CVRMSE, 3)), report.Text(s.Note))
+		t.Add(s.Mineral, report.Text(s.Zone), report.Text(s.Round), s.Method, strconv.Itoa(s.Wells), report.Cond(s.HasCV, report.Num(s.CVRMSE, 3)), yesNo(s.Drawn), report.Text(s.Note))
 	}
 	return t
 }
@@ -134,4 +134,11 @@ func fullTables(t, surf, cols *report.Table, minerals []string) []*report.PageTa
 		out = append(out, pt)
 	}
 	return out
+}
+
+func yesNo(b bool) string {
+	if b {
+		return "yes"
+	}
+	return "no"
 }

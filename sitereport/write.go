@@ -5,12 +5,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"strings"
 	"time"
 
 	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/findings"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/inject"
 	"gwsat.dev/gwsat/internal/atomicfile"
@@ -18,6 +20,7 @@ import (
 	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/site"
 	"gwsat.dev/gwsat/speciation"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // Options describe a report folder.
@@ -82,7 +85,7 @@ type Outcome struct {
 const staleAfter = time.Hour
 
 // Files written by Write besides index.html and the figures.
-var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv", "methods.json"}
+var tableFiles = []string{"samples.csv", "samples.json", "samples.geojson", "columns.csv", "surfaces.csv", "methods.json", "findings.csv", "trends.csv"}
 
 // Write computes the site figures and the injection-planning section, then
 // writes the folder. Nothing is written when an argument is wrong or when the
@@ -112,6 +115,19 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	out := &Outcome{}
 	so := opt.Site
 	so.Model = opt.Model.Name()
+	// The findings come first: SI intervals (the linear estimate, fast), the
+	// trends per well and the plain-words conclusions; their minerals are the
+	// default ones to map.
+	fnd, err := buildFindings(ctx, opt, recs, all)
+	if err != nil {
+		return nil, fmt.Errorf("findings: %w", err)
+	}
+	if so.Minerals == nil {
+		so.Minerals = findings.DefaultMinerals(opt.DB, fnd.f)
+	}
+	if len(opt.Findings) == 0 {
+		opt.Findings = fnd.f.Lines()
+	}
 	st, err := site.Build(recs, all, so)
 	if err != nil {
 		out.Notes = append(out.Notes, err.Error())
@@ -124,6 +140,8 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	} else if ok {
 		st.Figures = append(st.Figures, ef)
 	}
+	st.Figures = append(st.Figures, findings.StiffFigures(recs)...)
+	st.Figures = append(st.Figures, findings.SITimeFigures(recs, fnd.samples, fnd.trends, st.Minerals, uncertainty.DefaultBand)...)
 	figs := append([]report.Fig(nil), st.Figures...)
 	var sections []report.Section
 	inj := opt.Inject
@@ -184,12 +202,26 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		write("surfaces.csv", surf.WriteCSV),
 		write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }),
 		write("methods.json", func(w io.Writer) error { return report.WriteMethodsJSON(w, methods) }),
+		write("findings.csv", fnd.f.Table().WriteCSV),
+		write("trends.csv", findings.TrendTable(fnd.trends).WriteCSV),
 	); err != nil {
 		return nil, err
 	}
-	// HOOK (GIS layers): when package site provides site.WriteLayers(dir, st),
-	// call it here and add the files it names to out.Written, so that the
-	// manifest lists them and a later run replaces them.
+	// GIS layers of the surfaces: GeoTIFF rasters and GeoJSON lines and bands.
+	if _, err := atomicfile.CleanStale(filepath.Join(opt.Dir, "gis"), staleAfter); err != nil && !errors.Is(err, fs.ErrNotExist) {
+		out.Notes = append(out.Notes, err.Error())
+	}
+	gis, err := site.WriteLayers(filepath.Join(opt.Dir, "gis"), st)
+	if err != nil {
+		return nil, fmt.Errorf("GIS layers: %w", err)
+	}
+	for _, g := range gis {
+		rel, rerr := filepath.Rel(opt.Dir, g)
+		if rerr != nil {
+			rel = filepath.Join("gis", filepath.Base(g))
+		}
+		out.Written = append(out.Written, filepath.ToSlash(rel))
+	}
 
 	rendered, ferrs := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
 	out.FigureErrors = ferrs
@@ -228,6 +260,11 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	}
 	for _, f := range tableFiles {
 		ix.Files = append(ix.Files, report.Link{Label: f, Href: f})
+	}
+	for _, w := range out.Written {
+		if strings.HasPrefix(w, "gis/") {
+			ix.Files = append(ix.Files, report.Link{Label: w, Href: w})
+		}
 	}
 	if err := write("index.html", func(w io.Writer) error { return report.WriteIndex(w, ix) }); err != nil {
 		return nil, err

@@ -49,6 +49,7 @@ func checkCmd(e *env) *cobra.Command {
 			"standard error. Rejected rows are reported, and the command still exits 0 (see --fail-on-rejected).\n" +
 			"Rows stream through: memory does not grow with the number of rows.",
 		RunE: func(c *cobra.Command, args []string) error {
+			e.quiet = oc.quiet
 			var g guard
 			if err := g.inputs(args); err != nil {
 				return err
@@ -188,14 +189,14 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		printColumns(e.stderr, final)
 	}
 	if l := off.line(); l != "" {
-		e.printLines([]string{l})
+		e.notes([]string{l})
 	}
 	for _, x := range ins {
 		var l []string
 		for _, is := range x.sc.FileIssues() {
 			l = append(l, fmt.Sprintf("gwsat: %s: %s", x.meta.File, is))
 		}
-		e.printLines(limitList(l, 10))
+		e.notes(limitList(l, 10))
 	}
 	if !oc.quiet {
 		if err := e.writeSummary(sum); err != nil {

@@ -45,7 +45,7 @@ func findingsCmd(e *env) *cobra.Command {
 			"plain words on standard output: per mineral supersaturated with confidence, where (cluster and depth\n" +
 			"zone), how strongly, since when and the trend; minerals near equilibrium; minerals undersaturated\n" +
 			"everywhere; water types. --out writes the same as a table (one row per mineral and group).",
-		RunE: func(c *cobra.Command, args []string) error { return runFindings(e, &in, &ff, args) },
+		RunE: func(c *cobra.Command, args []string) error { e.quiet = ff.quiet; return runFindings(e, &in, &ff, args) },
 	}
 	interspersed(c.Flags())
 	in.register(c.Flags())

@@ -61,6 +61,7 @@ func (p *planFlags) register(c *cobra.Command, withFigure bool) {
 // planner checks the outputs against the inputs, reads and assesses the input
 // and returns a planner. extra are the command's other output files.
 func (p *planFlags) planner(e *env, args []string, extra ...string) (*inject.Planner, error) {
+	e.quiet = p.quiet
 	var g guard
 	if err := g.inputs(args); err != nil {
 		return nil, err

@@ -187,16 +187,16 @@ func (f *inputFlags) joinField(e *env, batches []*hydro.Batch, opt hydro.Options
 		for _, i := range j.UnmatchedLab {
 			lines = append(lines, fmt.Sprintf("%s line %d (%s)", b.File, b.Rows[i].Line, b.Rows[i].Sample.ID))
 		}
-		e.printLines([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, j.Joined)})
+		e.notes([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, j.Joined)})
 		if len(lines) > 0 {
-			e.printLines([]string{fmt.Sprintf("  %d lab rows without field values: %s", len(lines), strings.Join(limitList(lines, 5), "; "))})
+			e.notes([]string{fmt.Sprintf("  %d lab rows without field values: %s", len(lines), strings.Join(limitList(lines, 5), "; "))})
 		}
 		if len(j.UnmatchedField) > 0 {
 			var fl []string
 			for _, r := range j.UnmatchedField {
 				fl = append(fl, fmt.Sprintf("line %d (%s)", r.Line, r.Sample.ID))
 			}
-			e.printLines([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
+			e.notes([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
 		}
 	}
 	return nil
@@ -431,20 +431,20 @@ func printJoin(e *env, ins []*labInput, name string) {
 		if in.field == nil {
 			continue
 		}
-		e.printLines([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, in.field.Joined)})
+		e.notes([]string{fmt.Sprintf("gwsat: field sheet %s: %d lab rows took field values", name, in.field.Joined)})
 		if in.nUnmatched > 0 {
 			l := in.unmatched
 			if in.nUnmatched > len(l) {
 				l = append(l, fmt.Sprintf("and %d more", in.nUnmatched-len(l)))
 			}
-			e.printLines([]string{fmt.Sprintf("  %d lab rows without field values: %s", in.nUnmatched, strings.Join(l, "; "))})
+			e.notes([]string{fmt.Sprintf("  %d lab rows without field values: %s", in.nUnmatched, strings.Join(l, "; "))})
 		}
 		if um := in.field.Unmatched(); len(um) > 0 {
 			var fl []string
 			for _, r := range um {
 				fl = append(fl, fmt.Sprintf("line %d (%s)", r.Line, r.Sample.ID))
 			}
-			e.printLines([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
+			e.notes([]string{fmt.Sprintf("  %d field rows matching no lab row: %s", len(fl), strings.Join(limitList(fl, 10), "; "))})
 		}
 	}
 }

@@ -32,6 +32,9 @@ type env struct {
 	stdin  io.Reader
 	stdout io.Writer
 	stderr io.Writer
+	// quiet silences notes (how a field sheet joined, and the like); errors
+	// are still printed.
+	quiet bool
 }
 
 // exitError ends a command with a code; its message (if any) goes to stderr.

@@ -87,3 +87,10 @@ func stderrFile(e *env) io.Writer {
 	}
 	return e.stderr
 }
+
+// notes prints informative lines unless the command was asked to be quiet.
+func (e *env) notes(lines []string) {
+	if !e.quiet {
+		e.printLines(lines)
+	}
+}

@@ -42,6 +42,7 @@ func reportCmd(e *env) *cobra.Command {
 		Use:   "report --out DIR [flags] FILE.csv ... | --demo",
 		Short: "write a report folder: tables, GeoJSON, SI maps, depth profiles, index.html",
 		RunE: func(c *cobra.Command, args []string) error {
+			e.quiet = oc.quiet
 			if method != "kriging" && method != "idw" {
 				return usagef("--method must be kriging or idw, not %q", method)
 			}
@@ -144,7 +145,7 @@ func reportCmd(e *env) *cobra.Command {
 	f.StringVar(&minerals, "minerals", "", "comma-separated minerals to map (default: those whose SI crosses zero on site)")
 	f.StringVar(&method, "method", "kriging", "interpolation: kriging (ordinary kriging, fitted variogram) or idw")
 	f.StringVar(&zones, "zones", "", "depth-zone edges in m below ground, e.g. 0,55,90,200 (default: found from gaps in the depths)")
-	f.StringVar(&profileRound, "profile-round", "", "sampling round shown in depth profiles (default: the last)")
+	f.StringVar(&profileRound, "profile-round", "", "sampling round shown in depth profiles (default: every round)")
 	f.StringVar(&cluster, "cluster", "Cluster", "input column grouping wells into clusters, one depth-profile figure each")
 	f.StringVar(&formats, "formats", "png", "figure files to write: png (300 dpi), svg, pdf, comma-separated; PNG is always written, and index.html embeds a 96 dpi copy")
 	sec.register(c)
