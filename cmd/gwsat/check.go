@@ -15,6 +15,7 @@ import (
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/internal/progress"
 	"gwsat.dev/gwsat/report"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // outcomeFlags are the flags that choose how a run's verdict maps to the exit status.
@@ -41,6 +42,7 @@ func checkCmd(e *env) *cobra.Command {
 	var oc outcomeFlags
 	var out, jsonOut, geoOut, shardSpec string
 	var showColumns bool
+	var iv intervalFlags
 	c := &cobra.Command{
 		Use:   "check [flags] FILE.csv ... | --demo",
 		Short: "check lab files and compute saturation indices: one table row per input row",
@@ -61,7 +63,7 @@ func checkCmd(e *env) *cobra.Command {
 			if err != nil {
 				return usagef("--shard: %w", err)
 			}
-			return runCheck(e, &in, &oc, args, checkOutputs{table: out, json: jsonOut, geojson: geoOut}, sh, showColumns)
+			return runCheck(e, &in, &oc, args, checkOutputs{table: out, json: jsonOut, geojson: geoOut}, sh, showColumns, iv)
 		},
 	}
 	interspersed(c.Flags())
@@ -72,8 +74,32 @@ func checkCmd(e *env) *cobra.Command {
 	c.Flags().StringVar(&geoOut, "geojson", "", "also write every row as a GeoJSON point (RFC 7946) to this file")
 	c.Flags().StringVar(&shardSpec, "shard", "", "process only shard K of N (K/N): rows K, K+N, K+2N, ... in input order, for batch systems; join the tables with 'gwsat join'")
 	c.Flags().BoolVar(&showColumns, "columns", false, "print how each input header was understood")
+	iv.register(c)
 	return c
 }
+
+// intervalFlags ask check for an interval on every saturation index.
+type intervalFlags struct {
+	on     bool
+	draws  int
+	seed   uint64
+	linear bool
+}
+
+func (iv *intervalFlags) register(c *cobra.Command) {
+	f := c.Flags()
+	f.BoolVar(&iv.on, "intervals", false, "add the interval of every SI (<mineral>_si_low, _si_high, _verdict) from the uncertainty of the inputs, as 'gwsat findings' computes it")
+	f.IntVar(&iv.draws, "draws", uncertainty.DefaultDraws, "with --intervals: Monte Carlo draws per sample")
+	f.Uint64Var(&iv.seed, "seed", 1, "with --intervals: seed of the draws")
+	f.BoolVar(&iv.linear, "linear", false, "with --intervals: the fast linear estimate instead of Monte Carlo")
+}
+
+// maxDraws bounds --draws (a typo must not run for days).
+const maxDraws = 100000
+
+// intervalChunk is how many rows are held to estimate their intervals together
+// (on every core) before they are written.
+const intervalChunk = 256
 
 // checkOutputs are the files check writes ("" for none, "-" for standard output).
 type checkOutputs struct{ table, json, geojson string }
@@ -81,7 +107,10 @@ type checkOutputs struct{ table, json, geojson string }
 // runCheck streams every row through the assessment and into the outputs, in
 // input order: read, speciate on every core, write; only a bounded number of
 // rows is in flight.
-func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs checkOutputs, sh shard, showColumns bool) error {
+func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs checkOutputs, sh shard, showColumns bool, iv intervalFlags) error {
+	if iv.on && !(iv.draws > 0 && iv.draws <= maxDraws) {
+		return usagef("--draws %d: give 1 to %d", iv.draws, maxDraws)
+	}
 	ins, fieldName, err := in.openInputs(e, args)
 	if err != nil {
 		return usageErr(err)
@@ -123,7 +152,11 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		return withOptional(e, outs.json, func(jw io.Writer) error {
 			return withOptional(e, outs.geojson, func(gw io.Writer) error {
 				cw := csv.NewWriter(tw)
-				if err := cw.Write(cols.Header()); err != nil {
+				header := cols.Header()
+				if iv.on {
+					header = append(header, uncertainty.Columns(minerals)...)
+				}
+				if err := cw.Write(header); err != nil {
 					return err
 				}
 				var js *report.JSONWriter
@@ -134,11 +167,8 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 				if gw != nil {
 					gs = geo.NewSampleWriter(gw)
 				}
-				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
-					bar.Add(1)
-					sum.Add(r)
-					off.count(r)
-					if err := cw.Write(cols.Row(r)); err != nil {
+				write := func(r *assess.Record, extra []string) error {
+					if err := cw.Write(append(cols.Row(r), extra...)); err != nil {
 						return err
 					}
 					if js != nil {
@@ -147,12 +177,64 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 						}
 					}
 					if gs != nil {
-						if err := gs.Write(report.SampleFeature(r, minerals)); err != nil {
+						return gs.Write(report.SampleFeature(r, minerals))
+					}
+					return nil
+				}
+				// With intervals, rows wait in a small chunk whose intervals are
+				// estimated together; each row keeps its own random stream (its
+				// index in the run), so chunking never changes a number.
+				var chunk []assess.Record
+				done := 0
+				flush := func() error {
+					if len(chunk) == 0 {
+						return nil
+					}
+					uo := uncertainty.Options{Model: ch.model, BalanceOn: ch.bal, Draws: iv.draws, Seed: iv.seed, Linear: iv.linear, FirstStream: uint64(done)}
+					var samples []uncertainty.Sample
+					if sh.n <= 1 {
+						var err error
+						if samples, err = uncertainty.Run(e.ctx, ch.db, chunk, uo); err != nil {
+							return err
+						}
+					} else {
+						// A shard's rows are every n-th of the run: each takes the
+						// stream of its index in the whole run, one at a time, so
+						// that the joined shards equal the single run.
+						for i := range chunk {
+							uo.FirstStream = uint64((done+i)*sh.n + sh.k - 1)
+							one, err := uncertainty.Run(e.ctx, ch.db, chunk[i:i+1], uo)
+							if err != nil {
+								return err
+							}
+							samples = append(samples, one...)
+						}
+					}
+					for i := range chunk {
+						if err := write(&chunk[i], uncertainty.Cells(&samples[i], minerals)); err != nil {
 							return err
 						}
 					}
+					done += len(chunk)
+					chunk = chunk[:0]
+					return nil
+				}
+				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
+					bar.Add(1)
+					sum.Add(r)
+					off.count(r)
+					if !iv.on {
+						return write(r, nil)
+					}
+					chunk = append(chunk, *r)
+					if len(chunk) == intervalChunk {
+						return flush()
+					}
 					return nil
 				})
+				if err == nil {
+					err = flush()
+				}
 				if err != nil {
 					return err
 				}

@@ -55,3 +55,29 @@ func readFile(t *testing.T, p string) string {
 	}
 	return string(b)
 }
+
+// With Monte Carlo intervals too, the shards joined equal the single run: each row
+// draws from the random stream of its index in the whole run.
+func TestShardsWithIntervals(t *testing.T) {
+	if testing.Short() {
+		t.Skip("Monte Carlo")
+	}
+	dir := t.TempDir()
+	args := []string{"check", "--demo", "-q", "--intervals", "--draws", "40"}
+	code, single, errs := gwsat(t, "", args...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var parts []string
+	for k := 1; k <= 3; k++ {
+		p := filepath.Join(dir, "p"+strconv.Itoa(k)+".csv")
+		if code, _, errs := gwsat(t, "", append(args, "--shard", strconv.Itoa(k)+"/3", "-o", p)...); code != exitOK {
+			t.Fatalf("shard %d: %s", k, errs)
+		}
+		parts = append(parts, p)
+	}
+	code, joined, errs := gwsat(t, "", append([]string{"join"}, parts...)...)
+	if code != exitOK || joined != single {
+		t.Fatalf("joined shards with intervals differ from the single run (exit %d %s)", code, errs)
+	}
+}
