@@ -190,7 +190,11 @@ func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water
 		r.Note(hydro.Warning, CodeBalanceWarn, "charge balance %.1f %% outside Standard Methods 1030 E (%s)", r.Balance.ErrorPct, r.Balance.Criterion)
 	}
 	if r.Balance.HasTDSRatio && !r.Balance.TDSRatioOK {
-		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.3f outside 1.0-1.2 (Standard Methods 1030 E; calculated %.0f mg/L)", r.Balance.TDSRatio, r.Balance.TDSCalcMgL)
+		side := "below 1.0"
+		if r.Balance.TDSRatio > 1.2 {
+			side = "above 1.2"
+		}
+		r.Note(hydro.Warning, CodeTDSRatio, "measured/calculated TDS %.3f is %s (Standard Methods 1030 E accepts 1.0-1.2; calculated %.0f mg/L)", r.Balance.TDSRatio, side, r.Balance.TDSCalcMgL)
 	}
 	if !w.HasPH {
 		r.Note(hydro.Warning, CodeNoPH, "no pH: speciation skipped")

@@ -100,7 +100,7 @@ func (b *BlendResult) Figure() report.Fig {
 func (b *BlendResult) Summary() []string {
 	out := []string{fmt.Sprintf("gwsat inject blend: %s with %s, %d %s, %s", b.Native, b.Injectate, len(b.Sweep.Points), plural(len(b.Sweep.Points), "share", "shares"), b.tempNote())}
 	for _, m := range b.Sweep.Maxima() {
-		out = append(out, fmt.Sprintf("  %-16s peak SI %+.2f at injectate share %.2f (%s)", m.Mineral, m.SI, m.Fraction, assess.State(m.SI)))
+		out = append(out, fmt.Sprintf("  %-16s peak SI %s at injectate share %.2f (%s)", m.Mineral, report.Signed(m.SI, 2), m.Fraction, assess.State(m.SI)))
 	}
 	maxI, temps := sweepRange(b.Sweep)
 	out = append(out, rangeNotes(b.db, b.model, maxI, temps, b.Sweep.Minerals)...)

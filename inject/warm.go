@@ -77,7 +77,7 @@ func (r *WarmResult) Summary() []string {
 	ts := r.Options.TempsC
 	out := []string{fmt.Sprintf("gwsat inject warm: %s over %g-%g C", r.Sample, ts[0], ts[len(ts)-1])}
 	for _, m := range r.Sweep.Maxima() {
-		out = append(out, fmt.Sprintf("  %-16s peak SI %+.2f at %.0f C", m.Mineral, m.SI, m.TempC))
+		out = append(out, fmt.Sprintf("  %-16s peak SI %s at %.0f C", m.Mineral, report.Signed(m.SI, 2), m.TempC))
 	}
 	maxI, temps := sweepRange(r.Sweep)
 	out = append(out, rangeNotes(r.db, r.model, maxI, temps, r.Sweep.Minerals)...)

@@ -197,10 +197,10 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 				"Coordinates: WGS 84 / UTM, EPSG:%d.",
 				m, z.Label, opt.Model, assess.NearEquilibriumBand, MinWellsSurface, MaxSurfaceCVRMSE, site.EPSG)
 			if n := len(site.Unplaced); n > 0 {
-				cap += fmt.Sprintf(" %d row(s) without a usable position or result not shown.", n)
+				cap += fmt.Sprintf(" %d %s without a usable position or result not shown.", n, plural(n, "row", "rows"))
 			}
 			if n := noDepthCount(placed); n > 0 && z.Label != noDepthZone {
-				cap += fmt.Sprintf(" %d sample(s) without a depth (e.g. end-members) not shown on depth-zone figure.", n)
+				cap += fmt.Sprintf(" %d %s without a depth (e.g. end-members) not shown on depth-zone figures.", n, plural(n, "sample", "samples"))
 			}
 			title := fmt.Sprintf("%s, %s", m, z.Label)
 			maps := figure.SIMaps{Title: title, Maps: panels}
@@ -433,3 +433,10 @@ func shortMethod(m string) string {
 }
 
 func formatSI(v float64) string { return fmt.Sprintf("%.2f", v) }
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
