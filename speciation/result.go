@@ -247,22 +247,21 @@ func (r *Result) PhaseAmountOf(name string) (float64, bool) {
 	return 0, false
 }
 
-// finite reports whether every number of the result is finite.
+// finite reports whether every number of the result is finite. A NaN or an
+// infinity anywhere makes the plain sum of them non-finite, so one pass of
+// additions checks them all (a false alarm needs finite values near 1e308,
+// which no result holds).
 func (r *Result) finite() bool {
-	ok := func(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
-	if !ok(r.IonicStrength) || !ok(r.PH) || !ok(r.ChargeBalance) || !ok(r.WaterActivity) || r.HasLogPCO2 && !ok(r.LogPCO2) {
-		return false
+	sum := r.IonicStrength + r.PH + r.ChargeBalance + r.WaterActivity
+	if r.HasLogPCO2 {
+		sum += r.LogPCO2
 	}
 	for i := range r.Species {
 		sp := &r.Species[i]
-		if !ok(sp.Molality) || !ok(sp.Gamma) || !ok(sp.LogGamma) || !ok(sp.LogActivity) {
-			return false
-		}
+		sum += sp.Molality + sp.Gamma + sp.LogGamma + sp.LogActivity
 	}
 	for i := range r.Minerals {
-		if !ok(r.Minerals[i].SI) || !ok(r.Minerals[i].LogIAP) {
-			return false
-		}
+		sum += r.Minerals[i].SI + r.Minerals[i].LogIAP
 	}
-	return true
+	return !math.IsNaN(sum) && !math.IsInf(sum, 0)
 }
