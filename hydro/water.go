@@ -2,6 +2,8 @@ package hydro
 
 import (
 	"fmt"
+
+	"gwsat.dev/gwsat/speciation"
 )
 
 // Density sources reported in Water.DensitySource.
@@ -61,7 +63,7 @@ func (s *Sample) solution() (sol Solution, source string, tds float64, tdsCalc b
 		if s.Density.OK {
 			rho = s.Density.V
 		} else if first := s.constituentSumMgL(Dilute()); first > 0 {
-			rho = 1 + densityPerTDS*first
+			rho = s.densityFromTDS(first)
 		}
 		tds, tdsCalc = s.constituentSumMgL(Solution{DensityKgL: rho, KgWaterPerL: rho}), true
 	}
@@ -69,7 +71,7 @@ func (s *Sample) solution() (sol Solution, source string, tds float64, tdsCalc b
 	case s.Density.OK:
 		sol.DensityKgL, source = s.Density.V, DensityMeasured
 	case tds > 0:
-		sol.DensityKgL, source = 1+densityPerTDS*tds, DensityFromTDS
+		sol.DensityKgL, source = s.densityFromTDS(tds), DensityFromTDS
 	default:
 		sol.DensityKgL, source = 1, DensityAssumed
 	}
@@ -165,4 +167,29 @@ func (s *Sample) Water() (Water, []Issue) {
 		}
 	}
 	return w, issues
+}
+
+// brineTDSMgL is the TDS above which the density of a water is estimated as a
+// NaCl-equivalent brine instead of by the linear rule: there the linear rule's
+// error grows past a few parts per thousand; at the switch the two differ by
+// 0.2 % (50 g/L: 1.0350 and 1.0329 kg/L), a step of 0.2 % in the water content.
+const brineTDSMgL = 50000
+
+// densityFromTDS estimates the density (kg/L) of a water of TDS tdsMgL: the
+// linear rule 1 + densityPerTDS x TDS for fresh and brackish water, and for
+// brines the NaCl-equivalent density of speciation.BrineDensity (CRC Handbook
+// NaCl table) at the sample's temperature (20 C when none), which holds to
+// halite saturation.
+func (s *Sample) densityFromTDS(tdsMgL float64) float64 {
+	if tdsMgL <= brineTDSMgL {
+		return 1 + densityPerTDS*tdsMgL
+	}
+	t := 20.0
+	if s.TempC.OK && s.TempC.V >= speciation.MinTempC && s.TempC.V <= speciation.MaxTempC {
+		t = s.TempC.V
+	}
+	if rho, err := speciation.BrineDensity(tdsMgL, t); err == nil {
+		return rho
+	}
+	return 1 + densityPerTDS*tdsMgL
 }
