@@ -88,7 +88,11 @@ const negligibleMolKgw = 1e-12
 // Sentences words the oxidation step for a summary or a report.
 func (o *Oxidation) Sentences() []string {
 	ox := o.Result
-	out := []string{fmt.Sprintf("Oxidation on mixing (%s): %s.", o.Name, ox.String())}
+	// Molar masses of Fe and Mn: IUPAC 2013 standard atomic weights (Meija et
+	// al. 2016), from memory.
+	out := []string{fmt.Sprintf("Oxidation on mixing (%s): the oxidants of the blend (O2 %s mg/L, nitrate) meet its reductants (Fe(II) %s mg/L, Mn(II) %s mg/L, sulfide); %s mg/L of O2 is left.",
+		o.Name, report.Sig(1000*ox.Mixed.O2*speciation.MolarMassO2, 3), report.Sig(1000*ox.Mixed.FeII*55.845, 3), report.Sig(1000*ox.Mixed.MnII*54.938, 3),
+		report.Sig(1000*ox.Left.O2*speciation.MolarMassO2, 3))}
 	for _, st := range ox.Steps {
 		if st.Oxidised < negligibleMolKgw {
 			continue // a trace (e.g. sulfide at 1e-100 mol/kg in an oxic water)

@@ -127,6 +127,11 @@ func (p *Planner) Section(opt SectionOptions) (*report.Section, []report.Fig, er
 	if prec.HasCCPP {
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("Calcium carbonate precipitation potential (Standard Methods 2330) of that blend: %.1f mg/L as CaCO3.", prec.CCPP))
 	}
+	if pf.Oxidation != nil {
+		// Oxygenated injectate meeting iron- and manganese-bearing native water:
+		// the oxides it forms come on top of the deposit, and into the screen.
+		sec.Paragraphs = append(sec.Paragraphs, strings.Join(pf.Oxidation.Sentences(), " "))
+	}
 	sec.Paragraphs = append(sec.Paragraphs, "Pore-filling screen, if every m3 injected were that blend: "+strings.Join(pf.Sentences(), " "))
 
 	shown := figureMinerals(w.Blend.Sweep, opt.Minerals)
