@@ -2,6 +2,7 @@ package assess
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -129,5 +130,39 @@ func TestRedoxReadingsSetThePE(t *testing.T) {
 	}
 	if !hasCode(&recs[2], CodeNoRedox) || recs[2].Result.HasPE {
 		t.Errorf("a water without redox readings: %v", recs[2].Reasons())
+	}
+}
+
+// A measured Fe(II)/Fe(III) pair sets the pe at which the speciated water holds
+// the two in the measured ratio (the definition of a couple's pe; the Nernst
+// equation of Fe3+/Fe2+, E0 = 0.771 V, Bard, Parsons & Jordan 1985); a total-iron
+// column with Fe(III) gives the same pair.
+func TestMeasuredIronPairSetsThePE(t *testing.T) {
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	head := "Sample,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),%s,Fe(III) (mg/L)\n"
+	for _, c := range []struct{ col, fe string }{{"Fe(II) (mg/L)", "1.0"}, {"Fe (mg/L)", "1.1"}} {
+		recs := assessCSV(t, fmt.Sprintf(head, c.col)+"A,6.5,15,60,12,20,2,30,40,180,"+c.fe+",0.1\n")
+		r := recs[0].Result
+		if r == nil || !r.HasPE || !strings.HasPrefix(recs[0].PESource, "Fe") {
+			t.Fatalf("%s: pe %v, source %q, reasons %v", c.col, r != nil && r.HasPE, recs[0].PESource, recs[0].Reasons())
+		}
+		fe3 := db.StateTotal(r, "Fe2+", -1)
+		fe2 := db.StateTotal(r, "Fe2+", 0)
+		if ratio := fe3 / fe2; math.Abs(ratio-0.1) > 0.002 {
+			t.Errorf("%s: speciated Fe(III)/Fe(II) = %.4f, measured 0.1", c.col, ratio)
+		}
+	}
+}
+
+// A pe column is used as given (it comes first of all readings).
+func TestPEColumn(t *testing.T) {
+	head := "Sample,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),Fe (mg/L),pe,DO (mg/L)\n"
+	recs := assessCSV(t, head+"A,7.0,15,60,12,20,2,30,40,180,0.5,2.5,6\n")
+	r := recs[0].Result
+	if r == nil || !r.HasPE || math.Abs(r.PE-2.5) > 1e-9 || recs[0].PESource == "" {
+		t.Fatalf("result %v, source %q, reasons %v", r != nil, recs[0].PESource, recs[0].Reasons())
 	}
 }

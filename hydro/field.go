@@ -167,6 +167,12 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 		s.EhMV = Some(v)
 	case pORP:
 		s.ORPMV = Some(v)
+	case pPE:
+		if v < -20 || v > 25 {
+			row.add(Warning, CodeOutOfRange, line, col, "%spe %g outside the stability of water (about -15 to +22); ignored", pre, v)
+			return
+		}
+		s.PE = Some(v)
 	case pEasting:
 		s.Easting = Some(v)
 	case pNorthing:

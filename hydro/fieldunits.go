@@ -70,6 +70,10 @@ func parseFieldUnit(c class, s string) (fieldUnit, bool) {
 		case "v":
 			return fieldUnit{"V", scale(1000)}, true
 		}
+	case clPE:
+		if k == "" {
+			return fieldUnit{"", identity}, true
+		}
 	case clPH:
 		switch k {
 		case "", "su", "units", "stdunits", "phunits", "standardunits":

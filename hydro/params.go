@@ -24,6 +24,7 @@ const (
 	clScreen // free-text interval
 	clDO     // dissolved oxygen, mg/L
 	clMV     // redox potential, mV
+	clPE     // pe, dimensionless
 	// long-shape structure columns
 	clLongParam
 	clLongValue
@@ -61,6 +62,7 @@ const (
 	pDO           = "DissolvedOxygen"
 	pEh           = "Eh"
 	pORP          = "ORP"
+	pPE           = "pe"
 	pParameter    = "Parameter"
 	pValue        = "Value"
 	pUnit         = "Unit"
@@ -101,6 +103,7 @@ var fieldDefs = map[string]fieldDef{
 	pDO:           {clDO, "do dissolvedoxygen oxygen o2 do2 dissolvedo2 fielddo"},
 	pEh:           {clMV, "eh redox redoxpotential ehshe ehmv"},
 	pORP:          {clMV, "orp oxidationreductionpotential orpmv"},
+	pPE:           {clPE, "pe electronactivity"},
 	pParameter:    {clLongParam, "parameter analyte determinand constituent characteristic characteristicname component param variable compound test analysis parametername analytename"},
 	pValue:        {clLongValue, "value result concentration conc resultvalue measuredvalue reading resultnumeric"},
 	pUnit:         {clLongUnit, "unit units uom resultunit unitofmeasure unitcode"},

@@ -272,6 +272,8 @@ type Sample struct {
 	DissolvedOxygenMgL Value
 	EhMV               Value
 	ORPMV              Value
+	// PE is a pe reported directly (dimensionless), as from a redox model.
+	PE Value
 	// TempSource says where TempC came from: TempFromLab, TempFromField
 	// (a field sheet), TempFromSite (Options.SiteTempC) or "".
 	TempSource string
