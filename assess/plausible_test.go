@@ -166,3 +166,29 @@ func TestPEColumn(t *testing.T) {
 		t.Fatalf("result %v, source %q, reasons %v", r != nil, recs[0].PESource, recs[0].Reasons())
 	}
 }
+
+// Sulfate with sulfide sets the pe at which the speciated water holds them in the
+// measured ratio, near pe -3.6 at pH 7 for equal amounts (the SO4 2-/HS- couple
+// on the redox ladder, Stumm & Morgan 1996, from memory): here sulfate is ten
+// times the sulfide, which moves the pe up by only log10(10)/8 = 0.125.
+func TestMeasuredSulfurPairSetsThePE(t *testing.T) {
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// 96 mg/L SO4 = 1 mmol; 3.2 mg/L sulfide as S = 0.1 mmol.
+	head := "Sample,pH,Temp (C),Ca (mg/L),Mg (mg/L),Na (mg/L),K (mg/L),Cl (mg/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3),Sulfide (mg/L)\n"
+	recs := assessCSV(t, head+"A,7.0,25,60,12,40,2,30,96.056,180,3.206\n")
+	r := recs[0].Result
+	if r == nil || !r.HasPE || recs[0].PESource == "" {
+		t.Fatalf("result %v, source %q, reasons %v", r != nil, recs[0].PESource, recs[0].Reasons())
+	}
+	ox := db.StateTotal(r, "SO4 2-", 0)
+	red := db.StateTotal(r, "SO4 2-", 8)
+	if math.Abs(red/ox-0.1/1.0) > 0.002 {
+		t.Errorf("speciated sulfide/sulfate %.4f, measured 0.1", red/ox)
+	}
+	if r.PE > -2 || r.PE < -6 {
+		t.Errorf("pe %.2f, expected near -3.6", r.PE)
+	}
+}

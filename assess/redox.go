@@ -24,6 +24,7 @@ const (
 // order: a pe reported as such; dissolved oxygen above AnoxicDOMgL (the O2/H2O couple); a measured pair,
 // Fe(II) with Fe(III) (or with total iron), else nitrate with ammonium; Eh on the
 // hydrogen scale; ORP against the reference electrode of Options.ORPReference.
+// (The iron pair comes before sulfate/sulfide when both are measured.)
 // Without any, the water is solved without a pe (oxide and sulfide SIs are then
 // not computed, and the result says so).
 func solveWithRedox(r *Record, solver *speciation.Solver, sw *speciation.Water, tempC float64, opt Options) (*speciation.Result, error) {
@@ -111,6 +112,8 @@ const (
 	molarFe  = 55.845
 	molarNO3 = 62.004
 	molarNH4 = 18.038
+	molarSO4 = 96.056
+	molarS   = 32.06
 )
 
 // pairMolKgw is an analyte of the row in mol/kgw (mg/L of its own formula),
@@ -140,7 +143,8 @@ func pairFound(r *Record, s *hydro.Sample, nitrogen bool) bool {
 }
 
 // measuredPair finds a redox pair measured on the row: Fe(III) with Fe(II) or
-// with total iron; or, when nitrogen is set, nitrate with ammonium.
+// with total iron, else sulfate with sulfide; or, when nitrogen is set, nitrate
+// with ammonium.
 func measuredPair(r *Record, s *hydro.Sample, nitrogen bool) (speciation.CoupleMeasurement, string) {
 	if nitrogen {
 		no3, okN := pairMolKgw(r, s, "NO3", molarNO3)
@@ -149,6 +153,13 @@ func measuredPair(r *Record, s *hydro.Sample, nitrogen bool) (speciation.CoupleM
 			return speciation.CoupleMeasurement{Couple: speciation.CoupleN, Oxidized: no3, Reduced: nh4}, "NO3-/NH4+"
 		}
 		return speciation.CoupleMeasurement{}, ""
+	}
+	// Sulfate with sulfide (as S): in sulfidic water the most trusted pair after
+	// iron (the SO4 2-/HS- couple; Stumm & Morgan 1996, from memory).
+	if so4, ok := pairMolKgw(r, s, "SO4", molarSO4); ok {
+		if hs, ok := pairMolKgw(r, s, "HS", molarS); ok {
+			return speciation.CoupleMeasurement{Couple: speciation.CoupleS, Oxidized: so4, Reduced: hs}, "SO4 2-/sulfide"
+		}
 	}
 	fe3, ok3 := pairMolKgw(r, s, "Fe3", molarFe)
 	fe, ok := pairMolKgw(r, s, "Fe", molarFe)

@@ -151,6 +151,7 @@ func init() {
 	add("Br", "", "br bromide")
 	add("PO4", "", "po4 phosphate orthophosphate")
 	add("PO4", "P", "po4p phosphatep orthophosphatep")
+	add("HS", "", "sulfide sulphide h2s hs totalsulfide dissolvedsulfide sulfides")
 }
 
 var fieldAliases = map[string]string{}

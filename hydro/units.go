@@ -223,6 +223,10 @@ var analytes = map[string]*analyte{
 	"NO2":  {Key: "NO2", M: mmNO2, Z: -1, Balance: true, Bases: map[string]basis{"N": {awN, 1}}},
 	"Br":   {Key: "Br", Component: "Br-", M: awBr, Z: -1, Balance: true},
 	"PO4":  {Key: "PO4", M: mmPO4, Z: -3, Bases: map[string]basis{"P": {awP, 1}}},
+	// Total dissolved sulfide (H2S + HS- + S2-), as S: it is not a component of its
+	// own (with a pe it is part of the sulfur total) and is left out of the
+	// charge balance, since its charge depends on the pH.
+	"HS": {Key: "HS", M: awS},
 	// Na and K reported as one value: by the convention of reports that
 	// compute "Na+K" as the cation deficit of the balance, the value is
 	// sodium (mass as Na, charge 1); Read stores it as "Na", marked.
@@ -235,7 +239,7 @@ const keyNaK = "Na+K"
 // AnalyteKeys lists the analyte parameter keys the reader knows.
 func AnalyteKeys() []string {
 	return []string{"Ca", "Mg", "Na", "K", "Sr", "Ba", "Fe", "Fe3", "Mn", "Li", "NH4", "Al",
-		"Cl", "SO4", "Alk", "HCO3", "CO3", "TIC", "F", "SiO2", "NO3", "NO2", "Br", "PO4"}
+		"Cl", "SO4", "Alk", "HCO3", "CO3", "TIC", "F", "SiO2", "NO3", "NO2", "Br", "PO4", "HS"}
 }
 
 // FieldKeys lists the non-analyte parameter keys a column map may use.
