@@ -162,24 +162,9 @@ func (f *inputFlags) readInputs(e *env, args []string) ([]*hydro.Batch, error) {
 // joinField joins the field sheet to the lab rows and lists what matched
 // nothing, on either side.
 func (f *inputFlags) joinField(e *env, batches []*hydro.Batch, opt hydro.Options) error {
-	var field *hydro.Batch
-	var err error
-	name := f.fieldSheet
-	switch {
-	case name != "":
-		field, err = hydro.ReadFieldSheetFile(name, opt)
-	case f.demo:
-		// The demo comes with its field sheet (round 3, invented).
-		name = DemoFieldSheet
-		var raw []byte
-		if raw, err = data.Demo().ReadFile(name); err == nil {
-			field, err = hydro.ReadFieldSheet(bytes.NewReader(raw), name, opt)
-		}
-	default:
-		return nil
-	}
-	if err != nil {
-		return fmt.Errorf("field sheet: %w", err)
+	field, name, err := f.readFieldSheet(opt)
+	if err != nil || field == nil {
+		return err
 	}
 	for _, b := range batches {
 		j := hydro.JoinFieldSheet(b, field)
