@@ -85,16 +85,24 @@ func detectDelimiter(text string) rune {
 			}
 			counts = append(counts, len(rec))
 		}
-		if len(counts) == 0 || counts[0] < 2 {
-			continue
-		}
-		same := 0
+		// The delimiter splits most lines into the same number (at least two)
+		// of fields; title lines above the header (one field) do not count
+		// against it.
+		freq := map[int]int{}
+		modal, same := 0, 0
 		for _, c := range counts {
-			if c == counts[0] {
-				same++
+			if c < 2 {
+				continue
+			}
+			freq[c]++
+			if freq[c] > same || freq[c] == same && c > modal {
+				modal, same = c, freq[c]
 			}
 		}
-		score := float64(same)/float64(len(counts))*1000 + float64(counts[0])
+		if same == 0 {
+			continue
+		}
+		score := float64(same)/float64(len(counts))*1000 + float64(modal)
 		if score > bestScore {
 			best, bestScore = d, score
 		}
