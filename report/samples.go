@@ -307,9 +307,20 @@ func ptr(ok bool, v float64) *jsonNum {
 
 // WriteJSON writes every record with its full speciation as a JSON array.
 func WriteJSON(w io.Writer, recs []assess.Record) error {
+	return WriteJSONWith(w, recs, nil)
+}
+
+// WriteJSONWith is WriteJSON for records kept without their detail: detail,
+// when not nil, gives each record with its full speciation as it is written
+// (assess.Detailer.Record).
+func WriteJSONWith(w io.Writer, recs []assess.Record, detail func(*assess.Record) *assess.Record) error {
 	jw := NewJSONWriter(w)
 	for i := range recs {
-		if err := jw.Write(&recs[i]); err != nil {
+		r := &recs[i]
+		if detail != nil {
+			r = detail(r)
+		}
+		if err := jw.Write(r); err != nil {
 			return err
 		}
 	}

@@ -33,7 +33,11 @@ type Options struct {
 	// chose per row (assess.Options.Model nil), and the injection section's
 	// blends then use Truesdell-Jones.
 	Model speciation.ActivityModel
-	Site  site.Options
+	// Assess are the options the records were assessed with; records without
+	// their detail (assess.Options.Detail false, which keeps a large file's
+	// records small) get it back from them as samples.json is written.
+	Assess assess.Options
+	Site   site.Options
 	// Inject chooses the injection-planning section (end-members by sample id or
 	// sample type); the section is left out when no end-members are found.
 	Inject inject.SectionOptions
@@ -197,7 +201,13 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	}
 	if err := errors.Join(
 		write("samples.csv", tbl.WriteCSV),
-		write("samples.json", func(w io.Writer) error { return report.WriteJSON(w, recs) }),
+		write("samples.json", func(w io.Writer) error {
+			ao := opt.Assess
+			if ao.Model == nil && !auto {
+				ao.Model = opt.Model
+			}
+			return report.WriteJSONWith(w, recs, assess.NewDetailer(opt.DB, ao).Record)
+		}),
 		write("columns.csv", cols.WriteCSV),
 		write("surfaces.csv", surf.WriteCSV),
 		write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }),

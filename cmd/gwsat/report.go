@@ -12,6 +12,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 
+	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
@@ -77,7 +78,9 @@ func reportCmd(e *env) *cobra.Command {
 			if err != nil {
 				return usagef("--nondetect: %w", err)
 			}
-			batches, recs, ch, err := in.assessAll(e, args, true)
+			// Records without their detail: samples.json gets it back row by
+			// row as it is written, so that memory stays small on large files.
+			batches, recs, ch, err := in.assessAll(e, args, false)
 			if err != nil {
 				return usageErr(err)
 			}
@@ -100,7 +103,7 @@ func reportCmd(e *env) *cobra.Command {
 				progressFn = nil
 			}
 			oc2, err := sitereport.Write(e.ctx, sitereport.Options{
-				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model,
+				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model, Assess: assess.Options{Model: ch.model, BalanceOn: ch.bal, ORPReference: ch.orp},
 				Site:            site.Options{Minerals: chosen, Method: method, Features: feats, BandEdges: edges, ProfileRound: profileRound, ClusterColumn: cluster},
 				Inject:          so,
 				Formats:         fmts,
