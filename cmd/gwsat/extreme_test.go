@@ -57,26 +57,5 @@ func TestNoNonNumberOnExtremeInputs(t *testing.T) {
 			}
 		}
 	}
-	err := filepath.Walk(dir, func(path string, info os.FileInfo, err error) error {
-		if err != nil || info.IsDir() || path == lab {
-			return err
-		}
-		switch filepath.Ext(path) {
-		case ".csv", ".json", ".geojson", ".html", ".svg":
-		default:
-			return nil
-		}
-		raw, err := os.ReadFile(path)
-		if err != nil {
-			return err
-		}
-		raw = base64Data.ReplaceAll(raw, nil) // embedded fonts and pictures are not text
-		if m := nonNumber.Find(raw); m != nil {
-			t.Errorf("%s holds %q", filepath.Base(path), m)
-		}
-		return nil
-	})
-	if err != nil {
-		t.Fatal(err)
-	}
+	scanOutputs(t, dir, lab, nonNumber)
 }
