@@ -164,6 +164,7 @@ func Build(recs []assess.Record, minerals []string, opt Options) (*Site, error) 
 					vals = append(vals, si)
 					wells = append(wells, figure.Well{X: p.xy[0], Y: p.xy[1], SI: si, Label: wellLabel(p.rec.Sample())})
 				}
+				wells = mergeWells(wells)
 				if len(wells) == 0 {
 					continue
 				}
@@ -439,4 +440,24 @@ func plural(n int, one, many string) string {
 		return one
 	}
 	return many
+}
+
+// mergeWells draws samples at one position (a well sampled more than once in a
+// round and zone) as one symbol at their mean SI, labelled as the first.
+func mergeWells(ws []figure.Well) []figure.Well {
+	idx := map[[2]int64]int{}
+	n := map[int]int{}
+	var out []figure.Well
+	for _, w := range ws {
+		k := positionKey(orb.Point{w.X, w.Y})
+		if j, ok := idx[k]; ok {
+			n[j]++
+			out[j].SI += (w.SI - out[j].SI) / float64(n[j])
+			continue
+		}
+		idx[k] = len(out)
+		n[len(out)] = 1
+		out = append(out, w)
+	}
+	return out
 }

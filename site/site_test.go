@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"github.com/paulmach/orb"
+	"gwsat.dev/gwsat/figure"
 )
 
 // Nested wells at 40, 70 and 108-128 m split into three zones at the gaps;
@@ -104,5 +105,24 @@ func TestSurfaceForRules(t *testing.T) {
 		if row.HasCV && row.Drawn != (row.CVRMSE < MaxSurfaceCVRMSE) {
 			t.Errorf("%s: CV %v but drawn %v", c.name, row.CVRMSE, row.Drawn)
 		}
+	}
+}
+
+// Samples at one position are one well of a surface, at their mean value; points
+// a metre apart or more stay apart.
+func TestMeanByPosition(t *testing.T) {
+	pts := []orb.Point{{100, 200}, {100.2, 199.9}, {300, 400}, {100, 200}}
+	vals := []float64{1, 2, 5, 3}
+	p, v := meanByPosition(pts, vals)
+	if len(p) != 2 || v[0] != 2 || v[1] != 5 {
+		t.Fatalf("%v %v, want two wells at 2 and 5", p, v)
+	}
+}
+
+// Two samples of one well in one round are one symbol at their mean SI.
+func TestMergeWells(t *testing.T) {
+	ws := mergeWells([]figure.Well{{X: 1, Y: 1, SI: 0.2, Label: "A"}, {X: 50, Y: 1, SI: -1, Label: "B"}, {X: 1.3, Y: 0.8, SI: 0.6, Label: "A"}})
+	if len(ws) != 2 || ws[0].Label != "A" || math.Abs(ws[0].SI-0.4) > 1e-12 {
+		t.Fatalf("%+v", ws)
 	}
 }

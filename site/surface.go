@@ -3,6 +3,7 @@ package site
 import (
 	"errors"
 	"fmt"
+	"math"
 
 	"github.com/paulmach/orb"
 
@@ -24,6 +25,11 @@ const (
 	// wells in each distance class, which a field of fewer than 20-30 wells
 	// cannot give); with fewer, inverse-distance weighting is used.
 	MinWellsKriging = 20
+	// MaxWellsKriging is the most distinct wells a surface is kriged from:
+	// ordinary kriging with its leave-one-out check grows with the cube of the
+	// wells, and beyond a few hundred wells inverse-distance weighting reaches
+	// the same detail in a small share of the time (common practice).
+	MaxWellsKriging = 200
 )
 
 // MaxSurfaceCVRMSE is the largest leave-one-out cross-validation RMSE (SI
@@ -33,20 +39,46 @@ const (
 // supersaturated area from a near-equilibrium one.
 const MaxSurfaceCVRMSE = assess.NearEquilibriumBand
 
-// distinctPoints counts points at distinct positions (to 1 m).
-func distinctPoints(pts []orb.Point) int {
-	seen := map[[2]int64]bool{}
-	for _, p := range pts {
-		seen[[2]int64{int64(p[0] + 0.5), int64(p[1] + 0.5)}] = true
+// positionKey rounds a projected position to the metre.
+func positionKey(p orb.Point) [2]int64 {
+	return [2]int64{int64(math.Round(p[0])), int64(math.Round(p[1]))}
+}
+
+// meanByPosition merges points at one position (to 1 m) into one, at the mean
+// of their values, in the order each position first appears.
+func meanByPosition(pts []orb.Point, vals []float64) ([]orb.Point, []float64) {
+	idx := make(map[[2]int64]int, len(pts))
+	var outP []orb.Point
+	var sum []float64
+	var cnt []int
+	for i, p := range pts {
+		k := positionKey(p)
+		j, ok := idx[k]
+		if !ok {
+			j = len(outP)
+			idx[k] = j
+			outP = append(outP, p)
+			sum = append(sum, 0)
+			cnt = append(cnt, 0)
+		}
+		sum[j] += vals[i]
+		cnt[j]++
 	}
-	return len(seen)
+	outV := make([]float64, len(sum))
+	for j := range sum {
+		outV[j] = sum[j] / float64(cnt[j])
+	}
+	return outP, outV
 }
 
 // surfaceFor decides whether a surface is drawn for the wells and makes it.
 // It fills row's Method, CV, Drawn and Note, and returns the surface only
 // when it is to be drawn.
 func surfaceFor(pts []orb.Point, vals []float64, method string, row *SurfaceRow) *geo.Surface {
-	n := distinctPoints(pts)
+	// Samples at one position (a well sampled twice in a round and zone) are
+	// one well of the surface, at their mean SI.
+	pts, vals = meanByPosition(pts, vals)
+	n := len(pts)
 	if n < MinWellsSurface {
 		row.Method = "none"
 		row.Note = fmt.Sprintf("no surface: %d wells, fewer than the %d needed (common practice); measured values shown", n, MinWellsSurface)
@@ -59,6 +91,9 @@ func surfaceFor(pts []orb.Point, vals []float64, method string, row *SurfaceRow)
 		s, err = geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
 	} else if n < MinWellsKriging {
 		note = fmt.Sprintf("IDW, not kriging: %d wells, fewer than the %d a variogram needs (common practice)", n, MinWellsKriging)
+		s, err = geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
+	} else if n > MaxWellsKriging {
+		note = fmt.Sprintf("IDW, not kriging: %d wells, more than the %d kriged (common practice: the cost grows with the cube of the wells)", n, MaxWellsKriging)
 		s, err = geo.InterpolateIDW(pts, vals, geo.GridOptions{}, geo.IDWOptions{})
 	} else {
 		s, err = geo.InterpolateKriging(pts, vals, geo.GridOptions{}, geo.KrigingOptions{})
