@@ -9,7 +9,8 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 )
 
-// No published worked example is reproduced here: the numbers of the
+// No worked example from a published text is reproduced here (one from
+// course notes is, in worked_example_test.go): the numbers of the
 // Mann-Kendall and Sen examples in Helsel & Hirsch (2002) and Gilbert
 // (1987) are not remembered with enough confidence to test against. The
 // checks below are counted by hand from the defining formulas (Mann 1945;
