@@ -22,11 +22,18 @@ type Sample struct {
 // record i seeded (Options.Seed, Options.FirstStream + i); with Options.Linear, the linear
 // estimate. The error is for bad options or a cancelled context only: a
 // record that cannot be estimated carries its own Err.
+//
+// With Options.Model nil (the automatic choice of assess), each record's
+// draws use the model that record was solved with (Result.Model): Pitzer's
+// for the brines assess solved with it, Truesdell-Jones for the rest.
 func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt Options) ([]Sample, error) {
+	auto := opt.Model == nil
 	o, err := opt.resolved()
 	if err != nil {
 		return nil, err
 	}
+	brineOpt := o
+	brineOpt.Model = speciation.NewPitzer()
 	out := make([]Sample, len(recs))
 	workers := o.Workers
 	if workers <= 0 {
@@ -40,8 +47,16 @@ func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt
 		go func() {
 			defer wg.Done()
 			est, _ := NewEstimator(db, o) // o is resolved: no error
+			var brine *Estimator
 			for i := range jobs {
-				out[i] = est.record(&recs[i], o.FirstStream+uint64(i))
+				e := est
+				if auto && recs[i].Result != nil && recs[i].Result.Model == brineOpt.Model.Name() {
+					if brine == nil {
+						brine, _ = NewEstimator(db, brineOpt)
+					}
+					e = brine
+				}
+				out[i] = e.record(&recs[i], o.FirstStream+uint64(i))
 				if o.Progress != nil {
 					mu.Lock()
 					o.Progress()
