@@ -130,26 +130,19 @@ func TestHaliteSolubility(t *testing.T) {
 // Gypsum solubility in pure water, 0-100 C (mmol CaSO4 per kg water; REFERENCES.md
 // section 2.1, handbook values from memory, +/-7 %).
 func TestGypsumSolubilityWater(t *testing.T) {
+	// Handbook values of REFERENCES 2.1 (moderate confidence, from memory), tolerance 7 %.
+	// Above the transition (about 42 C) gypsum is metastable; its solubility is still the
+	// published quantity. The temperature change of CaSO4 ion pairing in the Pitzer model
+	// follows the Fuoss (1958) equation (pitzer.txt, pitzer_fuoss.go); with the earlier
+	// van 't Hoff scaling of beta2 the 80 and 100 C values were 8 and 18 % low.
 	s := pitzerSolver(t)
-	for _, tc := range []struct {
-		tempC, mmol float64
-		known       string
-	}{
-		{0, 12.9, ""},
-		{20, 14.8, ""},
-		{40, 15.4, ""},
-		{60, 14.2, ""},
-		{80, 13.6, "constant heat capacity of reaction for gypsum; ion heat capacities rise above 25 C"},
-		{100, 11.9, "constant heat capacity of reaction for gypsum; ion heat capacities rise above 25 C"},
+	for _, tc := range []struct{ tempC, mmol float64 }{
+		{0, 12.9}, {20, 14.8}, {40, 15.4}, {60, 14.2}, {80, 13.6}, {100, 11.9},
 	} {
 		got := 1000 * solubilityInNaCl(t, s, "gypsum", "Ca2+", 0, tc.tempC)
 		d := relDev(got, tc.mmol)
 		t.Logf("%3.0f C: gypsum solubility %.2f mmol/kg, handbook %.1f (%+.1f %%)", tc.tempC, got, tc.mmol, 100*d)
 		if math.Abs(d) > 0.07 {
-			if tc.known != "" {
-				t.Logf("  known deviation beyond 7 %%: %s", tc.known)
-				continue
-			}
 			t.Errorf("%g C: gypsum solubility %.2f mmol/kg, handbook %.1f (%.1f %% off)", tc.tempC, got, tc.mmol, 100*d)
 		}
 	}

@@ -33,7 +33,7 @@ func ExampleNewPitzer() {
 	// I = 3.505 mol/kgw, a(H2O) = 0.8972
 	// SI halite = -1.08
 	// SI gypsum = -0.69
-	// SI anhydrite = -0.42
+	// SI anhydrite = -0.43
 	// SI calcite = 1.25
 }
 

@@ -38,6 +38,7 @@ type pzTemp struct {
 	fit    [8]float64
 	hasFit bool
 	off    float64 // f(298.15) of the fit
+	fuossB float64 // Fuoss exponent b at 25 C; 0: no Fuoss scaling
 }
 
 func fit8(a *[8]float64, T float64) float64 {
@@ -49,6 +50,9 @@ func (p *pzTemp) at(tempK float64) float64 {
 	v := p.v25 + p.slope*(tempK-T25)
 	if p.hasFit {
 		v += fit8(&p.fit, tempK) - p.off
+	}
+	if p.fuossB != 0 {
+		v *= fuossRatio(p.fuossB, tempK)
 	}
 	return v
 }
@@ -241,6 +245,18 @@ func parseTempFunc(s string) (pzTemp, error) {
 		}
 		t.slope = v
 		return t, nil
+	case len(f) == 3 && f[0] == "fuoss":
+		z, err1 := strconv.ParseFloat(f[1], 64)
+		logK, err2 := strconv.ParseFloat(f[2], 64)
+		if err1 != nil || err2 != nil || !finite(z) || !finite(logK) || z <= 0 {
+			return t, fmt.Errorf("fuoss %q %q: want the charge product and the log K of association at 25 C", f[1], f[2])
+		}
+		b, err := fuossExponent(z, logK)
+		if err != nil {
+			return t, err
+		}
+		t.fuossB = b
+		return t, nil
 	case len(f) == 9 && f[0] == "fit8":
 		for i := range 8 {
 			v, err := strconv.ParseFloat(f[i+1], 64)
@@ -258,7 +274,7 @@ func parseTempFunc(s string) (pzTemp, error) {
 		}
 		return t, nil
 	}
-	return t, fmt.Errorf("temperature function %q: want \"-\", \"slope S\" or \"fit8\" with 8 numbers", s)
+	return t, fmt.Errorf("temperature function %q: want \"-\", \"slope S\", \"fuoss Z LOGK\" or \"fit8\" with 8 numbers", s)
 }
 
 // PitzerText returns the embedded text (read-only).
