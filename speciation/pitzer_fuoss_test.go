@@ -58,7 +58,7 @@ func TestFuossRatio(t *testing.T) {
 		prev = r
 	}
 	const h = 0.01
-	dH25 := gasConstant * T25 * T25 * (math.Log(fuossRatio(b, T25+h))-math.Log(fuossRatio(b, T25-h))) / (2 * h)
+	dH25 := gasConstant * T25 * T25 * (math.Log(fuossRatio(b, T25+h)) - math.Log(fuossRatio(b, T25-h))) / (2 * h)
 	T := 373.15
 	vantHoff := math.Exp(dH25 / gasConstant * (1/T25 - 1/T))
 	if r := fuossRatio(b, T); r <= vantHoff {
