@@ -57,6 +57,13 @@ type Options struct {
 	// the summary quantities are kept (ionic strength, SIs, indices...),
 	// which keeps memory small on large files.
 	Detail bool
+	// PressureBar is the absolute pressure in bar at which rows without a
+	// Pressure column are speciated; 0 means 1 bar (no pressure correction).
+	// Hydrostatic instead puts each such row at the pressure of a fresh-water
+	// column above its depth (speciation.HydrostaticPressureBar of DepthM:
+	// common practice); a row without a depth stays at 1 bar, with a note.
+	PressureBar float64
+	Hydrostatic bool
 }
 
 // Record is one input row with everything computed for it.
@@ -72,6 +79,9 @@ type Record struct {
 	SolveError string
 	// PHAdjusted is set when a charge-balance adjustment was asked for.
 	Adjusted string
+	// PressureBar is the absolute pressure the row was speciated at, bar; 0
+	// for 1 bar (no pressure given).
+	PressureBar float64
 	// PESource says where the pe came from ("O2/H2O", "Eh", "ORP"...), "" when
 	// the water was solved without one.
 	PESource string
@@ -209,6 +219,7 @@ func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water
 		r.Note(hydro.Warning, CodeNoTemp, "no temperature: speciated at %.0f C", DefaultTempC)
 	}
 	SpeciationWater(sw, &w, tempC)
+	sw.PressureBar = r.pressure(opt)
 	if opt.BalanceOn != "" {
 		sw.ChargeBalanceIon = opt.BalanceOn
 	}
@@ -266,6 +277,7 @@ func assessOne(r *Record, solver, brine *speciation.Solver, sw *speciation.Water
 	if len(outside) > 0 {
 		r.Note(hydro.Info, CodeTempRange, "at %.1f C, outside the temperature range of their data: %s (those SIs are extrapolated)", res.TempC, strings.Join(outside, ", "))
 	}
+	pressureNotes(r, res)
 	if res.RedoxSkipped {
 		r.Note(hydro.Info, CodeNoRedox, "%s", speciation.NoteNoRedox)
 	}

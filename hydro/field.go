@@ -4,6 +4,8 @@ import (
 	"errors"
 	"strconv"
 	"strings"
+
+	"gwsat.dev/gwsat/speciation"
 )
 
 // setField reads one non-analyte cell into the sample.
@@ -173,6 +175,13 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 			return
 		}
 		s.PE = Some(v)
+	case pPressure:
+		// The range of package speciation (MinPressureBar-MaxPressureBar).
+		if v < speciation.MinPressureBar || v > speciation.MaxPressureBar {
+			row.add(Error, CodeOutOfRange, line, col, "%spressure %g bar outside %g-%g bar (absolute)", pre, v, speciation.MinPressureBar, speciation.MaxPressureBar)
+			return
+		}
+		s.PressureBar = Some(v)
 	case pEasting:
 		s.Easting = Some(v)
 	case pNorthing:

@@ -1,5 +1,15 @@
 package hydro
 
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+	"unicode"
+
+	"gwsat.dev/gwsat/speciation"
+)
+
 // fieldUnit converts a field parameter to the reader's unit.
 type fieldUnit struct {
 	name string
@@ -70,6 +80,21 @@ func parseFieldUnit(c class, s string) (fieldUnit, bool) {
 		case "v":
 			return fieldUnit{"V", scale(1000)}, true
 		}
+	case clPressure:
+		// Absolute pressure; 1 bar = 0.1 MPa = 100 kPa exactly, 1 psi = 0.0689475729 bar
+		// (6894.757 Pa, NIST SP 811), 1 atm = 1.01325 bar exactly.
+		switch k {
+		case "", "bar", "bars", "bara":
+			return fieldUnit{"bar", identity}, true
+		case "mpa":
+			return fieldUnit{"MPa", scale(10)}, true
+		case "kpa":
+			return fieldUnit{"kPa", scale(0.01)}, true
+		case "psi", "psia":
+			return fieldUnit{"psi", scale(0.0689475729)}, true
+		case "atm":
+			return fieldUnit{"atm", scale(1.01325)}, true
+		}
 	case clPE:
 		if k == "" {
 			return fieldUnit{"", identity}, true
@@ -95,4 +120,30 @@ func parseFieldUnit(c class, s string) (fieldUnit, bool) {
 		}
 	}
 	return fieldUnit{}, false
+}
+
+// ParsePressureBar reads an absolute pressure written as a number with an
+// optional unit (bar when none; MPa, kPa, psi or atm), such as "250",
+// "25 MPa" or "3600psi", and returns it in bar. It refuses a pressure outside
+// speciation.MinPressureBar to speciation.MaxPressureBar.
+func ParsePressureBar(s string) (float64, error) {
+	t := strings.TrimSpace(s)
+	i := strings.IndexFunc(t, func(r rune) bool { return unicode.IsLetter(r) })
+	num, unit := t, ""
+	if i >= 0 {
+		num, unit = strings.TrimSpace(t[:i]), t[i:]
+	}
+	v, err := strconv.ParseFloat(num, 64)
+	if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, fmt.Errorf("hydro: pressure %q is not a number with an optional unit (bar, MPa, kPa, psi, atm)", s)
+	}
+	fu, ok := parseFieldUnit(clPressure, unit)
+	if !ok {
+		return 0, fmt.Errorf("hydro: pressure %q: unknown unit %q (bar, MPa, kPa, psi, atm)", s, unit)
+	}
+	v = fu.conv(v)
+	if v < speciation.MinPressureBar || v > speciation.MaxPressureBar {
+		return 0, fmt.Errorf("hydro: pressure %g bar outside %g-%g bar (absolute)", v, speciation.MinPressureBar, speciation.MaxPressureBar)
+	}
+	return v, nil
 }

@@ -21,10 +21,11 @@ const (
 	clCoord                // projected metres
 	clInt                  // EPSG code
 	clDate
-	clScreen // free-text interval
-	clDO     // dissolved oxygen, mg/L
-	clMV     // redox potential, mV
-	clPE     // pe, dimensionless
+	clScreen   // free-text interval
+	clDO       // dissolved oxygen, mg/L
+	clMV       // redox potential, mV
+	clPE       // pe, dimensionless
+	clPressure // bar (absolute)
 	// long-shape structure columns
 	clLongParam
 	clLongValue
@@ -63,6 +64,7 @@ const (
 	pEh           = "Eh"
 	pORP          = "ORP"
 	pPE           = "pe"
+	pPressure     = "Pressure"
 	pParameter    = "Parameter"
 	pValue        = "Value"
 	pUnit         = "Unit"
@@ -104,6 +106,7 @@ var fieldDefs = map[string]fieldDef{
 	pEh:           {clMV, "eh redox redoxpotential ehshe ehmv"},
 	pORP:          {clMV, "orp oxidationreductionpotential orpmv"},
 	pPE:           {clPE, "pe electronactivity"},
+	pPressure:     {clPressure, "pressure pressurebar insitupressure reservoirpressure formationpressure porepressure"},
 	pParameter:    {clLongParam, "parameter analyte determinand constituent characteristic characteristicname component param variable compound test analysis parametername analytename"},
 	pValue:        {clLongValue, "value result concentration conc resultvalue measuredvalue reading resultnumeric"},
 	pUnit:         {clLongUnit, "unit units uom resultunit unitofmeasure unitcode"},
@@ -246,7 +249,7 @@ func isAnyUnit(s string) bool {
 	if _, ok := parseConcUnit(s); ok {
 		return true
 	}
-	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees, clMV} {
+	for _, c := range []class{clTemp, clLength, clEC, clDensity, clDegrees, clMV, clPressure} {
 		if _, ok := parseFieldUnit(c, s); ok {
 			return true
 		}

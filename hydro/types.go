@@ -274,6 +274,10 @@ type Sample struct {
 	ORPMV              Value
 	// PE is a pe reported directly (dimensionless), as from a redox model.
 	PE Value
+	// PressureBar is the absolute pressure of the water in bar (a Pressure
+	// column in bar, MPa, kPa, psi or atm), for the pressure correction of
+	// mineral log K.
+	PressureBar Value
 	// TempSource says where TempC came from: TempFromLab, TempFromField
 	// (a field sheet), TempFromSite (Options.SiteTempC) or "".
 	TempSource string

@@ -31,8 +31,12 @@ const densityPerTDS = 7.0e-7
 // end point). "CO3 2-" in Molal holds total inorganic carbon, and only when
 // TIC itself was measured.
 type Water struct {
-	TempC           float64
-	HasTemp         bool
+	TempC   float64
+	HasTemp bool
+	// PressureBar is the sample's absolute pressure in bar; valid when
+	// HasPressure (a Pressure column).
+	PressureBar     float64
+	HasPressure     bool
 	PH              float64
 	HasPH           bool
 	PHSource        string
@@ -112,7 +116,7 @@ func (s *Sample) Water() (Water, []Issue) {
 	var issues []Issue
 	sol, src, tds, tdsCalc := s.solution()
 	w := Water{Molal: map[string]float64{}, DensityKgL: sol.DensityKgL, DensitySource: src, TDSMgL: tds, TDSCalculated: tdsCalc,
-		TempC: s.TempC.V, HasTemp: s.TempC.OK, PH: s.PH.V, HasPH: s.PH.OK, PHSource: s.PHSource}
+		TempC: s.TempC.V, HasTemp: s.TempC.OK, PressureBar: s.PressureBar.V, HasPressure: s.PressureBar.OK, PH: s.PH.V, HasPH: s.PH.OK, PHSource: s.PHSource}
 	if !(sol.KgWaterPerL > 0.1) {
 		issues = append(issues, Issue{Severity: Error, Code: CodeNoWater, Column: "TDS", Message: fmt.Sprintf("TDS %g mg/L leaves no water at density %g kg/L", tds, sol.DensityKgL)})
 		return w, issues

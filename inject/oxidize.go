@@ -19,6 +19,7 @@ func (p *Planner) redoxWater(role, id string) (reaction.Solution, reaction.Redox
 	}
 	var sw speciation.Water
 	assess.SpeciationWater(&sw, &rec.Water, rec.TempC())
+	sw.PressureBar = rec.PressureBar
 	if rec.Result != nil && rec.Result.HasPE {
 		sw.SetPE(rec.Result.PE)
 	}

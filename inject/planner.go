@@ -66,6 +66,7 @@ func (p *Planner) Water(role, id string) (reaction.Solution, *assess.Record, err
 	}
 	var sw speciation.Water
 	assess.SpeciationWater(&sw, &hit.Water, hit.TempC())
+	sw.PressureBar = hit.PressureBar
 	sol, _, err := p.reactor.Prepare(&sw)
 	if err != nil {
 		return reaction.Solution{}, nil, fmt.Errorf("%s %s: %w", role, id, err)

@@ -33,6 +33,9 @@ func WriteWaterView(w io.Writer, r *assess.Record, verbose bool) error {
 	fmt.Fprintln(&b, "\nThe water")
 	if res != nil {
 		fmt.Fprintf(&b, "  %.1f C, pH %.2f (%s), ionic strength %s mol/kgw (%s activity model)\n", res.TempC, res.PH, phSource(s.PHSource), Sig(res.IonicStrength, 3), res.Model)
+		if res.PressureBar != 1 {
+			fmt.Fprintf(&b, "  at %.4g bar (absolute): mineral log K corrected for pressure where the data allow; aqueous constants at 1 bar\n", res.PressureBar)
+		}
 		if res.HasLogPCO2 {
 			fmt.Fprintf(&b, "  log pCO2 %.2f (CO2 partial pressure in atm, in equilibrium with the water)\n", res.LogPCO2)
 		}

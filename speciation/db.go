@@ -132,7 +132,34 @@ type Mineral struct {
 	Reaction      string
 	TempNote      string
 	ValidTempC    [2]float64 // temperature range of LogK in C (valid_temp_c); zero if not stated
-	Line          int
+	// VolumeChange is the standard volume change of the dissolution reaction at
+	// 25 C, cm3/mol (reaction_volume_cm3), and CompressibilityChange its
+	// compressibility change -d(VolumeChange)/dP, cm3/(mol bar)
+	// (reaction_compressibility_cm3_bar). They correct LogK for pressure
+	// (PressureLogKShift) within ValidPressureBar, which is zero for a mineral
+	// without pressure data.
+	VolumeChange          float64
+	CompressibilityChange float64
+	ValidPressureBar      [2]float64
+	PressureSource        string
+	Line                  int
+}
+
+// HasPressureData reports whether the mineral's log K can be corrected for
+// pressure (its data give a volume change of reaction).
+func (m *Mineral) HasPressureData() bool { return m.ValidPressureBar != [2]float64{} }
+
+// LogKAt returns log10 K of the dissolution reaction at tempC (C) and
+// pressureBar (bar, absolute): the temperature function, plus the pressure
+// correction of PressureLogKShift when the mineral has pressure data (a
+// mineral without them keeps its 1 bar value). A pressure of 0 means 1 bar.
+func (m *Mineral) LogKAt(tempC, pressureBar float64) float64 {
+	tk := tempC + 273.15
+	lk := m.LogK.At(tk)
+	if m.HasPressureData() && pressureBar != 0 {
+		lk += PressureLogKShift(m.VolumeChange, m.CompressibilityChange, tk, pressureBar)
+	}
+	return lk
 }
 
 // MolarVolume returns the molar volume in cm3/mol, or 0 if the density is unknown.
@@ -408,6 +435,9 @@ func ParseDatabase(text string) (*Database, error) {
 			if m.ValidTempC, err = e.tempRange(); err != nil {
 				return nil, err
 			}
+			if err := e.pressureData(&m); err != nil {
+				return nil, err
+			}
 			m.DensitySource = e.fields["density_source"]
 			if m.MolarMass, err = e.number("mass", false); err != nil {
 				return nil, err
@@ -494,6 +524,55 @@ func (e *rawEntry) tempRange() ([2]float64, error) {
 		return r, e.errf("valid_temp_c", "%w: valid_temp_c low %g is not below high %g", ErrInvalidParameter, r[0], r[1])
 	}
 	return r, nil
+}
+
+// pressureData reads the optional reaction_volume_cm3,
+// reaction_compressibility_cm3_bar and valid_pressure_bar of a mineral: the
+// volume needs the range (the data's range is always stated) and the
+// compressibility needs the volume.
+func (e *rawEntry) pressureData(m *Mineral) error {
+	_, hasV := e.fields["reaction_volume_cm3"]
+	_, hasK := e.fields["reaction_compressibility_cm3_bar"]
+	rng, hasR := e.fields["valid_pressure_bar"]
+	if !hasV && !hasK && !hasR {
+		return nil
+	}
+	if e.kind != "mineral" {
+		return e.errf("reaction_volume_cm3", "%w: pressure data are for minerals, not for a %s", ErrInvalidParameter, e.kind)
+	}
+	if !hasV {
+		key := "valid_pressure_bar"
+		if hasK {
+			key = "reaction_compressibility_cm3_bar"
+		}
+		return e.errf(key, "%w \"reaction_volume_cm3\" (needed with %s)", ErrMissingField, key)
+	}
+	if !hasR {
+		return e.errf("reaction_volume_cm3", "%w \"valid_pressure_bar\" (the range of the pressure data must be stated)", ErrMissingField)
+	}
+	var err error
+	if m.VolumeChange, err = e.number("reaction_volume_cm3", true); err != nil {
+		return err
+	}
+	if m.CompressibilityChange, err = e.number("reaction_compressibility_cm3_bar", false); err != nil {
+		return err
+	}
+	f := strings.Fields(rng)
+	if len(f) != 2 {
+		return e.errf("valid_pressure_bar", "%w: valid_pressure_bar needs two numbers, low and high", ErrSyntax)
+	}
+	for i, p := range f {
+		x, err := strconv.ParseFloat(p, 64)
+		if err != nil || !finite(x) {
+			return e.errf("valid_pressure_bar", "%w: %q is not a number", ErrSyntax, p)
+		}
+		m.ValidPressureBar[i] = x
+	}
+	if r := m.ValidPressureBar; r[0] <= 0 || r[0] >= r[1] {
+		return e.errf("valid_pressure_bar", "%w: valid_pressure_bar needs 0 < low < high, got %g %g", ErrInvalidParameter, r[0], r[1])
+	}
+	m.PressureSource = e.fields["pressure_source"]
+	return nil
 }
 
 func (e *rawEntry) ionParams(s *Species) error {

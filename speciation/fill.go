@@ -32,6 +32,8 @@ func (s *Solver) fill(res *Result, w *Water) {
 	}
 	res.Model = s.model.Name()
 	res.TempC = w.TempC
+	p := pressureOf(w)
+	res.PressureBar = p
 	res.Iterations = s.iters
 	res.IonicStrength = I
 	res.WaterActivity = exp10(s.logAw)
@@ -130,7 +132,15 @@ func (s *Solver) fill(res *Result, w *Water) {
 		}
 		vr := mn.ValidTempC
 		outside := vr != [2]float64{} && (w.TempC < vr[0] || w.TempC > vr[1])
-		minerals = append(minerals, MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk, OutsideTempRange: outside})
+		msi := MineralSI{Name: mn.Name, SI: iap - lk, LogIAP: iap, LogK: lk, OutsideTempRange: outside}
+		if p != 1 {
+			if pr := mn.ValidPressureBar; mn.HasPressureData() {
+				msi.OutsidePressureRange = p < pr[0] || p > pr[1]
+			} else {
+				msi.NoPressureData = true
+			}
+		}
+		minerals = append(minerals, msi)
 	}
 	res.Minerals = minerals
 	for k, pi := range s.eqPhase {

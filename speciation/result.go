@@ -10,6 +10,7 @@ import (
 // Errors of a solve. A *SolveError wraps one of these.
 var (
 	ErrTemperature   = errors.New("speciation: temperature outside 0-100 C")
+	ErrPressure      = errors.New("speciation: pressure outside 0.5-1000 bar")
 	ErrInput         = errors.New("speciation: invalid water")
 	ErrNoConvergence = errors.New("speciation: solver did not converge")
 	ErrSingular      = errors.New("speciation: singular Jacobian")
@@ -19,7 +20,7 @@ var (
 type SolveError struct {
 	Reason     string
 	Iterations int
-	Err        error // ErrTemperature, ErrInput, ErrNoConvergence or ErrSingular
+	Err        error // ErrTemperature, ErrPressure, ErrInput, ErrNoConvergence or ErrSingular
 }
 
 func (e *SolveError) Error() string { return e.Err.Error() + ": " + e.Reason }
@@ -55,6 +56,12 @@ type MineralSI struct {
 	// OutsideTempRange is set when the temperature lies outside the range over
 	// which the mineral's log K function holds (Mineral.ValidTempC).
 	OutsideTempRange bool
+	// OutsidePressureRange is set when the pressure lies above (or below) the
+	// range of the mineral's pressure data (Mineral.ValidPressureBar): its log K
+	// is extrapolated. NoPressureData is set when a pressure other than 1 bar was
+	// given and the mineral has no pressure data: its log K is the 1 bar value.
+	OutsidePressureRange bool
+	NoPressureData       bool
 }
 
 // PhaseAmount is the amount of a mineral dissolved (> 0) or precipitated (< 0) to
@@ -87,10 +94,12 @@ type Indices struct {
 
 // Result is the speciation of one water.
 type Result struct {
-	Model      string
-	TempC      float64
-	PH         float64 // -log10 a(H+) (input pH, or computed)
-	Iterations int
+	Model string
+	TempC float64
+	// PressureBar is the pressure of the solve, bar (1 when none was given).
+	PressureBar float64
+	PH          float64 // -log10 a(H+) (input pH, or computed)
+	Iterations  int
 
 	IonicStrength float64 // mol/kgw
 	WaterActivity float64

@@ -16,6 +16,9 @@ func (s *Solver) setup(w *Water) error {
 	if !finite(w.TempC) || w.TempC < MinTempC || w.TempC > MaxTempC {
 		return &SolveError{Reason: fmt.Sprintf("temperature %g C is outside %g-%g C", w.TempC, MinTempC, MaxTempC), Err: ErrTemperature}
 	}
+	if p := w.PressureBar; p != 0 && !(p >= MinPressureBar && p <= MaxPressureBar) {
+		return &SolveError{Reason: fmt.Sprintf("pressure %g bar is outside %g-%g bar", p, MinPressureBar, MaxPressureBar), Err: ErrPressure}
+	}
 	s.alk = 0
 	for i := range s.role {
 		s.role[i], s.total[i], s.phaseOf[i], s.target[i] = roleAbsent, 0, -1, 0
@@ -163,7 +166,7 @@ func (s *Solver) setup(w *Water) error {
 		}
 	}
 	// Temperature-dependent constants (cached).
-	if w.TempC != s.lastT {
+	if p := pressureOf(w); w.TempC != s.lastT || p != s.lastP {
 		T := w.TempC + 273.15
 		lt := math.Log10(T)
 		for i := range db.species {
@@ -171,11 +174,15 @@ func (s *Solver) setup(w *Water) error {
 			s.logK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
 		}
 		for i := range db.minerals {
-			f := &db.minerals[i].LogK
+			m := &db.minerals[i]
+			f := &m.LogK
 			s.phLogK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
+			if p != 1 && m.HasPressureData() {
+				s.phLogK[i] += PressureLogKShift(m.VolumeChange, m.CompressibilityChange, T, p)
+			}
 		}
 		s.st.A, s.st.B = DebyeHuckelAB(w.TempC)
-		s.lastT = w.TempC
+		s.lastT, s.lastP = w.TempC, p
 	}
 	s.st.TempC = w.TempC
 
@@ -440,4 +447,12 @@ func nuOf(terms []Term, ci int) float64 {
 		}
 	}
 	return 0
+}
+
+// pressureOf is the pressure of a water in bar: 1 when none was given.
+func pressureOf(w *Water) float64 {
+	if w.PressureBar == 0 {
+		return 1
+	}
+	return w.PressureBar
 }

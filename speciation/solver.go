@@ -53,6 +53,7 @@ type Solver struct {
 	logK     []float64 // at the current temperature (cached)
 	phLogK   []float64 // minerals at the current temperature
 	lastT    float64
+	lastP    float64   // pressure of phLogK, bar
 	alkSp    []float64 // alkalinity equivalents per species
 	alkComp  []float64
 
@@ -163,6 +164,7 @@ func NewSolver(db *Database, model ActivityModel) *Solver {
 	s.logK = make([]float64, ns)
 	s.phLogK = make([]float64, nm)
 	s.lastT = math.NaN()
+	s.lastP = math.NaN()
 	s.alkSp = make([]float64, ns)
 	for i := range db.species {
 		s.alkSp[i] = db.species[i].Alkalinity

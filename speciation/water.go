@@ -8,6 +8,13 @@ type Water struct {
 	TempC float64 // temperature, C (0-100)
 	PH    float64 // pH (activity scale); ignored when PHFromChargeBalance is set
 
+	// PressureBar is the total pressure in bar (absolute), from MinPressureBar to
+	// MaxPressureBar; 0 means 1 bar. At a pressure other than 1 bar the log K of
+	// the minerals with pressure data (Mineral.HasPressureData) is corrected
+	// (Mineral.LogKAt); the other minerals and all aqueous species keep their
+	// 1 bar constants.
+	PressureBar float64
+
 	// PHFromChargeBalance computes H+ from the charge balance instead of fixing it
 	// from PH (e.g. pure water with calcite and a CO2 pressure).
 	PHFromChargeBalance bool

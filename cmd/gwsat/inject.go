@@ -69,11 +69,16 @@ func (p *planFlags) planner(e *env, args []string, extra ...string) (*inject.Pla
 	if err := g.outputs(append([]string{p.out, p.figure}, extra...)...); err != nil {
 		return nil, err
 	}
+	if strings.EqualFold(strings.TrimSpace(p.in.pressure), "hydrostatic") {
+		return nil, usagef("--pressure hydrostatic: the injection commands solve every step at one pressure; give it in bar (or with a unit)")
+	}
 	_, recs, ch, err := p.in.assessAll(e, args, false)
 	if err != nil {
 		return nil, err
 	}
-	return inject.NewPlanner(ch.db, ch.model, recs), nil
+	pl := inject.NewPlanner(ch.db, ch.model, recs)
+	pl.Reactor().PressureBar = ch.pressureBar
+	return pl, nil
 }
 
 // finish writes the table, the figure and the summary of a command.

@@ -41,6 +41,7 @@ type inputFlags struct {
 	delimiter  string
 	decimal    string
 	orpRef     string
+	pressure   string
 }
 
 func (f *inputFlags) register(fs *pflag.FlagSet) {
@@ -59,6 +60,7 @@ func (f *inputFlags) register(fs *pflag.FlagSet) {
 	fs.StringVar(&f.delimiter, "delimiter", "", "force the field delimiter: a single character, or 'tab' (default: detected)")
 	fs.StringVar(&f.decimal, "decimal", "", "force the decimal separator: '.' or ',' (default: detected)")
 	fs.StringVar(&f.orpRef, "orp-electrode", "", "reference electrode of ORP readings, to convert them to Eh: e.g. 'Ag/AgCl sat KCl', 'Ag/AgCl 3M KCl', 'calomel sat' (default: ORP not used)")
+	fs.StringVar(&f.pressure, "pressure", "", "absolute pressure for the mineral log K of rows without a Pressure column: a number in bar, or with a unit (25MPa, 3600psi, atm, kPa), or 'hydrostatic' (1 bar + 0.0981 bar per metre of sample depth); default 1 bar")
 	fs.StringVar(&f.fieldSheet, "field-sheet", "", "a file of field measurements (pH, temperature, conductance, dissolved oxygen, Eh/ORP) joined to the lab rows on sample id, or on well id and date")
 }
 
@@ -213,6 +215,9 @@ type chemistry struct {
 	model speciation.ActivityModel
 	bal   string
 	orp   string
+	// pressureBar (0 for 1 bar) or hydrostatic: the --pressure flag
+	pressureBar float64
+	hydrostatic bool
 }
 
 func (f *inputFlags) chemistry() (*chemistry, error) {
@@ -233,11 +238,28 @@ func (f *inputFlags) chemistry() (*chemistry, error) {
 			return nil, fmt.Errorf("--orp-electrode: %w", err)
 		}
 	}
-	return &chemistry{db: db, model: model, bal: bal, orp: f.orpRef}, nil
+	ch := &chemistry{db: db, model: model, bal: bal, orp: f.orpRef}
+	switch p := strings.TrimSpace(f.pressure); {
+	case p == "":
+	case strings.EqualFold(p, "hydrostatic"):
+		ch.hydrostatic = true
+	default:
+		if ch.pressureBar, err = hydro.ParsePressureBar(p); err != nil {
+			return nil, fmt.Errorf("--pressure: %w", err)
+		}
+	}
+	return ch, nil
 }
 
 func (c *chemistry) options(bar *progress.Bar, detail bool) assess.Options {
-	return assess.Options{Model: c.model, BalanceOn: c.bal, ORPReference: c.orp, Progress: func() { bar.Add(1) }, Detail: detail}
+	o := c.assessOptions()
+	o.Progress, o.Detail = func() { bar.Add(1) }, detail
+	return o
+}
+
+// assessOptions are the options of assess.Run that the flags choose.
+func (c *chemistry) assessOptions() assess.Options {
+	return assess.Options{Model: c.model, BalanceOn: c.bal, ORPReference: c.orp, PressureBar: c.pressureBar, Hydrostatic: c.hydrostatic}
 }
 
 // assessAll reads and assesses every row, showing progress on a terminal;

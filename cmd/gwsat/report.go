@@ -12,7 +12,6 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 
-	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
@@ -103,7 +102,7 @@ func reportCmd(e *env) *cobra.Command {
 				progressFn = nil
 			}
 			oc2, err := sitereport.Write(e.ctx, sitereport.Options{
-				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model, Assess: assess.Options{Model: ch.model, BalanceOn: ch.bal, ORPReference: ch.orp},
+				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model, Assess: ch.assessOptions(),
 				Site:            site.Options{Minerals: chosen, Method: method, Features: feats, BandEdges: edges, ProfileRound: profileRound, ClusterColumn: cluster},
 				Inject:          so,
 				Formats:         fmts,

@@ -87,6 +87,10 @@ func (s *Solution) setTotal(component string, v float64) {
 type Reactor struct {
 	// PH selects how the pH of a changed water is found (default ConserveAlkalinity).
 	PH PHMode
+	// PressureBar is the absolute pressure, bar, at which every changed water is
+	// solved (speciation.Water.PressureBar; 0 means 1 bar). Prepare solves a water
+	// at its own pressure.
+	PressureBar float64
 
 	db *speciation.Database
 	s  *speciation.Solver
@@ -172,6 +176,7 @@ func (r *Reactor) solve(sol *Solution, eq []string) (*speciation.Result, error) 
 		w := &r.w
 		w.Reset()
 		w.TempC = sol.TempC
+		w.PressureBar = r.PressureBar
 		w.PH = ph
 		w.PHFromChargeBalance = cb
 		for _, t := range sol.Totals {
