@@ -200,7 +200,6 @@ func lookupSIs(dst []siValue, res *speciation.Result, minerals []string) []siVal
 	return dst
 }
 
-
 // sortedAnalytes lists a sample's analyte keys in the table's order.
 func sortedAnalytes(s *hydro.Sample) []string {
 	out := make([]string, 0, len(s.Analytes))

@@ -101,6 +101,9 @@ func (iv *intervalFlags) register(c *cobra.Command) {
 // it): far above what the stream holds, well below the 300 MB target.
 const checkMemoryLimit = 200 << 20
 
+// checkGCPercent is the GOGC of check (the GOGC variable overrides it).
+const checkGCPercent = 400
+
 // maxDraws bounds --draws (a typo must not run for days).
 const maxDraws = 100000
 
@@ -151,6 +154,15 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		// so that the resident memory stays flat however long the file.
 		prev := debug.SetMemoryLimit(checkMemoryLimit)
 		defer debug.SetMemoryLimit(prev)
+		if os.Getenv("GOGC") == "" {
+			// Under that limit, a collection every few times the live
+			// heap rather than every time it doubles: the stream's live
+			// heap is small and its garbage large, and collecting less
+			// often saves about a sixth of the CPU time (measured on
+			// 50,000 rows) for some tens of megabytes.
+			prevGC := debug.SetGCPercent(checkGCPercent)
+			defer debug.SetGCPercent(prevGC)
+		}
 	}
 	if iv.on && !(iv.draws > 0 && iv.draws <= maxDraws) {
 		return usagef("--draws %d: give 1 to %d", iv.draws, maxDraws)
