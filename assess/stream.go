@@ -22,6 +22,18 @@ type Item struct {
 // next or emit stops the stream and is returned (emit is never called again).
 // Records handed to emit are valid only during the call.
 func Stream(ctx context.Context, db *speciation.Database, next func() (Item, bool, error), opt Options, emit func(*Record) error) error {
+	return StreamPrepared(ctx, db, next, opt, nil, func(r *Record, _ *struct{}) error { return emit(r) })
+}
+
+// StreamPrepared is Stream with a second step of work per row that runs on
+// the workers too: prepare (when not nil) is called on the worker that
+// assessed the record, right after it, with a value of type T that belongs
+// to the record's slot; emit then gets the record and that value, in input
+// order. A slot's value is kept from one row to the next (a few slots per
+// worker), so that buffers in it are reused; prepare must not keep the
+// record. This lets the formatting of each row's output run in parallel
+// while the output itself is written in order.
+func StreamPrepared[T any](ctx context.Context, db *speciation.Database, next func() (Item, bool, error), opt Options, prepare func(*Record, *T), emit func(*Record, *T) error) error {
 	auto := opt.Model == nil
 	if auto {
 		opt.Model = speciation.TruesdellJones{}
@@ -35,6 +47,7 @@ func Stream(ctx context.Context, db *speciation.Database, next func() (Item, boo
 	// slots in the order they were handed out.
 	type slot struct {
 		rec  Record
+		val  T
 		done chan struct{}
 	}
 	inFlight := 8 * workers
@@ -65,6 +78,9 @@ func Stream(ctx context.Context, db *speciation.Database, next func() (Item, boo
 			var sw speciation.Water
 			for s := range work {
 				assessOne(&s.rec, solver, brine, &sw, opt)
+				if prepare != nil {
+					prepare(&s.rec, &s.val)
+				}
 				s.done <- struct{}{}
 			}
 		}()
@@ -101,7 +117,7 @@ func Stream(ctx context.Context, db *speciation.Database, next func() (Item, boo
 			if opt.Progress != nil {
 				opt.Progress()
 			}
-			if emitErr = emit(&s.rec); emitErr != nil {
+			if emitErr = emit(&s.rec, &s.val); emitErr != nil {
 				cancel()
 			}
 		}

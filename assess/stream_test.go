@@ -104,3 +104,44 @@ func TestStreamStopsOnError(t *testing.T) {
 		t.Fatalf("err %v after %d records", err, got)
 	}
 }
+
+// StreamPrepared runs prepare on each record before emit sees it, and emit
+// gets, in input order, the value prepare filled for that same record,
+// although the slots' values are reused from row to row.
+func TestStreamPreparedPairsValueWithRecord(t *testing.T) {
+	db, err := speciation.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	b := demoBatch(t)
+	batches := []*hydro.Batch{b, b, b, b}
+	type val struct {
+		file string
+		line int
+		n    int // rows this slot prepared
+	}
+	for _, workers := range []int{1, 3} {
+		i, reused := 0, false
+		prepare := func(r *Record, v *val) {
+			v.file, v.line = r.File, r.Row.Line
+			v.n++
+		}
+		err := StreamPrepared(context.Background(), db, BatchItems(batches), Options{Workers: workers}, prepare, func(r *Record, v *val) error {
+			if want := b.Rows[i%len(b.Rows)].Line; r.Row.Line != want || v.line != want || v.file != r.File {
+				t.Fatalf("%d workers: record %d is line %d with value of line %d, want %d", workers, i, r.Row.Line, v.line, want)
+			}
+			reused = reused || v.n > 1
+			i++
+			return nil
+		})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if i != len(batches)*len(b.Rows) {
+			t.Fatalf("%d workers: %d records, want %d", workers, i, len(batches)*len(b.Rows))
+		}
+		if !reused {
+			t.Errorf("%d workers: no slot value was reused", workers)
+		}
+	}
+}

@@ -60,48 +60,62 @@ func NewSampleWriter(w io.Writer) *SampleWriter {
 
 // Write adds one feature.
 func (sw *SampleWriter) Write(f PointFeature) error {
-	bw := sw.bw
+	var err error
+	sw.buf, err = EncodeFeature(sw.buf[:0], &f)
+	return sw.WriteEncoded(sw.buf, err)
+}
+
+// WriteEncoded adds one feature that EncodeFeature encoded, with the error
+// it returned: features can be encoded in parallel and written in order.
+func (sw *SampleWriter) WriteEncoded(enc []byte, encErr error) error {
 	i := sw.n
+	if encErr != nil {
+		return fmt.Errorf("geo: feature %d: %w", i, encErr)
+	}
 	if i > 0 {
-		bw.WriteByte(',')
+		sw.bw.WriteByte(',')
 	}
 	sw.n++
-	bw.WriteString("\n{\"type\":\"Feature\"")
+	_, err := sw.bw.Write(enc)
+	return err
+}
+
+// EncodeFeature appends one feature of a collection, as SampleWriter writes
+// it (without the comma between features), to dst.
+func EncodeFeature(dst []byte, f *PointFeature) ([]byte, error) {
+	dst = append(dst, "\n{\"type\":\"Feature\""...)
 	if f.ID != "" {
-		id, _ := json.Marshal(f.ID) // a string always marshals
-		bw.WriteString(`,"id":`)
-		bw.Write(id)
+		dst = append(dst, `,"id":`...)
+		dst = appendJSONString(dst, f.ID)
 	}
-	if ValidLonLat(f.Point) != nil {
-		bw.WriteString(`,"geometry":null`)
+	if !validLonLat(f.Point) {
+		dst = append(dst, `,"geometry":null`...)
 	} else {
 		p := Round(f.Point)
-		bw.WriteString(`,"geometry":{"type":"Point","coordinates":[`)
-		bw.WriteString(formatCoord(p[0]))
-		bw.WriteByte(',')
-		bw.WriteString(formatCoord(p[1]))
-		bw.WriteString(`]}`)
+		dst = append(dst, `,"geometry":{"type":"Point","coordinates":[`...)
+		dst = appendCoord(dst, p[0])
+		dst = append(dst, ',')
+		dst = appendCoord(dst, p[1])
+		dst = append(dst, `]}`...)
 	}
-	bw.WriteString(`,"properties":{`)
+	dst = append(dst, `,"properties":{`...)
 	for k, pr := range f.Props {
 		for _, q := range f.Props[:k] {
 			if q.Key == pr.Key {
-				return fmt.Errorf("geo: feature %d: duplicate property %q", i, pr.Key)
+				return dst, fmt.Errorf("duplicate property %q", pr.Key)
 			}
 		}
 		if k > 0 {
-			bw.WriteByte(',')
+			dst = append(dst, ',')
 		}
-		sw.buf = appendJSONString(sw.buf[:0], pr.Key)
-		sw.buf = append(sw.buf, ':')
+		dst = appendJSONString(dst, pr.Key)
+		dst = append(dst, ':')
 		var err error
-		if sw.buf, err = appendJSONValue(sw.buf, cleanValue(pr.Value)); err != nil {
-			return fmt.Errorf("geo: feature %d: property %q: %w", i, pr.Key, err)
+		if dst, err = appendJSONValue(dst, cleanValue(pr.Value)); err != nil {
+			return dst, fmt.Errorf("property %q: %w", pr.Key, err)
 		}
-		bw.Write(sw.buf)
 	}
-	bw.WriteString("}}")
-	return nil
+	return append(dst, "}}"...), nil
 }
 
 // Close ends the collection and flushes it.
@@ -174,4 +188,20 @@ func formatCoord(x float64) string {
 		s = "0"
 	}
 	return s
+}
+
+// appendCoord appends x as formatCoord writes it.
+func appendCoord(dst []byte, x float64) []byte {
+	n := len(dst)
+	dst = strconv.AppendFloat(dst, x, 'f', 6, 64)
+	for len(dst) > n && dst[len(dst)-1] == '0' {
+		dst = dst[:len(dst)-1]
+	}
+	if len(dst) > n && dst[len(dst)-1] == '.' {
+		dst = dst[:len(dst)-1]
+	}
+	if string(dst[n:]) == "-0" {
+		dst = append(dst[:n], '0')
+	}
+	return dst
 }

@@ -156,3 +156,12 @@ func TestReadSiteFeaturesErrors(t *testing.T) {
 		}
 	}
 }
+
+// appendCoord writes what formatCoord writes.
+func TestAppendCoordMatchesFormatCoord(t *testing.T) {
+	for _, x := range []float64{0, math.Copysign(0, -1), -0.0000001, 0.0000004, 1, -1, 10, 100.5, -100.137837, 30.9120001, 179.9999996, -179.9999995, 1e-7, 123456.000001} {
+		if got, want := string(appendCoord([]byte("x"), x)), "x"+formatCoord(x); got != want {
+			t.Errorf("appendCoord(%v) = %q, want %q", x, got, want)
+		}
+	}
+}

@@ -22,6 +22,9 @@ var (
 // error means usable. Callers keep a failing row in their tables, flag it
 // with the error and leave it off maps.
 func ValidLonLat(p orb.Point) error {
+	if validLonLat(p) {
+		return nil
+	}
 	lon, lat := p[0], p[1]
 	switch {
 	case !finite(lon) || !finite(lat):
@@ -34,6 +37,13 @@ func ValidLonLat(p orb.Point) error {
 		return ErrNullIsland
 	}
 	return nil
+}
+
+// validLonLat reports whether ValidLonLat accepts p, without building the
+// error.
+func validLonLat(p orb.Point) bool {
+	lon, lat := p[0], p[1]
+	return finite(lon) && finite(lat) && lat >= -90 && lat <= 90 && lon >= -180 && lon <= 180 && !(lon == 0 && lat == 0)
 }
 
 // Round returns p rounded to 1e-6 degree (about 0.1 m), the precision used

@@ -2,6 +2,7 @@ package hydro
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 	"time"
 )
@@ -63,10 +64,14 @@ func (i Issue) String() string {
 	b.WriteString(i.Severity.String())
 	b.WriteString(": ")
 	if i.Line > 0 {
-		fmt.Fprintf(&b, "line %d: ", i.Line)
+		b.WriteString("line ")
+		b.WriteString(strconv.Itoa(i.Line))
+		b.WriteString(": ")
 	}
 	if i.Column != "" {
-		fmt.Fprintf(&b, "column %q: ", i.Column)
+		b.WriteString("column ")
+		b.WriteString(strconv.Quote(i.Column)) // as fmt's %q
+		b.WriteString(": ")
 	}
 	b.WriteString(i.Message)
 	return b.String()

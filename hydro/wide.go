@@ -25,7 +25,17 @@ func (rd *reader) ragged(rec []string) bool {
 
 // wideRow reads one record as one Row.
 func (rd *reader) wideRow(rec []string, line int) Row {
-	row := Row{Line: line, Sample: newSample()}
+	nConc, nExtra := 0, 0
+	for i := range rd.specs {
+		switch {
+		case rd.specs[i].Param == "":
+			nExtra++
+		case rd.specs[i].Class == clConc:
+			nConc++
+		}
+	}
+	// Maps sized for the row's columns at once, not grown cell by cell.
+	row := Row{Line: line, Sample: Sample{Analytes: make(map[string]Measurement, nConc), Extra: make(map[string]string, nExtra)}}
 	s := &row.Sample
 	if rd.ragged(rec) {
 		if len(rec) < len(rd.header) {

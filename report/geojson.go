@@ -1,9 +1,9 @@
 package report
 
 import (
-	"fmt"
 	"io"
 	"math"
+	"strconv"
 	"strings"
 
 	"github.com/paulmach/orb"
@@ -17,14 +17,40 @@ import (
 // without a usable position gets a null geometry, so it stays in the file while
 // a GIS leaves it off the map.
 func SampleFeature(r *assess.Record, minerals []string) geo.PointFeature {
-	s := r.Sample()
-	p, err := assess.Position(s)
+	siKeys := make([]string, len(minerals))
+	for i, m := range minerals {
+		siKeys[i] = ColumnName(m)
+	}
+	var sis []siValue
+	if r.Result != nil {
+		sis = lookupSIs(nil, r.Result, minerals)
+	}
+	mgKey := func(k string) string { return strings.ToLower(k) + "_mg_l" }
+	props := sampleProps(nil, r, strings.Join(r.Reasons(), "; "), siKeys, sis, sortedAnalytes(r.Sample()), mgKey)
+	return geo.PointFeature{ID: featureID(r), Point: samplePoint(r), Props: props}
+}
+
+// featureID is a feature's id: the file and line of its row.
+func featureID(r *assess.Record) string { return r.File + ":" + strconv.Itoa(r.Row.Line) }
+
+// samplePoint is a record's position; NaN (a null geometry) when it has none.
+func samplePoint(r *assess.Record) orb.Point {
+	p, err := assess.Position(r.Sample())
 	if err != nil {
 		p = orb.Point{math.NaN(), math.NaN()} // written with a null geometry
 	}
-	props := []geo.Prop{{Key: "sample_id", Value: s.ID}, {Key: "well_id", Value: s.WellID}, {Key: "round", Value: s.Round},
-		{Key: "event", Value: s.Event}, {Key: "sampled_at", Value: sampledAt(s)},
-		{Key: "line", Value: r.Row.Line}, {Key: "status", Value: string(r.Status)}, {Key: "reasons", Value: strings.Join(r.Reasons(), "; ")}}
+	return p
+}
+
+// sampleProps appends the properties of SampleFeature to props: reasons is
+// the record's reasons joined, siKeys the property names of the minerals
+// and sis their indices (lookupSIs; nil without a result), analytes the
+// sample's analyte keys in table order and mgKey the property of each.
+func sampleProps(props []geo.Prop, r *assess.Record, reasons string, siKeys []string, sis []siValue, analytes []string, mgKey func(string) string) []geo.Prop {
+	s := r.Sample()
+	props = append(props, geo.Prop{Key: "sample_id", Value: s.ID}, geo.Prop{Key: "well_id", Value: s.WellID}, geo.Prop{Key: "round", Value: s.Round},
+		geo.Prop{Key: "event", Value: s.Event}, geo.Prop{Key: "sampled_at", Value: sampledAt(s)},
+		geo.Prop{Key: "line", Value: r.Row.Line}, geo.Prop{Key: "status", Value: string(r.Status)}, geo.Prop{Key: "reasons", Value: reasons})
 	if d, ok := assess.DepthM(s); ok {
 		props = append(props, geo.Prop{Key: "depth_m", Value: d})
 	}
@@ -36,15 +62,15 @@ func SampleFeature(r *assess.Record, minerals []string) geo.PointFeature {
 	}
 	if res := r.Result; res != nil {
 		props = append(props, geo.Prop{Key: "ionic_strength_mol_kgw", Value: res.IonicStrength})
-		for _, m := range minerals {
-			if si, ok := res.SI(m); ok {
-				props = append(props, geo.Prop{Key: ColumnName(m), Value: si})
+		for i, si := range sis {
+			if si.ok {
+				props = append(props, geo.Prop{Key: siKeys[i], Value: si.v})
 			}
 		}
 	}
-	for _, k := range sortedAnalytes(s) {
+	for _, k := range analytes {
 		if m := s.Analytes[k]; m.MgPerL.OK {
-			props = append(props, geo.Prop{Key: strings.ToLower(k) + "_mg_l", Value: m.MgPerL.V})
+			props = append(props, geo.Prop{Key: mgKey(k), Value: m.MgPerL.V})
 		}
 	}
 	for _, x := range s.ExtraColumns {
@@ -57,7 +83,7 @@ func SampleFeature(r *assess.Record, minerals []string) geo.PointFeature {
 		}
 		props = append(props, geo.Prop{Key: key, Value: x.Value})
 	}
-	return geo.PointFeature{ID: fmt.Sprintf("%s:%d", r.File, r.Row.Line), Point: p, Props: props}
+	return props
 }
 
 // WriteGeoJSON writes every record as an RFC 7946 point feature (SampleFeature).

@@ -95,12 +95,23 @@ func SampleTable(recs []assess.Record, cols Columns) *Table {
 
 // Row is the table row of one record.
 func (c Columns) Row(r *assess.Record) []string {
-	s := r.Sample()
-	row := []string{
-		Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round), Text(s.Event), sampledAt(s),
-		string(r.Status), Text(strings.Join(r.Reasons(), "; ")),
-		opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
+	var sis []siValue
+	if r.Result != nil {
+		sis = lookupSIs(nil, r.Result, c.Minerals)
 	}
+	return c.appendRow(nil, r, strings.Join(r.Reasons(), "; "), sis)
+}
+
+// appendRow appends the table row of one record to row: reasons is the
+// record's reasons joined, sis the saturation indices of c.Minerals
+// (lookupSIs; nil without a result).
+func (c Columns) appendRow(row []string, r *assess.Record, reasons string, sis []siValue) []string {
+	s := r.Sample()
+	row = append(row,
+		Text(r.File), strconv.Itoa(r.Row.Line), Text(s.ID), Text(s.WellID), Text(s.Round), Text(s.Event), sampledAt(s),
+		string(r.Status), Text(reasons),
+		opt(s.Lat, 6), opt(s.Lon, 6), opt(s.Easting, 2), opt(s.Northing, 2), epsg(s.EPSG),
+	)
 	d, ok := assess.DepthM(s)
 	row = append(row, Cond(ok, Num(d, 2)), opt(s.ScreenTopM, 2), opt(s.ScreenBottomM, 2), opt(s.GroundElevM, 2),
 		opt(s.TempC, 1), s.TempSource, opt(s.PH, 2), s.PHSource, Cond(s.FieldLine > 0, strconv.Itoa(s.FieldLine)),
@@ -115,7 +126,7 @@ func (c Columns) Row(r *assess.Record) []string {
 	} else {
 		row = append(row, "", "", "")
 	}
-	row = append(row, strings.Join(SubstitutedAnalytes(s), " "))
+	row = append(row, substituted(s))
 	b := r.Balance
 	if b.CationsMeqL > 0 || b.AnionsMeqL > 0 {
 		row = append(row, Num(b.CationsMeqL, 3), Num(b.AnionsMeqL, 3), Num(b.ErrorPct, 2), string(b.Status))
@@ -131,9 +142,8 @@ func (c Columns) Row(r *assess.Record) []string {
 		row = append(row, res.Model, Sig(res.IonicStrength, 6), Cond(res.HasLogPCO2, Num(res.LogPCO2, 4)), Num(res.ChargeBalance, 2),
 			Cond(res.Indices.HasLangelier, Num(res.Indices.Langelier, 3)), Cond(res.Indices.HasLangelier, Num(res.Indices.Ryznar, 3)),
 			Cond(res.Indices.HasLarsonSkold, Num(res.Indices.LarsonSkold, 3)))
-		for _, m := range c.Minerals {
-			si, ok := res.SI(m)
-			row = append(row, Cond(ok, Full(si)))
+		for _, si := range sis {
+			row = append(row, Cond(si.ok, Full(si.v)))
 		}
 	}
 	for _, a := range c.Analytes {
@@ -152,6 +162,42 @@ func (c Columns) Row(r *assess.Record) []string {
 		row = append(row, Text(extraValue(s, h)))
 	}
 	return row
+}
+
+// substituted is the nondetects_substituted cell: the analytes whose value
+// came from the non-detect policy, sorted, separated by spaces.
+func substituted(s *hydro.Sample) string {
+	for _, m := range s.Analytes {
+		if m.Substituted {
+			return strings.Join(SubstitutedAnalytes(s), " ")
+		}
+	}
+	return ""
+}
+
+// siValue is a mineral's saturation index in a result, ok false when the
+// result has none.
+type siValue struct {
+	v  float64
+	ok bool
+}
+
+// lookupSIs appends to dst the saturation index in res of each of minerals,
+// as res.SI gives it. A result lists its minerals once each, in data-set
+// order, as the table's columns usually are: a cursor finds each in one
+// comparison, and a mineral not at the cursor is looked up by res.SI.
+func lookupSIs(dst []siValue, res *speciation.Result, minerals []string) []siValue {
+	k := 0
+	for _, m := range minerals {
+		if k < len(res.Minerals) && res.Minerals[k].Name == m {
+			dst = append(dst, siValue{res.Minerals[k].SI, true})
+			k++
+			continue
+		}
+		si, ok := res.SI(m)
+		dst = append(dst, siValue{si, ok})
+	}
+	return dst
 }
 
 // sortedAnalytes lists a sample's analyte keys in the table's order.

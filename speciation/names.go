@@ -3,6 +3,7 @@ package speciation
 import (
 	"strings"
 	"unicode"
+	"unicode/utf8"
 )
 
 // CanonicalName writes a species name in the data set's notation: IUPAC charge
@@ -113,6 +114,26 @@ func mineralKey(name string) string {
 		}
 	}
 	return b.String()
+}
+
+// hasKey reports whether mineralKey(name) == key, without building the key
+// of name; key is a mineralKey.
+func hasKey(name, key string) bool {
+	j := 0
+	for _, r := range name {
+		if r == ' ' || r == '-' || r == '_' || r == '(' || r == ')' {
+			continue
+		}
+		if j >= len(key) {
+			return false
+		}
+		k, size := utf8.DecodeRuneInString(key[j:])
+		if k != unicode.ToLower(r) {
+			return false
+		}
+		j += size
+	}
+	return j == len(key)
 }
 
 // mineralAliases are other names in use for minerals of the data set, accepted on

@@ -169,7 +169,7 @@ func (r *Result) Mineral(name string) *MineralSI {
 		key = alias
 	}
 	for i := range r.Minerals {
-		if mineralKey(r.Minerals[i].Name) == key {
+		if hasKey(r.Minerals[i].Name, key) {
 			return &r.Minerals[i]
 		}
 	}

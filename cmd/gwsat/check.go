@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -100,12 +101,45 @@ func (iv *intervalFlags) register(c *cobra.Command) {
 // it): far above what the stream holds, well below the 300 MB target.
 const checkMemoryLimit = 200 << 20
 
+// checkGCPercent is the GOGC of check (the GOGC variable overrides it).
+const checkGCPercent = 400
+
 // maxDraws bounds --draws (a typo must not run for days).
 const maxDraws = 100000
 
 // intervalChunk is how many rows are held to estimate their intervals together
 // (on every core) before they are written.
 const intervalChunk = 256
+
+// rowOutput is one row's table line and GeoJSON feature, encoded on the
+// worker that speciated the row (assess.StreamPrepared); its buffers are
+// reused from row to row.
+type rowOutput struct {
+	f          *report.RowFormatter
+	line       bytes.Buffer
+	cw         *csv.Writer
+	feature    []byte
+	featureErr error
+}
+
+// format encodes r's table line and, when withFeature, its GeoJSON feature.
+func (o *rowOutput) format(r *assess.Record, cols report.Columns, minerals []string, withFeature bool) {
+	if o.f == nil {
+		o.f = report.NewRowFormatter(cols, minerals)
+		o.cw = csv.NewWriter(&o.line)
+	}
+	o.line.Reset()
+	var row []string
+	if withFeature {
+		var pf geo.PointFeature
+		row, pf = o.f.RowAndFeature(r)
+		o.feature, o.featureErr = geo.EncodeFeature(o.feature[:0], &pf)
+	} else {
+		row = o.f.Row(r)
+	}
+	o.cw.Write(row) // a bytes.Buffer takes every byte
+	o.cw.Flush()
+}
 
 // checkOutputs are the files check writes ("" for none, "-" for standard output).
 type checkOutputs struct{ table, json, geojson string }
@@ -120,6 +154,15 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		// so that the resident memory stays flat however long the file.
 		prev := debug.SetMemoryLimit(checkMemoryLimit)
 		defer debug.SetMemoryLimit(prev)
+		if os.Getenv("GOGC") == "" {
+			// Under that limit, a collection every few times the live
+			// heap rather than every time it doubles: the stream's live
+			// heap is small and its garbage large, and collecting less
+			// often saves about a sixth of the CPU time (measured on
+			// 50,000 rows) for some tens of megabytes.
+			prevGC := debug.SetGCPercent(checkGCPercent)
+			defer debug.SetGCPercent(prevGC)
+		}
 	}
 	if iv.on && !(iv.draws > 0 && iv.draws <= maxDraws) {
 		return usagef("--draws %d: give 1 to %d", iv.draws, maxDraws)
@@ -232,19 +275,45 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 					chunk = chunk[:0]
 					return nil
 				}
-				err := assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
-					bar.Add(1)
-					sum.Add(r)
-					off.count(r)
-					if !iv.on {
-						return write(r, nil)
+				var err error
+				if iv.on {
+					err = assess.Stream(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, func(r *assess.Record) error {
+						bar.Add(1)
+						sum.Add(r)
+						off.count(r)
+						chunk = append(chunk, *r)
+						if len(chunk) == intervalChunk {
+							return flush()
+						}
+						return nil
+					})
+				} else {
+					// Without intervals, each row's table line and GeoJSON
+					// feature are formatted on the worker that speciated it;
+					// only the writing is in input order.
+					cw.Flush()
+					if err := cw.Error(); err != nil {
+						return err
 					}
-					chunk = append(chunk, *r)
-					if len(chunk) == intervalChunk {
-						return flush()
-					}
-					return nil
-				})
+					prepare := func(r *assess.Record, o *rowOutput) { o.format(r, cols, minerals, gs != nil) }
+					err = assess.StreamPrepared(e.ctx, ch.db, sh.filter(scanItems(ins)), opt, prepare, func(r *assess.Record, o *rowOutput) error {
+						bar.Add(1)
+						sum.Add(r)
+						off.count(r)
+						if _, err := tw.Write(o.line.Bytes()); err != nil {
+							return err
+						}
+						if js != nil {
+							if err := js.Write(r); err != nil {
+								return err
+							}
+						}
+						if gs != nil {
+							return gs.WriteEncoded(o.feature, o.featureErr)
+						}
+						return nil
+					})
+				}
 				if err == nil {
 					err = flush()
 				}
