@@ -178,7 +178,9 @@ func (rd *reader) setField(row *Row, line int, col, name string, sp colSpec, raw
 	case pPressure:
 		// The range of package speciation (MinPressureBar-MaxPressureBar).
 		if v < speciation.MinPressureBar || v > speciation.MaxPressureBar {
-			row.add(Error, CodeOutOfRange, line, col, "%spressure %g bar outside %g-%g bar (absolute)", pre, v, speciation.MinPressureBar, speciation.MaxPressureBar)
+			// A warning, not a rejection: the rest of the row is good chemistry,
+			// solved at the fallback pressure (--pressure, else 1 bar).
+			row.add(Warning, CodeOutOfRange, line, col, "%spressure %.4g bar outside %g-%g bar (absolute); ignored", pre, v, speciation.MinPressureBar, speciation.MaxPressureBar)
 			return
 		}
 		s.PressureBar = Some(v)

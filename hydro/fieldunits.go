@@ -143,7 +143,7 @@ func ParsePressureBar(s string) (float64, error) {
 	}
 	v = fu.conv(v)
 	if v < speciation.MinPressureBar || v > speciation.MaxPressureBar {
-		return 0, fmt.Errorf("hydro: pressure %g bar outside %g-%g bar (absolute)", v, speciation.MinPressureBar, speciation.MaxPressureBar)
+		return 0, fmt.Errorf("hydro: pressure %.4g bar outside %g-%g bar (absolute)", v, speciation.MinPressureBar, speciation.MaxPressureBar)
 	}
 	return v, nil
 }
