@@ -32,6 +32,9 @@ type CollectOptions struct {
 	// Keep are sample ids whose records are always kept whole (the
 	// end-members named for the injection section).
 	Keep []string
+	// CompactFrom is the index of the first record compacted (0:
+	// MaxPageRows, the rows the page's tables show in full).
+	CompactFrom int
 	// Rows is the number of rows expected (0 when unknown), so that the
 	// records are held in one allocation rather than grown by copying; above
 	// ForwardAbove the intervals take one-sided differences.
@@ -65,6 +68,10 @@ func Collect(ctx context.Context, db *speciation.Database, next func() (assess.I
 			keep[id] = true
 		}
 	}
+	from := opt.CompactFrom
+	if from <= 0 {
+		from = MaxPageRows
+	}
 	out := &Collected{Records: make([]assess.Record, 0, opt.Rows), Samples: make([]uncertainty.Sample, 0, opt.Rows)}
 	var chunk []assess.Record
 	flush := func() error {
@@ -77,7 +84,7 @@ func Collect(ctx context.Context, db *speciation.Database, next func() (assess.I
 		}
 		for i := range chunk {
 			r := &chunk[i]
-			if opt.Compact && len(out.Records) >= MaxPageRows && !keep[r.Sample().ID] && !endMember(r) {
+			if opt.Compact && len(out.Records) >= from && !keep[r.Sample().ID] && !endMember(r) {
 				compact(r)
 			}
 			out.Records = append(out.Records, *r)

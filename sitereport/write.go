@@ -234,6 +234,40 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		out.Written = append(out.Written, name)
 		return atomicfile.WriteWith(filepath.Join(opt.Dir, name), fill)
 	}
+	// The figures are drawn while the tables are written: the samples files
+	// of a large file wait on the disk and on one goroutine at times, and
+	// the figures fill the cores meanwhile.
+	type drawn struct {
+		figs []report.IndexFigure
+		errs []error
+	}
+	drawing := make(chan drawn, 1)
+	go func() {
+		f, e := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
+		drawing <- drawn{f, e}
+	}()
+	var done *drawn
+	waitFigures := func() *drawn {
+		if done == nil {
+			d := <-drawing
+			done = &d
+		}
+		return done
+	}
+	defer func() {
+		waitFigures() // no figure is written after Write returns
+		if err != nil {
+			// The run stopped before its manifest: figures that no manifest
+			// lists would make the folder look like someone else's.
+			for _, f := range figs {
+				for _, format := range fmts {
+					if rel := "figures/" + f.Stem + "." + format; !listed[rel] {
+						os.Remove(filepath.Join(opt.Dir, filepath.FromSlash(rel)))
+					}
+				}
+			}
+		}
+	}()
 	var samplesErr error
 	if opt.Reassess != nil {
 		samplesErr = write("samples.csv", func(cw io.Writer) error {
@@ -283,7 +317,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		out.Written = append(out.Written, filepath.ToSlash(rel))
 	}
 
-	rendered, ferrs := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
+	rendered, ferrs := waitFigures().figs, waitFigures().errs
 	out.FigureErrors = ferrs
 	out.Figures = len(figs) - len(ferrs)
 	for _, f := range figs {
