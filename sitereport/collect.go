@@ -32,6 +32,11 @@ type CollectOptions struct {
 	// Keep are sample ids whose records are always kept whole (the
 	// end-members named for the injection section).
 	Keep []string
+	// ClusterColumn is the column grouping wells into clusters
+	// (site.Options.ClusterColumn; "" for the default, "Cluster"): a
+	// compact record keeps it and the sample type of its unrecognised
+	// columns, and no other.
+	ClusterColumn string
 	// CompactFrom is the index of the first record compacted (0:
 	// MaxPageRows, the rows the page's tables show in full).
 	CompactFrom int
@@ -53,8 +58,8 @@ type Collected struct {
 // Compact, a record is then cut down to what the findings, maps, figures and
 // injection section read, so that memory grows by a few kilobytes per row
 // rather than by everything read and solved for it: the analytes other than
-// the major ions and the trend analytes, the unrecognised columns kept for
-// the tables, the water's molalities and the speciation's component totals
+// the major ions and the trend analytes, the unrecognised columns other
+// than the sample type and the cluster, the water's molalities and the speciation's component totals
 // are dropped. The first MaxPageRows records (the page's tables), rows whose
 // sample type is injectate or native, and the ids of Keep stay whole.
 func Collect(ctx context.Context, db *speciation.Database, next func() (assess.Item, bool, error), opt CollectOptions) (*Collected, error) {
@@ -85,7 +90,7 @@ func Collect(ctx context.Context, db *speciation.Database, next func() (assess.I
 		for i := range chunk {
 			r := &chunk[i]
 			if opt.Compact && len(out.Records) >= from && !keep[r.Sample().ID] && !endMember(r) {
-				compact(r)
+				compact(r, opt.ClusterColumn)
 			}
 			out.Records = append(out.Records, *r)
 		}
@@ -147,9 +152,22 @@ var compactAnalytes = func() []string {
 	return out
 }()
 
-// compact cuts a record down (see Collect).
-func compact(r *assess.Record) {
+// compact cuts a record down (see Collect); cluster names the cluster
+// column.
+func compact(r *assess.Record, cluster string) {
 	s := &r.Row.Sample
+	if cluster == "" {
+		cluster = findings.DefaultClusterColumn
+	}
+	if len(s.Extra) > 0 {
+		small := map[string]string{}
+		for k, v := range s.Extra {
+			if hydro.IsSampleTypeHeader(k) || strings.EqualFold(strings.TrimSpace(k), cluster) {
+				small[k] = v
+			}
+		}
+		s.Extra = small
+	}
 	if len(s.Analytes) > 0 {
 		n := 0
 		for _, k := range compactAnalytes {

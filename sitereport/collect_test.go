@@ -10,7 +10,9 @@ import (
 	"time"
 
 	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/inject"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // A report made from compact records (Collect, every record after the first
@@ -83,5 +85,31 @@ func TestCollectCompactSameReport(t *testing.T) {
 		if !bytes.Equal(a, b) {
 			t.Errorf("%s differs between whole and compact records", n)
 		}
+	}
+}
+
+// compact keeps of a record what the findings, maps and figures read: the
+// sample type and cluster columns, the major ions and trend analytes, the
+// SIs; it drops the other columns, analytes, molalities and totals.
+func TestCompactKeeps(t *testing.T) {
+	r := assess.Record{Row: hydro.Row{Sample: hydro.Sample{ID: "S1",
+		Extra:        map[string]string{" sample TYPE ": "monitoring", "cluster": "A", "Notes": "long free text"},
+		ExtraColumns: []hydro.ExtraColumn{{Header: "Notes", Value: "long free text"}},
+		Analytes:     map[string]hydro.Measurement{"Ca": {Value: 60}, "Ba": {Value: 0.1}, "Li": {Value: 0.01}, "Alk": {Value: 180}}}},
+		Water:  hydro.Water{Molal: map[string]float64{"Ca": 1e-3}, KgWaterPerL: 0.999},
+		Result: &speciation.Result{Minerals: []speciation.MineralSI{{Name: "calcite", SI: 0.4}}, Totals: []speciation.ComponentTotal{{}}}}
+	compact(&r, "Cluster")
+	s := r.Sample()
+	if len(s.Extra) != 2 || s.Type() != "monitoring" || s.Extra["cluster"] != "A" || s.ExtraColumns != nil {
+		t.Errorf("columns kept: %v, %v", s.Extra, s.ExtraColumns)
+	}
+	if _, li := s.Analytes["Li"]; li || len(s.Analytes) != 3 || s.Analytes["Ba"].Value != 0.1 {
+		t.Errorf("analytes kept: %v", s.Analytes)
+	}
+	if r.Water.Molal != nil || r.Water.KgWaterPerL != 0.999 {
+		t.Errorf("water: %+v", r.Water)
+	}
+	if si, ok := r.Result.SI("calcite"); !ok || si != 0.4 || r.Result.Totals != nil {
+		t.Errorf("result: SI %g %v, totals %v", si, ok, r.Result.Totals)
 	}
 }

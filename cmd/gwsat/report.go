@@ -86,7 +86,7 @@ func reportCmd(e *env) *cobra.Command {
 				prev := debug.SetMemoryLimit(reportMemoryLimit)
 				defer debug.SetMemoryLimit(prev)
 			}
-			rows, err := in.collect(e, args, []string{sec.injectate, sec.native})
+			rows, err := in.collect(e, args, []string{sec.injectate, sec.native}, cluster)
 			if err != nil {
 				return usageErr(err)
 			}
@@ -311,8 +311,9 @@ type reportRows struct {
 // streamed (sitereport.Collect), keeping each record compact, and read a
 // second time as the samples files are written; standard input is read
 // whole, as before, and its records are kept whole. keep are sample ids kept
-// whole (the end-members named on the command line).
-func (f *inputFlags) collect(e *env, args []string, keep []string) (*reportRows, error) {
+// whole (the end-members named on the command line); cluster is the
+// cluster column (--cluster).
+func (f *inputFlags) collect(e *env, args []string, keep []string, cluster string) (*reportRows, error) {
 	for _, a := range args {
 		if a == "-" {
 			// Records without their detail: samples.json gets it back row by
@@ -343,7 +344,7 @@ func (f *inputFlags) collect(e *env, args []string, keep []string) (*reportRows,
 	}
 	bar := progress.New(stderrFile(e), "speciating", total)
 	coll, err := sitereport.Collect(e.ctx, ch.db, scanItems(ins), sitereport.CollectOptions{
-		Assess: ch.options(bar, false), Model: ch.model, Compact: true, Keep: keep, Rows: total})
+		Assess: ch.options(bar, false), Model: ch.model, Compact: true, Keep: keep, Rows: total, ClusterColumn: cluster})
 	bar.Done()
 	if err != nil {
 		var ie *inputError
