@@ -509,3 +509,50 @@ func (t niceTicks) Ticks(min, max float64) []plot.Tick {
 	}
 	return ts
 }
+
+// glyphQuantum is the grid on which glyphs are taken as drawn at the same
+// place: a quarter point, about one pixel at PNGDPI. Thousands of samples of
+// one well and event land there, and drawing each again adds nothing a
+// reader can see but costs the time of a glyph.
+const glyphQuantum = 0.25
+
+// glyphMemoAbove is the number of glyphs of a plot above which glyphMemo
+// leaves out glyphs drawn again: a plot of fewer draws every one, exactly
+// as before.
+const glyphMemoAbove = 500
+
+// glyphMemo remembers the glyphs drawn on one plot, so that a glyph of the
+// same shape, size and colours in the same glyphQuantum cell as one already
+// drawn is left out. The nil memo draws every glyph.
+type glyphMemo map[glyphKey]struct{}
+
+// newGlyphMemo returns a memo for a plot of n glyphs: nil (every glyph
+// drawn) up to glyphMemoAbove.
+func newGlyphMemo(n int) glyphMemo {
+	if n <= glyphMemoAbove {
+		return nil
+	}
+	return glyphMemo{}
+}
+
+type glyphKey struct {
+	x, y          int64
+	shape         glyphShape
+	r, width      vg.Length
+	fill, outline color.Color
+}
+
+// draw is drawGlyph unless the same glyph is already in pt's cell.
+func (m glyphMemo) draw(c draw.Canvas, shape glyphShape, pt vg.Point, r vg.Length, fill, outline color.Color, width vg.Length) {
+	if m == nil {
+		drawGlyph(c, shape, pt, r, fill, outline, width)
+		return
+	}
+	k := glyphKey{x: int64(math.Floor(float64(pt.X) / glyphQuantum)), y: int64(math.Floor(float64(pt.Y) / glyphQuantum)),
+		shape: shape, r: r, width: width, fill: fill, outline: outline}
+	if _, ok := m[k]; ok {
+		return
+	}
+	m[k] = struct{}{}
+	drawGlyph(c, shape, pt, r, fill, outline, width)
+}

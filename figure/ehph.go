@@ -206,12 +206,13 @@ func (l *ehphLayer) Plot(c draw.Canvas, p *plot.Plot) {
 	}
 	ps := textStyle(sizeSmall)
 	ps.YAlign = draw.YCenter
+	drawn := newGlyphMemo(len(l.pts))
 	for _, s := range l.pts {
 		pt := vg.Point{X: tx(s.PH), Y: ty(s.PE)}
 		if !c.Contains(pt) {
 			continue
 		}
-		drawGlyph(c, glyphCircle, pt, 3, sampleFill, inkColor, 0.6)
+		drawn.draw(c, glyphCircle, pt, 3, sampleFill, inkColor, 0.6)
 		if s.Label != "" {
 			c.FillText(ps, vg.Point{X: pt.X + 5, Y: pt.Y}, s.Label)
 		}

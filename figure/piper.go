@@ -345,10 +345,11 @@ func drawPiperFrame(body draw.Canvas, samples []piperSample) {
 	body.FillText(dr, off(pt(add(dR, 0.5, upL)), nRight, titleOff), "Ca2+ + Mg2+")
 
 	// Samples, in all three fields.
+	drawn := newGlyphMemo(3 * len(samples))
 	for _, s := range samples {
 		st := styleFor(s.group)
 		for _, q := range [][2]float64{s.cat, s.an, s.dia} {
-			drawGlyph(body, st.glyph, pt(q), piperMarkerR, st.color, inkColor, 0.4)
+			drawn.draw(body, st.glyph, pt(q), piperMarkerR, st.color, inkColor, 0.4)
 		}
 	}
 }

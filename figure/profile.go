@@ -394,6 +394,7 @@ func (s *seriesPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 		c.StrokeLines(s.st.line, c.ClipLinesXY(pts)...)
 	}
 	if s.glyphs {
+		drawn := newGlyphMemo(len(pts))
 		for _, pt := range pts {
 			if c.Contains(pt) {
 				fill, outline := s.fill, color.Color(color.White)
@@ -403,7 +404,7 @@ func (s *seriesPlotter) Plot(c draw.Canvas, p *plot.Plot) {
 				if fill != s.st.color {
 					outline = s.st.color // a light fill keeps a coloured rim
 				}
-				drawGlyph(c, s.st.glyph, pt, 2.8, fill, outline, 0.6)
+				drawn.draw(c, s.st.glyph, pt, 2.8, fill, outline, 0.6)
 			}
 		}
 	}

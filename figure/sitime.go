@@ -291,9 +291,24 @@ func (sp *siTimePlotter) Plot(c draw.Canvas, pl *plot.Plot) {
 	}
 	c.StrokeLine2(draw.LineStyle{Color: inkColor, Width: 0.7}, c.Min.X, ty(0), c.Max.X, ty(0))
 	const capW = 2
+	// A bar drawn again on the same pixels (many samples of one well and
+	// event) is drawn once, as glyphs are (glyphMemo).
+	type barKey struct{ x, lo, hi int64 }
+	var bars map[barKey]bool // nil: every bar drawn
+	if len(sp.p.pts) > glyphMemoAbove {
+		bars = map[barKey]bool{}
+	}
+	cell := func(v vg.Length) int64 { return int64(math.Floor(float64(v) / glyphQuantum)) }
 	for _, q := range sp.p.pts {
 		if q.hasBar {
 			x := tx(q.t)
+			k := barKey{cell(x), cell(ty(q.lo)), cell(ty(q.hi))}
+			if bars != nil {
+				if bars[k] {
+					continue
+				}
+				bars[k] = true
+			}
 			c.StrokeLine2(siTimeBarStyle, x, ty(q.lo), x, ty(q.hi))
 			c.StrokeLine2(siTimeBarStyle, x-capW, ty(q.lo), x+capW, ty(q.lo))
 			c.StrokeLine2(siTimeBarStyle, x-capW, ty(q.hi), x+capW, ty(q.hi))
@@ -312,7 +327,8 @@ func (sp *siTimePlotter) Plot(c draw.Canvas, pl *plot.Plot) {
 	if len(pts) > 1 {
 		c.StrokeLines(siTimeLine, c.ClipLinesXY(pts)...)
 	}
+	drawn := newGlyphMemo(len(pts))
 	for _, pt := range pts {
-		drawGlyph(c, glyphCircle, pt, 2.2, siTimeColor, inkColor, 0.4)
+		drawn.draw(c, glyphCircle, pt, 2.2, siTimeColor, inkColor, 0.4)
 	}
 }

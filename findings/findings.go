@@ -80,8 +80,8 @@ type Findings struct {
 // member is one sample's interval for one mineral.
 type member struct {
 	rec int
-	iv  uncertainty.Interval
-	t   float64 // time for ordering events (NaN when none)
+	iv  *uncertainty.Interval // in the caller's samples, not copied: a large file has many
+	t   float64               // time for ordering events (NaN when none)
 }
 
 // Build gathers the findings of recs from their intervals (samples[i] for
@@ -109,7 +109,8 @@ func Build(recs []assess.Record, samples []uncertainty.Sample, trends []Trend, b
 		if f.Method == "" {
 			f.Method, f.Seed, f.Draws = s.Method, s.Seed, s.Draws+s.Failed
 		}
-		for _, iv := range s.Intervals {
+		for n := range s.Intervals {
+			iv := &samples[i].Intervals[n]
 			if !seenMineral[iv.Mineral] {
 				seenMineral[iv.Mineral] = true
 				minerals = append(minerals, iv.Mineral)

@@ -3,6 +3,8 @@ package findings
 import (
 	"errors"
 	"math"
+	"runtime"
+	"sync"
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/hydro"
@@ -83,31 +85,59 @@ func Trends(recs []assess.Record, minerals []string, alpha float64) []Trend {
 	if alpha == 0 {
 		alpha = DefaultAlpha
 	}
-	var out []Trend
 	usable := func(r *assess.Record) bool { return r.Status != hydro.StatusRejected }
-	for _, ws := range seriesByWell(recs, usable) {
-		for _, m := range minerals {
-			t := series(recs, ws, "SI "+m, alpha, func(r *assess.Record) (float64, bool) {
-				if r.Result == nil {
-					return 0, false
-				}
-				return r.Result.SI(m)
-			})
-			t.Mineral = m
-			if t.State == TrendTested && t.Result.Direction == trend.Increasing {
-				t.TowardSaturation = true
+	wells := seriesByWell(recs, usable)
+	// Wells are tested in parallel (each on its own), their rows kept in
+	// well order.
+	per := make([][]Trend, len(wells))
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for k := range next {
+				per[k] = wellTrends(recs, wells[k], minerals, alpha)
 			}
-			if t.Events > 0 {
-				out = append(out, t)
+		}()
+	}
+	for k := range wells {
+		next <- k
+	}
+	close(next)
+	wg.Wait()
+	var out []Trend
+	for _, ts := range per {
+		out = append(out, ts...)
+	}
+	return out
+}
+
+// wellTrends are the trend rows of one well: its minerals, then its
+// analytes.
+func wellTrends(recs []assess.Record, ws wellSeries, minerals []string, alpha float64) []Trend {
+	var out []Trend
+	for _, m := range minerals {
+		t := series(recs, ws, "SI "+m, alpha, func(r *assess.Record) (float64, bool) {
+			if r.Result == nil {
+				return 0, false
 			}
+			return r.Result.SI(m)
+		})
+		t.Mineral = m
+		if t.State == TrendTested && t.Result.Direction == trend.Increasing {
+			t.TowardSaturation = true
 		}
-		for _, a := range trendAnalytes {
-			t := series(recs, ws, a+" (mg/L)", alpha, func(r *assess.Record) (float64, bool) {
-				return analyteMgL(r, a)
-			})
-			if t.Events > 0 {
-				out = append(out, t)
-			}
+		if t.Events > 0 {
+			out = append(out, t)
+		}
+	}
+	for _, a := range trendAnalytes {
+		t := series(recs, ws, a+" (mg/L)", alpha, func(r *assess.Record) (float64, bool) {
+			return analyteMgL(r, a)
+		})
+		if t.Events > 0 {
+			out = append(out, t)
 		}
 	}
 	return out

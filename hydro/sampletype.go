@@ -6,6 +6,18 @@ import "strings"
 // without regard to case and surrounding spaces).
 var sampleTypeHeaders = []string{"sample type", "sample_type", "type", "role"}
 
+// IsSampleTypeHeader says whether an unrecognised column with this header
+// gives the sample's role (see Type).
+func IsSampleTypeHeader(h string) bool {
+	h = strings.ToLower(strings.TrimSpace(h))
+	for _, x := range sampleTypeHeaders {
+		if h == x {
+			return true
+		}
+	}
+	return false
+}
+
 // Type returns the sample's role from a "Sample type", "type" or "role" column
 // (e.g. "injectate", "native", "monitoring"), trimmed, or "".
 func (s *Sample) Type() string {

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"strings"
+	"sync"
 
 	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/hydro"
@@ -22,6 +23,11 @@ type Planner struct {
 	db      *speciation.Database
 	reactor *reaction.Reactor
 	recs    []assess.Record
+
+	// byID indexes the records by sample id (built on first use), so that
+	// looking waters up stays fast on a file of many rows.
+	byIDOnce sync.Once
+	byID     map[string][]int
 }
 
 // NewPlanner returns a planner for the records, solving with model (nil:
@@ -39,6 +45,21 @@ func (p *Planner) Reactor() *reaction.Reactor { return p.reactor }
 // Database returns the planner's thermodynamic data.
 func (p *Planner) Database() *speciation.Database { return p.db }
 
+// rowsOf returns the indices of the records with the sample id (at most
+// two: enough to refuse an id used twice).
+func (p *Planner) rowsOf(id string) []int {
+	p.byIDOnce.Do(func() {
+		p.byID = make(map[string][]int)
+		for i := range p.recs {
+			id := p.recs[i].Sample().ID
+			if at := p.byID[id]; len(at) < 2 {
+				p.byID[id] = append(at, i)
+			}
+		}
+	})
+	return p.byID[id]
+}
+
 // Water finds the sample with the given id and prepares it (speciated as
 // measured). role names the water in messages ("native water", "injectate").
 func (p *Planner) Water(role, id string) (reaction.Solution, *assess.Record, error) {
@@ -46,13 +67,10 @@ func (p *Planner) Water(role, id string) (reaction.Solution, *assess.Record, err
 		return reaction.Solution{}, nil, fmt.Errorf("%w: no sample id given for the %s", ErrSample, role)
 	}
 	var hit *assess.Record
-	for i := range p.recs {
-		if p.recs[i].Sample().ID == id {
-			if hit != nil {
-				return reaction.Solution{}, nil, fmt.Errorf("%w: %s %s occurs on lines %d and %d; make the id unique", ErrSample, role, id, hit.Row.Line, p.recs[i].Row.Line)
-			}
-			hit = &p.recs[i]
-		}
+	if at := p.rowsOf(id); len(at) > 1 {
+		return reaction.Solution{}, nil, fmt.Errorf("%w: %s %s occurs on lines %d and %d; make the id unique", ErrSample, role, id, p.recs[at[0]].Row.Line, p.recs[at[1]].Row.Line)
+	} else if len(at) == 1 {
+		hit = &p.recs[at[0]]
 	}
 	if hit == nil {
 		ids := make([]string, len(p.recs))

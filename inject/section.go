@@ -45,7 +45,7 @@ func (p *Planner) Section(opt SectionOptions) (*report.Section, []report.Fig, er
 	}
 	// Zones by depth (adjacent zones are neighbours in this list); the native
 	// water asked for is evaluated with them, first when it has no type.
-	zones := NativeWaters(p.recs)
+	zones, dropped := p.fewNatives(NativeWaters(p.recs))
 	natives := zones
 	if opt.Native != "" && !contains(zones, opt.Native) {
 		natives = append([]string{opt.Native}, zones...)
@@ -101,6 +101,11 @@ func (p *Planner) Section(opt SectionOptions) (*report.Section, []report.Fig, er
 	sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf(
 		"The injectate %s is blended with each native water (%s) by mass of water, every blend re-solved as a closed system (alkalinity and total carbon conserved) at that zone's temperature, with shares of the injectate from 0 to 1 in steps of 0.05.",
 		inj, strings.Join(natives, ", ")))
+	if dropped > 0 {
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf(
+			"The input has %d rows of native water; to keep the section readable and quick, only the first row of each native well is evaluated, and at most %d of them, shallowest first (%d rows left out). Name one with --native to evaluate it too.",
+			dropped+len(zones), MaxNativeWaters, dropped))
+	}
 	if len(zones) > 1 && !opt.NoCrossFlow {
 		sec.Paragraphs = append(sec.Paragraphs, "A long injection screen open to several zones lets native water flow from one zone into another (cross-flow). Each pair of native waters of adjacent zones is therefore blended too, at the heat-balance temperature: sulfate-rich water meeting barium-bearing water can deposit baryte even where no injectate arrives.")
 	}

@@ -3,10 +3,14 @@ package inject
 import (
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
+	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/figure"
+	"gwsat.dev/gwsat/internal/demotest"
+	"gwsat.dev/gwsat/speciation"
 )
 
 // The demo's native waters (data/demo/README.md: NATIVE-S-R1 at 37-43 m,
@@ -72,5 +76,42 @@ func TestSectionTellsTheDemoStory(t *testing.T) {
 		if !slices.Contains(drawn, "baryte") {
 			t.Errorf("cross-flow figure draws %v, not baryte", drawn)
 		}
+	}
+}
+
+// A file that repeats its native wells (18 native rows in the demo's three
+// background wells) gets one blend per well, not per row, and the section
+// says how many rows were left out; the id lookups stay unique per row.
+func TestSectionManyNativeRows(t *testing.T) {
+	db, recs := demotest.Records(t)
+	var more []assess.Record
+	for _, r := range recs {
+		if !strings.EqualFold(r.Sample().Type(), "native") {
+			continue
+		}
+		for k := 1; k <= 5; k++ {
+			c := r
+			c.Row.Sample.ID = r.Sample().ID + "-copy" + strconv.Itoa(k)
+			more = append(more, c)
+		}
+	}
+	all := append(append([]assess.Record(nil), recs...), more...)
+	if n := len(NativeWaters(all)); n != 18 {
+		t.Fatalf("%d native rows, want 18", n)
+	}
+	p := NewPlanner(db, speciation.TruesdellJones{}, all)
+	kept, dropped := p.fewNatives(NativeWaters(all))
+	if want := []string{"NATIVE-S-R1", "NATIVE-R1", "NATIVE-D-R1"}; !slices.Equal(kept, want) || dropped != 15 {
+		t.Fatalf("fewNatives = %v, %d left out; want %v, 15", kept, dropped, want)
+	}
+	sec, _, err := p.Section(SectionOptions{Injectate: "INJ-R2", AquiferTempC: math.NaN(), Well: DefaultWell()})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if rows := sec.Tables[0].Rows; len(rows) != 5 {
+		t.Errorf("%d blends, want 3 native waters with the injectate and 2 cross-flows", len(rows))
+	}
+	if text := strings.Join(sec.Paragraphs, " "); !strings.Contains(text, "18 rows of native water") || !strings.Contains(text, "15 rows left out") {
+		t.Errorf("the section does not say what was left out: %s", text)
 	}
 }

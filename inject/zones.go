@@ -46,6 +46,39 @@ func NativeWaters(recs []assess.Record) []string {
 	return ids
 }
 
+// MaxNativeWaters is the most native waters the report section evaluates
+// against the injectate (each is a blend of 21 shares; more would make the
+// section unreadable, and a large file repeats its background wells many
+// times; common practice).
+const MaxNativeWaters = 12
+
+// fewNatives keeps at most MaxNativeWaters of ids (native waters in the order
+// of NativeWaters): all of them when they are that few, else the first row of
+// each well (rows without a well id count as their own well), the first
+// MaxNativeWaters of those. It returns the ids kept and how many were left
+// out.
+func (p *Planner) fewNatives(ids []string) ([]string, int) {
+	if len(ids) <= MaxNativeWaters {
+		return ids, 0
+	}
+	var kept []string
+	seen := map[string]bool{}
+	for _, id := range ids {
+		if len(kept) == MaxNativeWaters {
+			break
+		}
+		well := id
+		if at := p.rowsOf(id); len(at) > 0 && p.recs[at[0]].Sample().WellID != "" {
+			well = p.recs[at[0]].Sample().WellID
+		}
+		if !seen[well] {
+			seen[well] = true
+			kept = append(kept, id)
+		}
+	}
+	return kept, len(ids) - len(kept)
+}
+
 // pairing is one blend evaluated by the section: a native water with the
 // injectate, or two native waters of adjacent zones (cross-flow through a
 // screen open to both).

@@ -20,9 +20,12 @@ type findingsOf struct {
 // same verdicts within its noise), tests the trends per well and words the
 // findings.
 func buildFindings(ctx context.Context, opt Options, recs []assess.Record, minerals []string) (findingsOf, error) {
-	samples, err := uncertainty.Run(ctx, opt.DB, recs, uncertainty.Options{Linear: true, Model: opt.Model})
-	if err != nil {
-		return findingsOf{}, err
+	samples := opt.Samples
+	if len(samples) != len(recs) {
+		var err error
+		if samples, err = uncertainty.Run(ctx, opt.DB, recs, intervalOptions(opt.Model, 0, len(recs))); err != nil {
+			return findingsOf{}, err
+		}
 	}
 	trends := findings.Trends(recs, minerals, 0)
 	f, err := findings.Build(recs, samples, trends, uncertainty.DefaultBand,

@@ -242,8 +242,12 @@ func buildMethods(opt Options, st *site.Site, when time.Time, auto bool) *report
 	if len(m.CommandLine) == 0 {
 		m.CommandLine = []string{"(not recorded: the report was made by a Go program calling sitereport.Write)"}
 	}
+	rows := map[string]int{}
+	for i := range opt.Records {
+		rows[opt.Records[i].File]++
+	}
 	for _, b := range opt.Batches {
-		m.Inputs = append(m.Inputs, report.Input{File: b.File, Rows: len(b.Rows), SHA256: opt.InputSHA256[b.File]})
+		m.Inputs = append(m.Inputs, report.Input{File: b.File, Rows: rows[b.File], SHA256: opt.InputSHA256[b.File]})
 	}
 	m.Sources = []string{
 		"Standard Methods for the Examination of Water and Wastewater, 1030 E (checking analyses' correctness), 23rd ed.",

@@ -1,14 +1,41 @@
 package sitereport
 
 import (
+	"encoding/csv"
 	"fmt"
+	"io"
+	"runtime"
 	"strconv"
 	"strings"
 
+	"gwsat.dev/gwsat/assess"
+	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
 	"gwsat.dev/gwsat/report"
 	"gwsat.dev/gwsat/site"
 )
+
+// MaxPageRows is the most sample rows shown in the tables (and problem rows
+// in the checks list) of index.html: a page of more rows is too heavy to open
+// and nobody reads it; the files hold every row.
+const MaxPageRows = 2000
+
+// writeSamplesCSV writes the sample table, one record at a time, as
+// report.SampleTable and Table.WriteCSV would (the same bytes) without
+// holding the whole table.
+func writeSamplesCSV(w io.Writer, recs []assess.Record, cols report.Columns) error {
+	cw := csv.NewWriter(w)
+	if err := cw.Write(cols.Header()); err != nil {
+		return err
+	}
+	for i := range recs {
+		if err := cw.Write(cols.Row(&recs[i])); err != nil {
+			return err
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
 
 // MappingTable is the column report: how each input header was understood.
 func MappingTable(batches []*hydro.Batch) *report.Table {
@@ -141,4 +168,83 @@ func yesNo(b bool) string {
 		return "yes"
 	}
 	return "no"
+}
+
+// sampleColumns are the columns of the sample table: from the rows read
+// (report.ColumnsFor), or from the files' header mappings when the inputs
+// were streamed and the batches hold no rows.
+func sampleColumns(batches []*hydro.Batch, minerals []string) report.Columns {
+	for _, b := range batches {
+		if len(b.Rows) > 0 {
+			return report.ColumnsFor(batches, minerals)
+		}
+	}
+	var analytes, extra []string
+	seenA, seenX := map[string]bool{}, map[string]bool{}
+	for _, b := range batches {
+		a, x := b.TableColumns()
+		for _, k := range a {
+			if !seenA[k] {
+				seenA[k] = true
+				analytes = append(analytes, k)
+			}
+		}
+		for _, h := range x {
+			if !seenX[h] {
+				seenX[h] = true
+				extra = append(extra, h)
+			}
+		}
+	}
+	return report.ColumnsOf(minerals, analytes, extra)
+}
+
+// samplesChunk is how many records writeSamples holds (with their detail)
+// while their JSON is encoded in parallel.
+const samplesChunk = 256
+
+// writeSamples writes samples.csv, samples.json and samples.geojson from the
+// records reassess yields (Options.Reassess).
+func writeSamples(cw, jw, gw io.Writer, reassess func(emit func(*assess.Record) error) error, cols report.Columns, minerals []string) error {
+	c := csv.NewWriter(cw)
+	if err := c.Write(cols.Header()); err != nil {
+		return err
+	}
+	js := report.NewJSONWriter(jw)
+	gs := geo.NewSampleWriter(gw)
+	var chunk []assess.Record
+	flush := func() error {
+		if err := js.WriteAll(chunk, runtime.GOMAXPROCS(0)); err != nil {
+			return err
+		}
+		chunk = chunk[:0]
+		return nil
+	}
+	err := reassess(func(r *assess.Record) error {
+		if err := c.Write(cols.Row(r)); err != nil {
+			return err
+		}
+		if err := gs.Write(report.SampleFeature(r, minerals)); err != nil {
+			return err
+		}
+		chunk = append(chunk, *r)
+		if len(chunk) == samplesChunk {
+			return flush()
+		}
+		return nil
+	})
+	if err == nil {
+		err = flush()
+	}
+	if err != nil {
+		return err
+	}
+	c.Flush()
+	if err := c.Error(); err != nil {
+		return err
+	}
+	if err := js.Close(); err != nil {
+		return err
+	}
+	return gs.Close()
 }

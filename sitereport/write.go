@@ -8,6 +8,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"time"
 
@@ -66,6 +67,17 @@ type Options struct {
 	AllowOtherFiles bool
 	// Now, when not nil, gives the time written into the report (tests fix it).
 	Now func() time.Time
+
+	// Samples, when it has one result per record, are the SI intervals of
+	// the records (Collect); otherwise Write estimates them.
+	Samples []uncertainty.Sample
+	// Reassess, when not nil, reads and assesses the inputs a second time,
+	// with their detail (assess.Options.Detail), handing emit each record in
+	// input order (valid only during the call): samples.csv, samples.json and
+	// samples.geojson are then written from those records, so that Records
+	// may be compact (CollectOptions.Compact). An error from emit must be
+	// returned.
+	Reassess func(emit func(*assess.Record) error) error
 }
 
 // Outcome is what Write did.
@@ -190,27 +202,99 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		}
 	}
 	uniqueStems(figs)
-	tbl := report.SampleTable(recs, report.ColumnsFor(opt.Batches, all))
+	// samples.csv gets every row, written as it goes; the page's tables show
+	// the first MaxPageRows.
+	sampleCols := sampleColumns(opt.Batches, all)
+	tbl := report.SampleTable(recs[:min(len(recs), MaxPageRows)], sampleCols)
 	surf := surfacesTable(st)
 	cols := MappingTable(opt.Batches)
 	now := opt.Now()
 	methods := buildMethods(opt, st, now, auto)
+	// What the page takes from every record, taken now: with Reassess the
+	// records are then let go, so that the garbage collector does not walk
+	// them again and again while the samples files and figures are written.
+	out.Summary = assess.Summarise(batchFiles(opt.Batches), recs)
+	var qa []string
+	notOK, nRecs := 0, len(recs)
+	for i := range recs {
+		r := &recs[i]
+		if r.Status != hydro.StatusOK {
+			if notOK++; notOK <= MaxPageRows {
+				qa = append(qa, qaLine(r))
+			}
+		}
+	}
+	if notOK > MaxPageRows {
+		qa = append(qa, fmt.Sprintf("... and %d more rows that are not ok (their status and reasons are in samples.csv).", notOK-MaxPageRows))
+	}
+	if opt.Reassess != nil {
+		recs, opt.Records, opt.Samples, fnd.samples = nil, nil, nil, nil
+	}
 	write := func(name string, fill func(w io.Writer) error) error {
 		out.Written = append(out.Written, name)
 		return atomicfile.WriteWith(filepath.Join(opt.Dir, name), fill)
 	}
-	if err := errors.Join(
-		write("samples.csv", tbl.WriteCSV),
-		write("samples.json", func(w io.Writer) error {
-			ao := opt.Assess
-			if ao.Model == nil && !auto {
-				ao.Model = opt.Model
+	// The figures are drawn while the tables are written: the samples files
+	// of a large file wait on the disk and on one goroutine at times, and
+	// the figures fill the cores meanwhile.
+	type drawn struct {
+		figs []report.IndexFigure
+		errs []error
+	}
+	drawing := make(chan drawn, 1)
+	go func() {
+		f, e := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
+		drawing <- drawn{f, e}
+	}()
+	var done *drawn
+	waitFigures := func() *drawn {
+		if done == nil {
+			d := <-drawing
+			done = &d
+		}
+		return done
+	}
+	defer func() {
+		waitFigures() // no figure is written after Write returns
+		if err != nil {
+			// The run stopped before its manifest: figures that no manifest
+			// lists would make the folder look like someone else's.
+			for _, f := range figs {
+				for _, format := range fmts {
+					if rel := "figures/" + f.Stem + "." + format; !listed[rel] {
+						os.Remove(filepath.Join(opt.Dir, filepath.FromSlash(rel)))
+					}
+				}
 			}
-			return report.WriteJSONWith(w, recs, assess.NewDetailer(opt.DB, ao).Record)
-		}),
+		}
+	}()
+	var samplesErr error
+	if opt.Reassess != nil {
+		samplesErr = write("samples.csv", func(cw io.Writer) error {
+			return write("samples.json", func(jw io.Writer) error {
+				return write("samples.geojson", func(gw io.Writer) error {
+					return writeSamples(cw, jw, gw, opt.Reassess, sampleCols, all)
+				})
+			})
+		})
+	} else {
+		samplesErr = errors.Join(
+			write("samples.csv", func(w io.Writer) error { return writeSamplesCSV(w, recs, sampleCols) }),
+			write("samples.json", func(w io.Writer) error {
+				ao := opt.Assess
+				if ao.Model == nil && !auto {
+					ao.Model = opt.Model
+				}
+				return report.WriteJSONParallel(w, recs, func() func(*assess.Record) *assess.Record {
+					return assess.NewDetailer(opt.DB, ao).Record
+				}, runtime.GOMAXPROCS(0))
+			}),
+			write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }))
+	}
+	if err := errors.Join(
+		samplesErr,
 		write("columns.csv", cols.WriteCSV),
 		write("surfaces.csv", surf.WriteCSV),
-		write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }),
 		write("methods.json", func(w io.Writer) error { return report.WriteMethodsJSON(w, methods) }),
 		write("findings.csv", fnd.f.Table().WriteCSV),
 		write("trends.csv", findings.TrendTable(fnd.trends).WriteCSV),
@@ -233,7 +317,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		out.Written = append(out.Written, filepath.ToSlash(rel))
 	}
 
-	rendered, ferrs := renderFigures(ctx, opt.Dir, figs, fmts, opt.Progress)
+	rendered, ferrs := waitFigures().figs, waitFigures().errs
 	out.FigureErrors = ferrs
 	out.Figures = len(figs) - len(ferrs)
 	for _, f := range figs {
@@ -242,7 +326,6 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 			out.Written = append(out.Written, "figures/"+f.Stem+"."+format)
 		}
 	}
-	out.Summary = assess.Summarise(batchFiles(opt.Batches), recs)
 	for i := range sections {
 		n := len(sections[i].Figures)
 		sections[i].Figures = rendered[len(st.Figures) : len(st.Figures)+n]
@@ -262,11 +345,12 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		Tables:      fullTables(tbl, surf, cols, all),
 	}
 	ix.Counts = []report.Link{{Label: out.Summary.StatusLine()}, {Label: out.Summary.BalanceLine()}}
-	for i := range recs {
-		r := &recs[i]
-		if r.Status != hydro.StatusOK {
-			ix.QA = append(ix.QA, qaLine(r))
-		}
+	ix.QA = qa
+	if nRecs > MaxPageRows {
+		ix.Notes = append(ix.Notes, fmt.Sprintf("The input has %d rows: the sample tables on this page show the first %d, in input order. samples.csv, samples.json and samples.geojson hold every row.", nRecs, MaxPageRows))
+	}
+	if nRecs > ForwardAbove {
+		ix.Notes = append(ix.Notes, fmt.Sprintf("With more than %d rows, the SI intervals take one-sided differences (half the solves of the central ones; on the demo their standard deviations agree within 0.001).", ForwardAbove))
 	}
 	for _, f := range tableFiles {
 		ix.Files = append(ix.Files, report.Link{Label: f, Href: f})

@@ -16,7 +16,7 @@ import (
 )
 
 // demoRecords assesses the embedded demo samples (invented).
-func demoRecords(b *testing.B) (*speciation.Database, []assess.Record) {
+func demoRecords(b testing.TB) (*speciation.Database, []assess.Record) {
 	raw, err := data.Demo().ReadFile("demo/samples.csv")
 	if err != nil {
 		b.Fatal(err)

@@ -64,7 +64,13 @@ func (e *Estimator) Linear(c *Case) (Result, error) {
 		if err := siAt(in, b, up); err != nil {
 			return r, err
 		}
-		if err := siAt(in, a, down); err != nil {
+		if e.opt.Forward && b > in.Value {
+			// One-sided: the SI as measured stands for the lower point.
+			a = in.Value
+			for k := range minerals {
+				down[k] = minerals[k].SI
+			}
+		} else if err := siAt(in, a, down); err != nil {
 			return r, err
 		}
 		for k := range minerals {

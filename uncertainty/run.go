@@ -57,6 +57,9 @@ func Run(ctx context.Context, db *speciation.Database, recs []assess.Record, opt
 					e = brine
 				}
 				out[i] = e.record(&recs[i], o.FirstStream+uint64(i))
+				if o.Brief {
+					out[i].brief()
+				}
 				if o.Progress != nil {
 					mu.Lock()
 					o.Progress()
@@ -96,4 +99,12 @@ func (e *Estimator) record(r *assess.Record, stream uint64) Sample {
 		return Sample{Result: Result{Method: res.Method, Seed: res.Seed, Stream: res.Stream, Draws: res.Draws, Failed: res.Failed}, Err: err}
 	}
 	return Sample{Result: res}
+}
+
+// brief drops the inputs and sensitivities of a result (Options.Brief).
+func (s *Sample) brief() {
+	s.Inputs = nil
+	for k := range s.Intervals {
+		s.Intervals[k].Sensitivity = nil
+	}
 }

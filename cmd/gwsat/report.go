@@ -6,12 +6,14 @@ import (
 	"fmt"
 	"math"
 	"os"
+	"runtime/debug"
 	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 
+	"gwsat.dev/gwsat/assess"
 	"gwsat.dev/gwsat/data"
 	"gwsat.dev/gwsat/geo"
 	"gwsat.dev/gwsat/hydro"
@@ -19,6 +21,7 @@ import (
 	"gwsat.dev/gwsat/internal/progress"
 	"gwsat.dev/gwsat/site"
 	"gwsat.dev/gwsat/sitereport"
+	"gwsat.dev/gwsat/uncertainty"
 )
 
 // DemoSite is the embedded site-feature file of the demo.
@@ -77,12 +80,17 @@ func reportCmd(e *env) *cobra.Command {
 			if err != nil {
 				return usagef("--nondetect: %w", err)
 			}
-			// Records without their detail: samples.json gets it back row by
-			// row as it is written, so that memory stays small on large files.
-			batches, recs, ch, err := in.assessAll(e, args, false)
+			if os.Getenv("GOMEMLIMIT") == "" {
+				// A soft limit keeps the garbage collector from letting dead
+				// rows and figure buffers pile up on a large file.
+				prev := debug.SetMemoryLimit(reportMemoryLimit)
+				defer debug.SetMemoryLimit(prev)
+			}
+			rows, err := in.collect(e, args, []string{sec.injectate, sec.native}, cluster)
 			if err != nil {
 				return usageErr(err)
 			}
+			batches, ch := rows.batches, rows.ch
 			sums, err := inputChecksums(batches, in.demo)
 			if err != nil {
 				return usageErr(err)
@@ -102,7 +110,7 @@ func reportCmd(e *env) *cobra.Command {
 				progressFn = nil
 			}
 			oc2, err := sitereport.Write(e.ctx, sitereport.Options{
-				Dir: out, Batches: batches, Records: recs, DB: ch.db, Model: ch.model, Assess: ch.assessOptions(),
+				Dir: out, Batches: batches, Records: rows.recs, Samples: rows.samples, Reassess: rows.reassess, DB: ch.db, Model: ch.model, Assess: ch.assessOptions(),
 				Site:            site.Options{Minerals: chosen, Method: method, Features: feats, BandEdges: edges, ProfileRound: profileRound, ClusterColumn: cluster},
 				Inject:          so,
 				Formats:         fmts,
@@ -281,4 +289,88 @@ func inputChecksums(batches []*hydro.Batch, demo bool) (map[string]string, error
 		out[b.File] = sum
 	}
 	return out, nil
+}
+
+// reportMemoryLimit is the soft memory limit of report (GOMEMLIMIT
+// overrides it): the project's target is 1 GB of peak resident memory on
+// 100,000 rows.
+const reportMemoryLimit = 880 << 20
+
+// reportRows are the rows a report is made from.
+type reportRows struct {
+	batches []*hydro.Batch
+	recs    []assess.Record
+	samples []uncertainty.Sample
+	ch      *chemistry
+	// reassess reads the inputs again for the samples files (nil for
+	// standard input, which cannot be read twice).
+	reassess func(emit func(*assess.Record) error) error
+}
+
+// collect reads and assesses the inputs for a report. Files and the demo are
+// streamed (sitereport.Collect), keeping each record compact, and read a
+// second time as the samples files are written; standard input is read
+// whole, as before, and its records are kept whole. keep are sample ids kept
+// whole (the end-members named on the command line); cluster is the
+// cluster column (--cluster).
+func (f *inputFlags) collect(e *env, args []string, keep []string, cluster string) (*reportRows, error) {
+	for _, a := range args {
+		if a == "-" {
+			// Records without their detail: samples.json gets it back row by
+			// row as it is written.
+			batches, recs, ch, err := f.assessAll(e, args, false)
+			if err != nil {
+				return nil, err
+			}
+			return &reportRows{batches: batches, recs: recs, ch: ch}, nil
+		}
+	}
+	ch, err := f.chemistry()
+	if err != nil {
+		return nil, err
+	}
+	ins, fieldName, err := f.openInputs(e, args)
+	if err != nil {
+		return nil, err
+	}
+	defer func() {
+		for _, x := range ins {
+			x.sc.Close()
+		}
+	}()
+	total := 0
+	for _, x := range ins {
+		total += max(x.sc.Len(), 0)
+	}
+	bar := progress.New(stderrFile(e), "speciating", total)
+	coll, err := sitereport.Collect(e.ctx, ch.db, scanItems(ins), sitereport.CollectOptions{
+		Assess: ch.options(bar, false), Model: ch.model, Compact: true, Keep: keep, Rows: total, ClusterColumn: cluster})
+	bar.Done()
+	if err != nil {
+		var ie *inputError
+		if errors.As(err, &ie) {
+			return nil, ie.err
+		}
+		return nil, err
+	}
+	printJoin(e, ins, fieldName)
+	rows := &reportRows{recs: coll.Records, samples: coll.Samples, ch: ch}
+	for _, x := range ins {
+		rows.batches = append(rows.batches, x.sc.Batch())
+	}
+	rows.reassess = func(emit func(*assess.Record) error) error {
+		again, _, err := f.openInputs(e, args)
+		if err != nil {
+			return err
+		}
+		defer func() {
+			for _, x := range again {
+				x.sc.Close()
+			}
+		}()
+		opt := ch.options(nil, true)
+		opt.Progress = nil
+		return assess.Stream(e.ctx, ch.db, scanItems(again), opt, emit)
+	}
+	return rows, nil
 }
