@@ -14,16 +14,21 @@ import (
 // default HTML escaping writes for a jsonRecord, newline included.
 // TestAppendRecordMatchesEncoder holds the two together.
 
-// jenc builds indented JSON.
+// jenc builds indented JSON, or compact JSON (no whitespace at all, as
+// encoding/json's Marshal writes it) when compact is set.
 type jenc struct {
-	b     []byte
-	depth int
-	first bool // no member written yet in the innermost object or array
+	b       []byte
+	depth   int
+	first   bool // no member written yet in the innermost object or array
+	compact bool
 }
 
 // nl starts a line at the current depth (the prefix and one indent per
-// level).
+// level); nothing in compact JSON.
 func (e *jenc) nl() {
+	if e.compact {
+		return
+	}
 	e.b = append(e.b, '\n', ' ', ' ')
 	for i := 0; i < e.depth; i++ {
 		e.b = append(e.b, ' ', ' ')
@@ -58,7 +63,10 @@ func (e *jenc) elem() {
 func (e *jenc) key(k string) {
 	e.elem()
 	e.b = appendJSONString(e.b, k)
-	e.b = append(e.b, ':', ' ')
+	e.b = append(e.b, ':')
+	if !e.compact {
+		e.b = append(e.b, ' ')
+	}
 }
 
 func (e *jenc) str(k, v string) {
@@ -181,9 +189,10 @@ func appendJSONString(dst []byte, s string) []byte {
 	return append(dst, '"')
 }
 
-// appendRecord appends the indented JSON of jr and a newline.
-func appendRecord(b []byte, jr *jsonRecord) []byte {
-	e := &jenc{b: b}
+// appendRecord appends the indented JSON of jr and a newline, or, when
+// compact, its JSON on one line without the newline.
+func appendRecord(b []byte, jr *jsonRecord, compact bool) []byte {
+	e := &jenc{b: b, compact: compact}
 	e.open('{')
 	e.str("file", jr.File)
 	e.int("line", jr.Line)
@@ -313,5 +322,8 @@ func appendRecord(b []byte, jr *jsonRecord) []byte {
 	}
 	e.strOmit("speciation_error", jr.Error)
 	e.close('}')
+	if compact {
+		return e.b
+	}
 	return append(e.b, '\n')
 }

@@ -67,10 +67,44 @@ func TestAppendRecordMatchesEncoder(t *testing.T) {
 	all := append(recs, extra...)
 	for i := range all {
 		jr := jsonRecordOf(&all[i])
-		got, want := appendRecord(nil, &jr), encoderJSON(t, &all[i])
+		got, want := appendRecord(nil, &jr, false), encoderJSON(t, &all[i])
 		if !bytes.Equal(got, want) {
 			t.Fatalf("record %d:\n got %s\nwant %s", i, got, want)
 		}
+		// The compact form is the indented one with its insignificant
+		// whitespace removed, as encoding/json's Compact removes it.
+		var c bytes.Buffer
+		if err := json.Compact(&c, want); err != nil {
+			t.Fatal(err)
+		}
+		if got := appendRecord(nil, &jr, true); !bytes.Equal(got, c.Bytes()) {
+			t.Fatalf("record %d compact:\n got %s\nwant %s", i, got, c.Bytes())
+		}
+	}
+	// Whole files: the compact writer's array holds the same JSON as the
+	// indented one, with one record per line.
+	var ind, cmp bytes.Buffer
+	if err := WriteJSONParallel(&ind, recs, nil, 2, false); err != nil {
+		t.Fatal(err)
+	}
+	if err := WriteJSONParallel(&cmp, recs, nil, 2, true); err != nil {
+		t.Fatal(err)
+	}
+	var a, b2 bytes.Buffer
+	if err := json.Compact(&a, ind.Bytes()); err != nil {
+		t.Fatal(err)
+	}
+	if err := json.Compact(&b2, cmp.Bytes()); err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(a.Bytes(), b2.Bytes()) {
+		t.Error("compact samples JSON holds other values than the indented one")
+	}
+	if lines := bytes.Count(cmp.Bytes(), []byte("\n")); lines != len(recs)+2 {
+		t.Errorf("compact samples JSON has %d lines, want one per record plus the brackets (%d)", lines, len(recs)+2)
+	}
+	if cmp.Len() > ind.Len()*7/10 {
+		t.Errorf("compact samples JSON is %d bytes, indented %d: less than 30 %% saved", cmp.Len(), ind.Len())
 	}
 	if len(recs) < 90 {
 		t.Fatalf("%d demo records, want the demo's 96 rows", len(recs))

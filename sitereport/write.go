@@ -273,7 +273,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		samplesErr = write("samples.csv", func(cw io.Writer) error {
 			return write("samples.json", func(jw io.Writer) error {
 				return write("samples.geojson", func(gw io.Writer) error {
-					return writeSamples(cw, jw, gw, opt.Reassess, sampleCols, all)
+					return writeSamples(cw, jw, gw, opt.Reassess, sampleCols, all, compactJSON(nRecs))
 				})
 			})
 		})
@@ -287,7 +287,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 				}
 				return report.WriteJSONParallel(w, recs, func() func(*assess.Record) *assess.Record {
 					return assess.NewDetailer(opt.DB, ao).Record
-				}, runtime.GOMAXPROCS(0))
+				}, runtime.GOMAXPROCS(0), compactJSON(nRecs))
 			}),
 			write("samples.geojson", func(w io.Writer) error { return report.WriteGeoJSON(w, recs, all) }))
 	}
@@ -347,7 +347,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	ix.Counts = []report.Link{{Label: out.Summary.StatusLine()}, {Label: out.Summary.BalanceLine()}}
 	ix.QA = qa
 	if nRecs > MaxPageRows {
-		ix.Notes = append(ix.Notes, fmt.Sprintf("The input has %d rows: the sample tables on this page show the first %d, in input order. samples.csv, samples.json and samples.geojson hold every row.", nRecs, MaxPageRows))
+		ix.Notes = append(ix.Notes, fmt.Sprintf("The input has %d rows: the sample tables on this page show the first %d, in input order. samples.csv, samples.json and samples.geojson hold every row (samples.json one sample per line, without indentation).", nRecs, MaxPageRows))
 	}
 	if nRecs > ForwardAbove {
 		ix.Notes = append(ix.Notes, fmt.Sprintf("With more than %d rows, the SI intervals take one-sided differences (half the solves of the central ones; on the demo their standard deviations agree within 0.001).", ForwardAbove))
