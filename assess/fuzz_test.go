@@ -19,6 +19,7 @@ func FuzzPipeline(f *testing.F) {
 	f.Add([]byte("Sample;pH;Ca (mg/L);Cl (mg/L)\nA;7,1;1e308;<0,5\nB;2;-1;ND\n"))
 	f.Add([]byte("sample,parameter,value,unit\nW1,pH,7.4,\nW1,Ca,50,mg/L\nW1,Cl,1e300,g/L\n"))
 	f.Add([]byte("Sample ID,Latitude,Longitude,Depth,pH,Temp (C),Ba (ug/L),SO4 (mg/L),Alkalinity (mg/L as CaCO3)\nX,95,0,-3,14,100,1e9,1e9,1e-9\n"))
+	f.Add([]byte("Sample,Depth (m),Temp (C),pH,Ca (mg/L),Na (mg/L),Cl (mg/L),SO4 (mg/L),Ba (mg/L),Sr (mg/L),Pressure (psi)\nD,2500,88,6.5,7000,60000,110000,8,30,600,3600\nE,10,20,7,1e5,1,1,1e5,0,0,20000\nF,,,,,,,,,,abc\n"))
 	db, err := speciation.Default()
 	if err != nil {
 		f.Fatal(err)

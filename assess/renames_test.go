@@ -17,11 +17,20 @@ import (
 // to 0.013 on the demo, and are checked against published solubilities instead.
 var newTemperatureData = map[string]bool{"gypsum": true, "anhydrite": true, "celestine": true, "halite": true}
 
+// renamesTolerance is how far an SI of the demo may now lie from the baseline.
+// The renames moved nothing (1e-9 held until then); since then the CaSO4(aq)
+// pair has the heat capacity of association of the Fuoss (1958) equation
+// (speciation/thermo.txt, issue of hot water and brines), which moves the free
+// Ca2+ and SO4 2- of the demo's 12-25 C waters and so the SIs by up to about
+// 3e-4. The tolerance stays far below any change a rename could cause (a
+// wrong mineral or ion would move an SI by 0.1 or more).
+const renamesTolerance = 1e-3
+
 // The interface renames (charge notation, mineral names, column scheme) must not move a
 // single number: every saturation index of the demo, by sample and mineral, equals the
 // one computed before the renames (testdata/demo_si_before_renames.csv, see
-// testdata/README.md) within 1e-9. Old mineral names are looked up through the aliases
-// the database accepts on input.
+// testdata/README.md) within renamesTolerance. Old mineral names are looked up through
+// the aliases the database accepts on input.
 func TestDemoSIUnchangedByRenames(t *testing.T) {
 	f, err := os.Open("../testdata/demo_si_before_renames.csv")
 	if err != nil {
@@ -39,7 +48,7 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 	for i := range recs {
 		byID[recs[i].Row.Sample.ID] = &recs[i]
 	}
-	checked := 0
+	checked, maxDev := 0, 0.0
 	for _, r := range rows[1:] {
 		want, err := strconv.ParseFloat(r[3], 64)
 		if err != nil {
@@ -59,11 +68,13 @@ func TestDemoSIUnchangedByRenames(t *testing.T) {
 			continue
 		}
 		got, ok := rec.Result.SI(m.Name)
-		if !ok || math.Abs(got-want) > 1e-9 {
+		maxDev = math.Max(maxDev, math.Abs(got-want))
+		if !ok || math.Abs(got-want) > renamesTolerance {
 			t.Errorf("%s %s (now %s): SI %v, before the renames %v", r[1], r[2], m.Name, got, want)
 		}
 		checked++
 	}
+	t.Logf("%d SIs compared, largest difference %.2g", checked, maxDev)
 	if checked < 1100 {
 		t.Errorf("only %d values compared", checked)
 	}

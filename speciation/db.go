@@ -43,19 +43,26 @@ func (e *DataError) Error() string {
 func (e *DataError) Unwrap() error { return e.Err }
 
 // LogKFunc is log10 K as a function of temperature,
-// log K(T) = A + B*T + C/T + D*log10(T) + E/T^2 with T in kelvin.
-// A van 't Hoff enthalpy is stored in the same form (A and C only).
+// log K(T) = A + B*T + C/T + D*log10(T) + E/T^2 + F/(eps_r(T) T) with T in
+// kelvin and eps_r the dielectric constant of water (WaterDielectric).
+// A van 't Hoff enthalpy is stored in the same form (A and C only); F carries
+// the heat capacity of an ion pair's association from the Fuoss (1958)
+// equation (heat_capacity = fuoss in the data; see fuossHeatCapacity).
 type LogKFunc struct {
-	A, B, C, D, E float64
+	A, B, C, D, E, F float64
 }
 
 // At returns log10 K at temperature tempK (kelvin).
 func (f LogKFunc) At(tempK float64) float64 {
-	return f.A + f.B*tempK + f.C/tempK + f.D*math.Log10(tempK) + f.E/(tempK*tempK)
+	v := f.A + f.B*tempK + f.C/tempK + f.D*math.Log10(tempK) + f.E/(tempK*tempK)
+	if f.F != 0 {
+		v += f.F / (WaterDielectric(tempK-273.15) * tempK)
+	}
+	return v
 }
 
 func (f LogKFunc) add(g LogKFunc, nu float64) LogKFunc {
-	return LogKFunc{f.A + nu*g.A, f.B + nu*g.B, f.C + nu*g.C, f.D + nu*g.D, f.E + nu*g.E}
+	return LogKFunc{A: f.A + nu*g.A, B: f.B + nu*g.B, C: f.C + nu*g.C, D: f.D + nu*g.D, E: f.E + nu*g.E, F: f.F + nu*g.F}
 }
 
 // tempConstant is the TempNote of a log K held constant (no enthalpy in the data).
@@ -635,17 +642,23 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 				return nil, fn, 0, "", e.errf("temperature_fit", "%w: %q is not a number", ErrSyntax, p)
 			}
 		}
-		fn = LogKFunc{c[0], c[1], c[2], c[3], c[4]}
+		fn = LogKFunc{A: c[0], B: c[1], C: c[2], D: c[3], E: c[4]}
 		if got := fn.At(T25); math.Abs(got-logk25) > 0.02 || math.IsNaN(got) {
 			return nil, fn, 0, "", e.errf("temperature_fit", "%w: expression gives %.4f, log10_k_25c is %.4f", ErrInconsistentLogK, got, logk25)
 		}
 		note = "analytic"
+		if _, ok := e.fields["heat_capacity"]; ok {
+			return nil, fn, 0, "", e.errf("heat_capacity", "%w: heat_capacity goes with enthalpy, not with temperature_fit", ErrSyntax)
+		}
 	} else if dh, ok := e.fields["enthalpy"]; ok {
 		parts := strings.Fields(dh)
 		switch {
 		case len(parts) == 1 && parts[0] == "none":
 			fn = LogKFunc{A: logk25}
 			note = tempConstant
+			if _, ok := e.fields["heat_capacity"]; ok {
+				return nil, fn, 0, "", e.errf("heat_capacity", "%w: heat_capacity needs a measured enthalpy, not \"none\"", ErrSyntax)
+			}
 		case len(parts) == 2:
 			v, err := strconv.ParseFloat(parts[0], 64)
 			if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
@@ -661,6 +674,22 @@ func (db *Database) reaction(e *rawEntry, sign float64) ([]Term, LogKFunc, float
 			}
 			fn = vantHoff(logk25, v)
 			note = "van 't Hoff"
+			if hc, ok := e.fields["heat_capacity"]; ok {
+				f := strings.Fields(hc)
+				z := 0.0
+				if len(f) == 2 && f[0] == "fuoss" {
+					z, err = strconv.ParseFloat(f[1], 64)
+				}
+				if len(f) != 2 || f[0] != "fuoss" || err != nil || !(z > 0) || math.IsInf(z, 0) {
+					return nil, fn, 0, "", e.errf("heat_capacity", "%w: heat_capacity must be \"fuoss Z\" (Z the charge product of the pair), got %q", ErrSyntax, hc)
+				}
+				curv, err := fuossHeatCapacity(z, logk25)
+				if err != nil {
+					return nil, fn, 0, "", e.errf("heat_capacity", "%w: %v", ErrSyntax, err)
+				}
+				fn = fn.add(curv, 1)
+				note = "van 't Hoff with the Fuoss heat capacity"
+			}
 		default:
 			return nil, fn, 0, "", e.errf("enthalpy", "%w: enthalpy must be \"<number> kJ\", \"<number> kcal\" or \"none\"", ErrSyntax)
 		}

@@ -88,6 +88,33 @@ reaction = Ca2+ + 2 Cl-
 log10_k_25c = one
 enthalpy = none
 `, ErrSyntax, 16, "mineral Salt"},
+		{"heat capacity with a fit", tinyHeader + `
+[species CaCl+]
+reaction = Ca2+ + Cl-
+charge = 1
+log10_k_25c = 0.4
+temperature_fit = 0.4 0 0 0 0
+heat_capacity = fuoss 2
+ion_size = 4
+`, ErrSyntax, 19, "species CaCl+"},
+		{"heat capacity without enthalpy", tinyHeader + `
+[species CaCl+]
+reaction = Ca2+ + Cl-
+charge = 1
+log10_k_25c = 0.4
+enthalpy = none
+heat_capacity = fuoss 2
+ion_size = 4
+`, ErrSyntax, 19, "species CaCl+"},
+		{"heat capacity not fuoss", tinyHeader + `
+[species CaCl+]
+reaction = Ca2+ + Cl-
+charge = 1
+log10_k_25c = 0.4
+enthalpy = 1 kcal
+heat_capacity = 200 J
+ion_size = 4
+`, ErrSyntax, 19, "species CaCl+"},
 		{"bad enthalpy unit", tinyHeader + `
 [mineral Salt]
 reaction = Ca2+ + 2 Cl-

@@ -97,7 +97,7 @@ func TestSolveAgreesWithMathPow(t *testing.T) {
 		for k, sp := range res.Species {
 			dsp := &db.species[db.SpeciesIndex(sp.Name)]
 			f := &dsp.LogK
-			logm := f.A + f.B*T + f.C/T + f.D*math.Log10(T) + f.E/(T*T) - sp.LogGamma
+			logm := f.At(T) - sp.LogGamma
 			for _, term := range dsp.Terms {
 				logm += term.Nu * la[term.Index]
 			}

@@ -76,3 +76,31 @@ func fuossRatio(b25, tempK float64) float64 {
 	eT := WaterDielectric(tempK-273.15) * tempK
 	return math.Exp(b25 * (e25T/eT - 1))
 }
+
+// fuossHeatCapacity returns the part of log10 K(T) of an ion pair (charge
+// product z, log K logK25 at 25 C) that the Fuoss equation adds to a van 't
+// Hoff line: its log K(T) minus its own value and tangent (in 1/T) at 25 C,
+//
+//	[b(T) - b25 - (dH_F/R)(1/T25 - 1/T)] / ln 10,   b(T) = b25 eps_r(25) T25 / (eps_r(T) T),
+//
+// which is zero with zero slope at 25 C. Added to the van 't Hoff line of the
+// measured enthalpy, it keeps that enthalpy at 25 C and gives the pair the heat
+// capacity of association the equation implies (the pairing constant rising
+// faster with temperature as the dielectric constant of water falls).
+func fuossHeatCapacity(z, logK25 float64) (LogKFunc, error) {
+	b25, err := fuossExponent(z, logK25)
+	if err != nil {
+		return LogKFunc{}, err
+	}
+	e25 := WaterDielectric(25)
+	g := b25 * e25 * T25 // b(T) = g / (eps_r(T) T)
+	// dH_F/R = T^2 d ln K/dT = -T^2 g (eps_r + T d eps_r/dT)/(eps_r T)^2 at 25 C
+	const h = 1e-3
+	deps := (WaterDielectric(25+h) - WaterDielectric(25-h)) / (2 * h)
+	dhOverR := -T25 * T25 * g * (e25 + T25*deps) / (e25 * T25 * e25 * T25)
+	return LogKFunc{
+		A: (-b25 - dhOverR/T25) / math.Ln10,
+		C: dhOverR / math.Ln10,
+		F: g / math.Ln10,
+	}, nil
+}

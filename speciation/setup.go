@@ -169,14 +169,15 @@ func (s *Solver) setup(w *Water) error {
 	if p := pressureOf(w); w.TempC != s.lastT || p != s.lastP {
 		T := w.TempC + 273.15
 		lt := math.Log10(T)
+		epsT := WaterDielectric(w.TempC) * T // for the Fuoss term F of LogKFunc
 		for i := range db.species {
 			f := &db.species[i].LogK
-			s.logK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
+			s.logK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T) + f.F/epsT
 		}
 		for i := range db.minerals {
 			m := &db.minerals[i]
 			f := &m.LogK
-			s.phLogK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T)
+			s.phLogK[i] = f.A + f.B*T + f.C/T + f.D*lt + f.E/(T*T) + f.F/epsT
 			if p != 1 && m.HasPressureData() {
 				s.phLogK[i] += PressureLogKShift(m.VolumeChange, m.CompressibilityChange, T, p)
 			}

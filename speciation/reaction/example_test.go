@@ -82,8 +82,8 @@ func ExampleReactor_Precipitate() {
 	fmt.Printf("pH %.2f -> %.2f, CCPP %.1f mg/L as CaCO3\n", p.Before.PH, p.Together.After.PH, p.CCPP)
 	// Output:
 	// baryte   0.0093 mmol/kgw 2.18 mg/L
-	// calcite  0.1296 mmol/kgw 12.97 mg/L
-	// pH 7.24 -> 7.08, CCPP 12.9 mg/L as CaCO3
+	// calcite  0.1277 mmol/kgw 12.78 mg/L
+	// pH 7.24 -> 7.08, CCPP 12.7 mg/L as CaCO3
 }
 
 func ExampleReactor_Sequence() {
