@@ -2,6 +2,7 @@ package sitereport
 
 import (
 	"encoding/csv"
+	"errors"
 	"fmt"
 	"io"
 	"runtime"
@@ -209,10 +210,30 @@ func sampleColumns(batches []*hydro.Batch, minerals []string) report.Columns {
 // while their JSON is encoded in parallel.
 const samplesChunk = 256
 
+// ErrInputChanged is a report input that changed between its two readings.
+var ErrInputChanged = errors.New("the input changed while the report was being made (its second reading differs from the first); make the report again")
+
+// rowKey names a row of the first reading of a report's inputs.
+type rowKey struct {
+	file, id string
+	line     int
+}
+
+// rowKeys are the keys of recs, kept when the records themselves are let go.
+func rowKeys(recs []assess.Record) []rowKey {
+	k := make([]rowKey, len(recs))
+	for i := range recs {
+		k[i] = rowKey{file: recs[i].File, id: recs[i].Row.Sample.ID, line: recs[i].Row.Line}
+	}
+	return k
+}
+
 // writeSamples writes samples.csv, samples.json and samples.geojson from the
 // records reassess yields (Options.Reassess); compact writes samples.json in
-// its compact form (report.JSONWriter.Compact).
-func writeSamples(cw, jw, gw io.Writer, reassess func(emit func(*assess.Record) error) error, cols report.Columns, minerals []string, compact bool) error {
+// its compact form (report.JSONWriter.Compact). first are the rows of the
+// first reading: the second must yield the same rows (file, line and sample id,
+// in order), or the input changed in between and ErrInputChanged is returned.
+func writeSamples(cw, jw, gw io.Writer, reassess func(emit func(*assess.Record) error) error, cols report.Columns, minerals []string, compact bool, first []rowKey) error {
 	c := csv.NewWriter(cw)
 	if err := c.Write(cols.Header()); err != nil {
 		return err
@@ -228,7 +249,12 @@ func writeSamples(cw, jw, gw io.Writer, reassess func(emit func(*assess.Record) 
 		chunk = chunk[:0]
 		return nil
 	}
+	n := 0
 	err := reassess(func(r *assess.Record) error {
+		if n >= len(first) || first[n] != (rowKey{file: r.File, id: r.Row.Sample.ID, line: r.Row.Line}) {
+			return fmt.Errorf("%w: %s line %d", ErrInputChanged, r.File, r.Row.Line)
+		}
+		n++
 		if err := c.Write(cols.Row(r)); err != nil {
 			return err
 		}
@@ -241,6 +267,9 @@ func writeSamples(cw, jw, gw io.Writer, reassess func(emit func(*assess.Record) 
 		}
 		return nil
 	})
+	if err == nil && n != len(first) {
+		err = fmt.Errorf("%w: %d rows the first time, %d the second", ErrInputChanged, len(first), n)
+	}
 	if err == nil {
 		err = flush()
 	}

@@ -227,7 +227,9 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	if notOK > MaxPageRows {
 		qa = append(qa, fmt.Sprintf("... and %d more rows that are not ok (their status and reasons are in samples.csv).", notOK-MaxPageRows))
 	}
+	var firstRows []rowKey
 	if opt.Reassess != nil {
+		firstRows = rowKeys(recs)
 		recs, opt.Records, opt.Samples, fnd.samples = nil, nil, nil, nil
 	}
 	write := func(name string, fill func(w io.Writer) error) error {
@@ -273,7 +275,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 		samplesErr = write("samples.csv", func(cw io.Writer) error {
 			return write("samples.json", func(jw io.Writer) error {
 				return write("samples.geojson", func(gw io.Writer) error {
-					return writeSamples(cw, jw, gw, opt.Reassess, sampleCols, all, compactJSON(nRecs))
+					return writeSamples(cw, jw, gw, opt.Reassess, sampleCols, all, compactJSON(nRecs), firstRows)
 				})
 			})
 		})
