@@ -30,8 +30,6 @@ type RowFormatter struct {
 	sis     []siValue
 	colSI   []siValue
 	reasons []string
-	// rec is the record the reasons and indices were taken from.
-	rec *assess.Record
 }
 
 // NewRowFormatter returns a formatter for the table columns cols and the
