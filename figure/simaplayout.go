@@ -56,9 +56,6 @@ type mapLayout struct {
 	places []labelPlacement
 	items  []labelItem
 	texts  []string
-	page   page
-	legTop vg.Length
-	capTop vg.Length
 }
 
 // colorBarWidth is the width reserved right of the map for the colour bar.

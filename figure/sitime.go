@@ -74,12 +74,11 @@ type siTimePoint struct {
 }
 
 type siTimePanel struct {
-	title   string
-	pts     []siTimePoint
-	trend   bool
-	a, b    float64 // trend intercept and slope
-	t0, t1  float64 // time span of the points
-	skipped int
+	title  string
+	pts    []siTimePoint
+	trend  bool
+	a, b   float64 // trend intercept and slope
+	t0, t1 float64 // time span of the points
 }
 
 // siTimePanels checks the input and returns one panel per series with a

@@ -14,10 +14,6 @@ type grid struct {
 	// serial numbers in the 1900 or 1904 date system.
 	workbook bool
 	date1904 bool
-	// brokenAt is the line from which a CSV file could not be split into
-	// records (0: none), broken the reason.
-	brokenAt int
-	broken   string
 	// fieldSheet: a file of field measurements, which needs no analyte.
 	fieldSheet bool
 }

@@ -20,17 +20,6 @@ var pitzerText string
 // that names the line).
 var ErrPitzerParams = errors.New("speciation: invalid ion-interaction parameter")
 
-// Kinds of ion-interaction parameters.
-const (
-	pzBeta0 = iota
-	pzBeta1
-	pzBeta2
-	pzCphi
-	pzTheta
-	pzPsi
-	pzLambda
-)
-
 // pzTemp is a parameter as a function of temperature (see the format of pitzer.txt).
 type pzTemp struct {
 	v25    float64
