@@ -115,7 +115,7 @@ func (hiddenTicks) Ticks(min, max float64) []plot.Tick {
 type siTicks struct{ n int }
 
 func (t siTicks) Ticks(min, max float64) []plot.Tick {
-	ts := niceTicks{n: t.n}.Ticks(min, max)
+	ts := niceTicks(t).Ticks(min, max)
 	for i := range ts {
 		if ts[i].Value > 0 && ts[i].Label != "" && ts[i].Label != "0" {
 			ts[i].Label = "+" + ts[i].Label

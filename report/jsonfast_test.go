@@ -50,7 +50,7 @@ func TestAppendRecordMatchesEncoder(t *testing.T) {
 	}
 	odd := "a\"b\\c<d>e&f\x00\x01\b\f\n\r\t\x1f\u2028\u2029\xff\xfeé😀 end"
 	nan := math.NaN()
-	res := &speciation.Result{Model: odd, TempC: nan, PH: math.Inf(1), IonicStrength: -0.0, ChargeBalance: 1e-300,
+	res := &speciation.Result{Model: odd, TempC: nan, PH: math.Inf(1), IonicStrength: math.Copysign(0, -1), ChargeBalance: 1e-300,
 		Minerals: []speciation.MineralSI{{Name: "Calcite", SI: 0.5}, {Name: odd, SI: math.Inf(-1)}},
 		Warnings: []string{odd, ""}, HasLogPCO2: true, LogPCO2: -3.5e-7}
 	extra := []assess.Record{

@@ -114,7 +114,7 @@ func TestCheckBadInput(t *testing.T) {
 
 	empty := filepath.Join(dir, "empty.csv")
 	os.WriteFile(empty, nil, 0o644)
-	code, out, errs = gwsat(t, "", "check", "-o", filepath.Join(dir, "never.csv"), empty)
+	code, _, errs = gwsat(t, "", "check", "-o", filepath.Join(dir, "never.csv"), empty)
 	if code != exitUsage || !strings.Contains(errs, "empty.csv") {
 		t.Errorf("empty file: exit %d, stderr %q", code, errs)
 	}
