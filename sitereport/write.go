@@ -214,19 +214,7 @@ func Write(ctx context.Context, opt Options) (_ *Outcome, err error) {
 	// records are then let go, so that the garbage collector does not walk
 	// them again and again while the samples files and figures are written.
 	out.Summary = assess.Summarise(batchFiles(opt.Batches), recs)
-	var qa []string
-	notOK, nRecs := 0, len(recs)
-	for i := range recs {
-		r := &recs[i]
-		if r.Status != hydro.StatusOK {
-			if notOK++; notOK <= MaxPageRows {
-				qa = append(qa, qaLine(r))
-			}
-		}
-	}
-	if notOK > MaxPageRows {
-		qa = append(qa, fmt.Sprintf("... and %d more rows that are not ok (their status and reasons are in samples.csv).", notOK-MaxPageRows))
-	}
+	qa, nRecs := qaLines(recs), len(recs)
 	var firstRows []rowKey
 	if opt.Reassess != nil {
 		firstRows = rowKeys(recs)
@@ -385,13 +373,6 @@ func modelWords(m *report.Methods) string {
 
 // qaLine words a row that is not ok: where it is, its status, and its first
 // problem (without the severity word, which the status already gives).
-func qaLine(r *assess.Record) string {
-	p := r.FirstProblem()
-	for _, sev := range []string{"error: ", "warning: ", "info: "} {
-		p = strings.TrimPrefix(p, sev)
-	}
-	return fmt.Sprintf("%s line %d, sample %s, %s: %s", r.File, r.Row.Line, r.Sample().ID, r.Status, p)
-}
 
 func batchFiles(bs []*hydro.Batch) []string {
 	out := make([]string, len(bs))
