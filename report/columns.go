@@ -16,6 +16,30 @@ type Columns struct {
 	Extra    []string // input headers kept as they are
 }
 
+// ColumnsFromHeaders builds the columns from the files' header mappings
+// (hydro.Batch.TableColumns), in file order, so that the header is known
+// before any row is read (streamed inputs).
+func ColumnsFromHeaders(batches []*hydro.Batch, minerals []string) Columns {
+	var analytes, extra []string
+	seenA, seenX := map[string]bool{}, map[string]bool{}
+	for _, b := range batches {
+		a, x := b.TableColumns()
+		for _, k := range a {
+			if !seenA[k] {
+				seenA[k] = true
+				analytes = append(analytes, k)
+			}
+		}
+		for _, h := range x {
+			if !seenX[h] {
+				seenX[h] = true
+				extra = append(extra, h)
+			}
+		}
+	}
+	return ColumnsOf(minerals, analytes, extra)
+}
+
 // ColumnsFor gives the columns for the analytes and unrecognised columns of
 // the files read, in file order.
 func ColumnsFor(batches []*hydro.Batch, minerals []string) Columns {

@@ -186,24 +186,7 @@ func sampleColumns(batches []*hydro.Batch, minerals []string) report.Columns {
 			return report.ColumnsFor(batches, minerals)
 		}
 	}
-	var analytes, extra []string
-	seenA, seenX := map[string]bool{}, map[string]bool{}
-	for _, b := range batches {
-		a, x := b.TableColumns()
-		for _, k := range a {
-			if !seenA[k] {
-				seenA[k] = true
-				analytes = append(analytes, k)
-			}
-		}
-		for _, h := range x {
-			if !seenX[h] {
-				seenX[h] = true
-				extra = append(extra, h)
-			}
-		}
-	}
-	return report.ColumnsOf(minerals, analytes, extra)
+	return report.ColumnsFromHeaders(batches, minerals)
 }
 
 // samplesChunk is how many records writeSamples holds (with their detail)

@@ -187,7 +187,7 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 	minerals := ch.db.MineralNames()
 	// The table's header is written before the first row: its columns
 	// come from the files' header mappings, not from the rows.
-	cols := columnsOf(metas, minerals)
+	cols := report.ColumnsFromHeaders(metas, minerals)
 	sum := assess.NewSummary(files(metas)...)
 	off := newOffTable(cols)
 	// The total is known when every file was read twice (not from
@@ -368,29 +368,6 @@ func runCheck(e *env, in *inputFlags, oc *outcomeFlags, args []string, outs chec
 		}
 	}
 	return oc.verdict(sum)
-}
-
-// columnsOf builds the table's columns from the files' header mappings
-// (hydro.Batch.TableColumns), so that the header is known before any row.
-func columnsOf(metas []*hydro.Batch, minerals []string) report.Columns {
-	var analytes, extra []string
-	seenA, seenX := map[string]bool{}, map[string]bool{}
-	for _, b := range metas {
-		a, x := b.TableColumns()
-		for _, k := range a {
-			if !seenA[k] {
-				seenA[k] = true
-				analytes = append(analytes, k)
-			}
-		}
-		for _, h := range x {
-			if !seenX[h] {
-				seenX[h] = true
-				extra = append(extra, h)
-			}
-		}
-	}
-	return report.ColumnsOf(minerals, analytes, extra)
 }
 
 // offTable counts the values of rows that the table has no column for: a

@@ -7,7 +7,6 @@ import (
 	"context"
 	"io"
 	"os"
-	"os/exec"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -47,25 +46,9 @@ func TestReportMemory(t *testing.T) {
 	}
 	rows := reportScaleRows(t, reportMemoryRows)
 	dir := t.TempDir()
-	bin := filepath.Join(dir, "gwsat")
-	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
-		t.Fatalf("go build: %v\n%s", err, out)
-	}
 	in := writeBig(t, dir, rows)
 	out := filepath.Join(dir, "rep")
-	cmd := exec.Command(bin, "report", in, "-q", "-o", out)
-	var stderr bytes.Buffer
-	cmd.Stderr = &stderr
-	start := time.Now()
-	rssKB, err := runPeakRSS(cmd)
-	if err != nil {
-		t.Fatalf("gwsat report: %v\n%s", err, stderr.Bytes())
-	}
-	wall := time.Since(start)
-	if rssKB == 0 {
-		t.Skip("no resource usage on this system")
-	}
-	t.Logf("%d rows: wall %v, peak RSS %d kB", rows, wall.Round(time.Millisecond), rssKB)
+	rssKB := measureGwsat(t, dir, rows, "report", in, "-q", "-o", out)
 	if rssKB > maxReportRSSkB && rows <= reportMemoryRows {
 		t.Errorf("peak RSS %d kB, want <= %d kB", rssKB, maxReportRSSkB)
 	}

@@ -67,26 +67,9 @@ func TestCheckMemory(t *testing.T) {
 	}
 	rows := scaleRows(t)
 	dir := t.TempDir()
-	bin := filepath.Join(dir, "gwsat")
-	build := exec.Command("go", "build", "-o", bin, ".")
-	if out, err := build.CombinedOutput(); err != nil {
-		t.Fatalf("go build: %v\n%s", err, out)
-	}
 	in := writeBig(t, dir, rows)
 	out := filepath.Join(dir, "out.csv")
-	cmd := exec.Command(bin, "check", in, "-q", "-o", out, "--geojson", filepath.Join(dir, "out.geojson"))
-	var stderr bytes.Buffer
-	cmd.Stderr = &stderr
-	start := time.Now()
-	rssKB, err := runPeakRSS(cmd)
-	if err != nil {
-		t.Fatalf("gwsat check: %v\n%s", err, stderr.Bytes())
-	}
-	wall := time.Since(start)
-	if rssKB == 0 {
-		t.Skip("no resource usage on this system")
-	}
-	t.Logf("%d rows: wall %v, peak RSS %d kB", rows, wall.Round(time.Millisecond), rssKB)
+	rssKB := measureGwsat(t, dir, rows, "check", in, "-q", "-o", out, "--geojson", filepath.Join(dir, "out.geojson"))
 	if rssKB > maxCheckRSSkB {
 		t.Errorf("peak RSS %d kB, want <= %d kB", rssKB, maxCheckRSSkB)
 	}
@@ -102,6 +85,31 @@ func TestCheckMemory(t *testing.T) {
 // mark (VmHWM in /proc/PID/status) is read while it runs instead, every
 // 20 ms (it only grows, so the last reading is the peak but for the last
 // few milliseconds).
+// measureGwsat builds gwsat into dir, runs it with args, logs its wall time
+// and peak resident memory (kB) for a file of rows rows, and returns the
+// memory; it skips the test where the system reports no resource usage.
+func measureGwsat(t *testing.T, dir string, rows int, args ...string) int64 {
+	t.Helper()
+	bin := filepath.Join(dir, "gwsat")
+	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
+		t.Fatalf("go build: %v\n%s", err, out)
+	}
+	cmd := exec.Command(bin, args...)
+	var stderr bytes.Buffer
+	cmd.Stderr = &stderr
+	start := time.Now()
+	rssKB, err := runPeakRSS(cmd)
+	if err != nil {
+		t.Fatalf("gwsat %s: %v\n%s", args[0], err, stderr.Bytes())
+	}
+	wall := time.Since(start)
+	if rssKB == 0 {
+		t.Skip("no resource usage on this system")
+	}
+	t.Logf("%d rows: wall %v, peak RSS %d kB", rows, wall.Round(time.Millisecond), rssKB)
+	return rssKB
+}
+
 func runPeakRSS(cmd *exec.Cmd) (int64, error) {
 	if err := cmd.Start(); err != nil {
 		return 0, err
